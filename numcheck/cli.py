@@ -1,0 +1,100 @@
+"""The ``numcheck`` command line: thin, it parses options and calls the library.
+
+Each command lives in a module of :mod:`numcheck.commands` that offers
+``NAME``, ``HELP``, ``ORDER``, ``add_arguments(parser)`` and
+``run(args, console) -> dict`` (the JSON object of the command; the module
+prints its own readable table when ``--json`` is not given).
+
+Exit codes: 0 success, 2 bad input (a :class:`~numcheck.errors.NumcheckError`,
+one paragraph, no traceback), 1 an internal error.
+"""
+
+from __future__ import annotations
+
+import argparse
+import importlib
+import json
+import pkgutil
+import sys
+import warnings
+
+from . import commands as _commands_pkg
+from .errors import NumcheckError
+
+__all__ = ["main", "build_parser"]
+
+
+def _command_modules():
+    mods = []
+    for info in pkgutil.iter_modules(_commands_pkg.__path__):
+        if info.name.startswith("_"):
+            continue
+        mod = importlib.import_module(f"{_commands_pkg.__name__}.{info.name}")
+        if hasattr(mod, "run"):
+            mods.append(mod)
+    return sorted(mods, key=lambda m: (getattr(m, "ORDER", 100), m.NAME))
+
+
+class _Parser(argparse.ArgumentParser):
+    """argparse, but bad options exit 2 with a one-line message (bad input)."""
+
+    def error(self, message):
+        self.print_usage(sys.stderr)
+        sys.stderr.write(f"{self.prog}: error: {message}\n")
+        raise SystemExit(2)
+
+
+def build_parser() -> argparse.ArgumentParser:
+    parser = _Parser(
+        prog="numcheck",
+        description="Read, identify, restore and audit the numbers of ancient and medieval "
+                    "astronomical and mathematical texts.",
+    )
+    sub = parser.add_subparsers(dest="command", metavar="COMMAND", parser_class=_Parser)
+    for mod in _command_modules():
+        p = sub.add_parser(mod.NAME, help=mod.HELP, description=mod.HELP)
+        mod.add_arguments(p)
+        p.add_argument("--json", action="store_true", help="print one JSON object and nothing else")
+        p.set_defaults(_module=mod)
+    return parser
+
+
+def main(argv: list[str] | None = None) -> int:
+    parser = build_parser()
+    args = parser.parse_args(argv)
+    if not getattr(args, "_module", None):
+        parser.print_help()
+        return 2
+    from rich.console import Console
+
+    console = Console(stderr=False, highlight=False, soft_wrap=False)
+    err_console = Console(stderr=True, highlight=False)
+    try:
+        with warnings.catch_warnings(record=True) as caught:
+            warnings.simplefilter("always")
+            result = args._module.run(args, console if not args.json else None)
+        if args.json:
+            sys.stdout.write(json.dumps(result, ensure_ascii=False, sort_keys=False) + "\n")
+        else:
+            for w in caught:
+                err_console.print(f"[yellow]warning:[/yellow] {w.message}", markup=True)
+        return 0
+    except NumcheckError as err:
+        message = str(err)
+        if args.json:
+            sys.stdout.write(json.dumps({"error": type(err).__name__, "message": message},
+                                        ensure_ascii=False) + "\n")
+        sys.stderr.write(f"numcheck {args.command}: {message}\n")
+        return 2
+    except KeyboardInterrupt:
+        return 130
+    except Exception as err:  # an internal error: say so plainly, ask for a report
+        sys.stderr.write(
+            f"numcheck {args.command}: internal error ({type(err).__name__}: {err}). "
+            "This is a fault in numcheck, not in your input; please report it with the command "
+            "you ran.\n")
+        return 1
+
+
+if __name__ == "__main__":  # pragma: no cover
+    raise SystemExit(main())

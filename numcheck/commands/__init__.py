@@ -1,0 +1,1 @@
+"""One module per ``numcheck`` command (see :mod:`numcheck.cli`)."""

@@ -1,0 +1,64 @@
+"""``numcheck read TEXT``: the exact value of a number as written."""
+
+from __future__ import annotations
+
+from ..reader import read
+from ..notations import format_reading
+from ..reading import decimal_text, exact_text, sexagesimal_text
+
+NAME = "read"
+HELP = "read a number as written into its exact value, keeping what is lost or doubtful"
+ORDER = 10
+
+
+def add_arguments(parser) -> None:
+    parser.add_argument("text", metavar="TEXT", help="the number as the edition prints it, e.g. '29;31,5[x],8,20'")
+    parser.add_argument("--notation", "-n", help="the notation (detected from the characters when left out)")
+    parser.add_argument("--unit", "-u", help="the unit of the number, or the unit to convert a quantity to")
+
+
+def run(args, console) -> dict:
+    reading = read(args.text, notation=args.notation, unit=args.unit)
+    result = reading.to_dict()
+    result["canonical"] = format_reading(reading)
+    if console is not None:
+        _show(reading, result, console)
+    return result
+
+
+def _show(reading, result: dict, console) -> None:
+    from rich.markup import escape
+    from rich.panel import Panel
+    from rich.table import Table
+
+    head = Table.grid(padding=(0, 2))
+    head.add_column(style="bold")
+    head.add_column()
+    head.add_row("as written", escape(result["canonical"]))
+    head.add_row("notation", result.get("detected") or result["notation"])
+    if reading.floating:
+        head.add_row("magnitude", "floating: the text does not fix it (shown at integer scale)")
+    head.add_row("sexagesimal", result["sexagesimal"])
+    head.add_row("exact", result["value"])
+    head.add_row("decimal", result["decimal"])
+    if "unit" in result:
+        head.add_row("unit", result["unit"])
+    if reading.damaged:
+        head.add_row("range", f"{sexagesimal_text(reading.min, fixed=not reading.floating)} to "
+                              f"{sexagesimal_text(reading.max, fixed=not reading.floating)}"
+                              f"  ({exact_text(reading.min)} to {exact_text(reading.max)})")
+        head.add_row("readings", f"{reading.count:,} readings remain possible")
+        head.add_row("value shown", "the edition's restorations, lost digits at their lowest")
+    places = Table(title="places", show_edge=False, header_style="bold")
+    for col in ("written", "place", "status", "may be"):
+        places.add_column(col)
+    style = {"read": "", "doubtful": "yellow", "unread": "magenta", "lost": "red",
+             "restored": "cyan", "added": "green", "superfluous": "dim"}
+    for p in result["places"]:
+        where = ("60^" + str(p["place"])) if "gap" not in p else f"{p['gap'][0]}-{p['gap'][1]} places"
+        places.add_row(escape(p["text"]), where, f"[{style[p['status']]}]{p['status']}[/]" if style[p["status"]] else p["status"],
+                       p["values"])
+    console.print(Panel.fit(head, title=f"numcheck read  {escape(reading.text)}"))
+    console.print(places)
+    for w in reading.warnings:
+        console.print(f"[yellow]note:[/yellow] {escape(w)}")

@@ -1,0 +1,13 @@
+"""Every size limit of numcheck, in one place.
+
+Each limit protects a scholar from a hang or an exhausted machine.  Errors that
+enforce them name the limit and say how to raise it (pass a larger value to
+the function, or set the module attribute before the call).
+"""
+
+#: Longest text read as one number (characters).
+MAX_TEXT_LENGTH = 4000
+#: Most places (or signs) in one number.
+MAX_PLACES = 60
+#: An unknown number of lost places (``[...]``) stands for 1 to this many places.
+GAP_MAX_PLACES = 3

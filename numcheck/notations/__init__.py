@@ -1,0 +1,38 @@
+"""The notations numcheck reads, one module each, and how to choose one.
+
+Every notation module offers ``NAME``, ``parse(text) -> Reading``,
+``format(reading) -> str`` (the text back, marks included) and
+``render(reading, choice) -> str`` (one reading of a damaged number, the
+chosen values of lost places shown as restorations).
+"""
+
+from __future__ import annotations
+
+import importlib
+from types import ModuleType
+
+from ..errors import UnknownNameError
+
+__all__ = ["NOTATIONS", "notation_module", "format_reading", "render_choice"]
+
+#: Notation name -> module that implements it.
+NOTATIONS: dict[str, str] = {
+    "sexagesimal": "numcheck.notations.sexagesimal",
+}
+
+
+def notation_module(name: str) -> ModuleType:
+    """The module for the notation called *name*."""
+    if name not in NOTATIONS:
+        raise UnknownNameError("notation", name, NOTATIONS)
+    return importlib.import_module(NOTATIONS[name])
+
+
+def format_reading(reading) -> str:
+    """Write a Reading back in its own notation."""
+    return notation_module(reading.notation).format(reading)
+
+
+def render_choice(reading, choice) -> str:
+    """Write one reading (one value per slot) in the Reading's notation."""
+    return notation_module(reading.notation).render(reading, choice)

@@ -1,0 +1,386 @@
+"""Sexagesimal numbers in modern scholarly notation: ``1,49,45;20``.
+
+The strict path only: this module reads what is written, marks what is lost or
+doubtful, and writes a Reading back.  It never guesses what was meant.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, replace
+from fractions import Fraction
+
+from lark import Token, Tree
+from lark.exceptions import UnexpectedCharacters, UnexpectedEOF, UnexpectedInput, UnexpectedToken
+
+from ..errors import NumcheckRangeError, NumcheckSyntaxError
+from ..grammar_loader import parser_for
+from ..limits import GAP_MAX_PLACES, MAX_PLACES
+from ..reading import Reading, Slot, Status
+
+__all__ = ["NAME", "parse", "format", "render", "parse_places", "BAD_EXAMPLES"]
+
+NAME = "sexagesimal"
+
+#: Known-bad inputs and the plain-language label each stands for.  The same
+#: table drives lark's error matching and the tests (tests/test_sexagesimal.py),
+#: with the column (1-based) the error must point at.
+BAD_EXAMPLES: list[tuple[str, int, str]] = [
+    ("1,,2", 3, "an empty place between two commas"),
+    ("29;;31", 4, "a second ';' (only the units place is followed by ';')"),
+    ("29;31;2", 6, "a second ';' (only the units place is followed by ';')"),
+    ("1,2,", 5, "a separator with no place after it"),
+    ("1;", 3, "a separator with no place after it"),
+    (",1", 1, "a separator with no place before it"),
+    (";30", 1, "a separator with no place before it (write 0;30)"),
+    ("12a", 3, "a character that is not part of sexagesimal notation"),
+    ("1 , 2 ,", 7, "a separator with no place after it"),
+    ("--1", 2, "a second sign"),
+]
+
+_KIND_ORDER = {  # how bad each kind of digit position is, for the place's status
+    Status.READ: 0, Status.ADDED: 1, Status.DOUBTFUL: 2, Status.RESTORED: 3,
+    Status.UNREAD: 4, Status.LOST: 5, Status.SUPERFLUOUS: -1,
+}
+
+
+@dataclass(frozen=True)
+class _Pos:
+    """One written digit position inside a place."""
+
+    char: str          # a digit, or "x" for a digit not read / lost
+    kind: Status
+    doubtful: bool
+    start: int
+
+
+def _raise_from_lark(text: str, err: UnexpectedInput) -> None:
+    label = None
+    if not isinstance(err, UnexpectedCharacters):
+        label = err.match_examples(parser_for("sexagesimal").parse, _examples_by_label(),
+                                   use_accepts=True)
+    pos = getattr(err, "pos_in_stream", None)
+    if pos is None:
+        pos = len(text)
+    if isinstance(err, UnexpectedCharacters):
+        ch = text[pos]
+        what = label or (
+            "a control character" if not ch.isprintable() else
+            "a character that is not part of sexagesimal notation"
+        )
+        raise NumcheckSyntaxError(
+            f"Cannot read {text!r} as a sexagesimal number: {what}", text, pos,
+            expected="digits 0-9, ',' between places, ';' after the units place, "
+                     "or a damage mark ([ ] x ? < > { })",
+        ) from None
+    if isinstance(err, UnexpectedEOF) or (isinstance(err, UnexpectedToken) and err.token.type == "$END"):
+        pos = len(text.rstrip())
+        what = label or "the number ends too early"
+        raise NumcheckSyntaxError(f"Cannot read {text!r} as a sexagesimal number: {what}", text, pos,
+                                  expected="a place after the last separator") from None
+    what = label or "a mark in the wrong place"
+    raise NumcheckSyntaxError(f"Cannot read {text!r} as a sexagesimal number: {what}", text, pos,
+                              expected="a place (digits or damage marks)") from None
+
+
+def _examples_by_label() -> dict[str, list[str]]:
+    table: dict[str, list[str]] = {}
+    for example, _, label in BAD_EXAMPLES:
+        table.setdefault(label, []).append(example)
+    return table
+
+
+def parse(text: str, *, floating: bool = False, notation: str = NAME) -> Reading:
+    """Read *text* (already normalised) as a sexagesimal number.
+
+    With ``floating=True`` (cuneiform), a text without ``;`` has no fixed
+    magnitude: its last place is taken as the units place and the Reading says
+    so.  A ``;`` always fixes the magnitude.
+    """
+    if not text.strip():
+        raise NumcheckSyntaxError("There is no number to read: the input is empty", text, 0,
+                                  expected="a number such as 1,49,45;20")
+    try:
+        tree = parser_for("sexagesimal").parse(text)
+    except UnexpectedInput as err:
+        _raise_from_lark(text, err)
+    return _build(text, tree, floating=floating, notation=notation)
+
+
+def parse_places(text: str) -> Tree:
+    """The raw parse tree (for other notations that reuse these places)."""
+    return parser_for("sexagesimal").parse(text)
+
+
+def _build(text: str, tree: Tree, *, floating: bool, notation: str) -> Reading:
+    sign = 1
+    whole: list[list[Token]] = []
+    fraction: list[list[Token]] = []
+    has_semi = False
+    for child in tree.children:
+        if isinstance(child, Token):
+            if child.type == "SIGN":
+                sign = -1 if child in ("-", "\u2212") else 1
+            elif child.type == "SEMI":
+                has_semi = True
+        elif child.data == "whole":
+            whole = [list(p.children) for p in child.children if isinstance(p, Tree)]
+        elif child.data == "fraction":
+            fraction = [list(p.children) for p in child.children if isinstance(p, Tree)]
+    if len(whole) + len(fraction) > MAX_PLACES:
+        from ..errors import LimitError
+        raise LimitError("number of places", len(whole) + len(fraction), MAX_PLACES,
+                         "Set numcheck.limits.MAX_PLACES higher to read it.")
+
+    state = {"lost": None, "added": None, "superfluous": None}
+    built_whole = [_place(text, toks, state) for toks in whole]
+    built_frac = [_place(text, toks, state) for toks in fraction]
+    for name, opened in state.items():
+        if opened is not None:
+            raise NumcheckSyntaxError(
+                f"Cannot read {text!r}: a bracket '{text[opened]}' is opened and never closed",
+                text, opened, expected=f"a closing bracket for the {name} part")
+    slots = _assign_places(built_whole, built_frac)
+    return Reading(text=text, notation=notation, slots=tuple(slots), base=60, sign=sign,
+                   floating=floating and not has_semi)
+
+
+def _assign_places(whole: list[Slot], fraction: list[Slot]) -> list[Slot]:
+    """Give every slot its exponent of 60.
+
+    Whole places count up from the units place (right to left), fractional
+    places down from -1.  A gap ``[...]`` occupies its fewest number of places;
+    a superfluous place occupies none.
+    """
+    placed_whole: list[Slot] = []
+    exponent = 0
+    for slot in reversed(whole):
+        placed_whole.append(replace(slot, place=exponent))
+        if slot.status is Status.SUPERFLUOUS:
+            continue
+        exponent += slot.gap[0] if slot.gap is not None else 1
+    placed_frac: list[Slot] = []
+    exponent = -1
+    for slot in fraction:
+        placed_frac.append(replace(slot, place=exponent))
+        if slot.status is Status.SUPERFLUOUS:
+            continue
+        exponent -= slot.gap[0] if slot.gap is not None else 1
+    return list(reversed(placed_whole)) + placed_frac
+
+
+def _place(text: str, tokens: list[Token], state: dict) -> Slot:
+    start = tokens[0].start_pos
+    end = tokens[-1].end_pos
+    written = text[start:end]
+    positions: list[_Pos] = []
+    gap_token = None
+    for tok in tokens:
+        t = tok.type
+        if t == "LOST_OPEN":
+            _open(text, tok, state, "lost")
+        elif t == "LOST_CLOSE":
+            _close(text, tok, state, "lost", positions)
+        elif t == "ADD_OPEN":
+            _open(text, tok, state, "added")
+        elif t == "ADD_CLOSE":
+            _close(text, tok, state, "added", positions)
+        elif t == "SUPERFLUOUS_OPEN":
+            _open(text, tok, state, "superfluous")
+        elif t == "SUPERFLUOUS_CLOSE":
+            _close(text, tok, state, "superfluous", positions)
+        elif t in ("DOUBT", "UNDERDOT"):
+            if not positions:
+                raise NumcheckSyntaxError(
+                    f"Cannot read {text!r}: a doubt mark with no digit before it",
+                    text, tok.start_pos, expected="a digit before '?' or the underdot")
+            last = positions[-1]
+            positions[-1] = _Pos(last.char, last.kind, True, last.start)
+        elif t == "GAP":
+            if state["lost"] is not None:
+                raise NumcheckSyntaxError(f"Cannot read {text!r}: '[...]' inside brackets",
+                                          text, tok.start_pos, expected="'[...]' standing alone")
+            gap_token = tok
+        elif t in ("DIGIT", "UNREAD"):
+            positions.append(_Pos(tok.lower() if t == "UNREAD" else str(tok),
+                                  _kind(t, state), False, tok.start_pos))
+    if gap_token is not None:
+        if positions:
+            raise NumcheckSyntaxError(
+                f"Cannot read {text!r}: '[...]' (lost places, number unknown) must stand as a place of its own",
+                text, gap_token.start_pos, expected="',' before and after '[...]'")
+        return (Slot(values=tuple(Fraction(v) for v in range(60)), status=Status.LOST,
+                           text=written, span=(start, end), gap=(1, GAP_MAX_PLACES),
+                           form=()))
+    counted = [p for p in positions if p.kind is not Status.SUPERFLUOUS]
+    if not positions:
+        raise NumcheckSyntaxError(f"Cannot read {text!r}: a place with no digit", text, start,
+                                  expected="a digit or x in every place")
+    if not counted:
+        value = int("".join(p.char for p in positions).replace("x", "0") or 0)
+        return (Slot(values=(Fraction(value),), status=Status.SUPERFLUOUS, text=written,
+                           span=(start, end), form=tuple(positions)))
+    if len(counted) > 2 and int("".join(p.char for p in counted).replace("x", "0")) > 59:
+        raise NumcheckRangeError(
+            f"The place {written!r} has more digits than a sexagesimal place holds.",
+            value=written, legal="0 to 59 (two digits at most)", text=text, position=start)
+    values, editor = _place_values(text, counted, written, start)
+    kinds = [p.kind for p in counted] + [Status.DOUBTFUL for p in counted if p.doubtful]
+    status = max(kinds, key=_KIND_ORDER.__getitem__)
+    return (Slot(values=values, status=status, text=written, span=(start, end),
+                       editor=editor, form=tuple(positions)))
+
+
+def _place_values(text, counted: list[_Pos], written: str, start: int):
+    """The values a place may take, and the editor's restoration if any."""
+    open_kinds = (Status.UNREAD, Status.LOST, Status.RESTORED)
+    if len(counted) == 1 and counted[0].kind in open_kinds:
+        values = tuple(Fraction(v) for v in range(60))
+        editor = Fraction(int(counted[0].char)) if counted[0].kind is Status.RESTORED else None
+        return values, editor
+    # Digit positions from the units up: each open position may be any digit
+    # its column allows (tens of a sexagesimal place: 0-5).
+    options: list[range | tuple[int, ...]] = []
+    n = len(counted)
+    for i, pos in enumerate(counted):
+        weight = 10 ** (n - 1 - i)
+        if pos.kind in open_kinds:
+            options.append(tuple(d * weight for d in range(10)))
+        else:
+            options.append((int(pos.char) * weight,))
+    sums = {0}
+    for opt in options:
+        sums = {a + b for a in sums for b in opt}
+    legal = sorted(v for v in sums if v <= 59)
+    if not legal:
+        raise NumcheckRangeError(
+            f"The place {written!r} is {min(sums)} or more, but a sexagesimal place holds 0 to 59.",
+            value=min(sums), legal="0 to 59", text=text, position=start)
+    editor = None
+    if any(p.kind is Status.RESTORED for p in counted):
+        editor_value = int("".join(p.char if p.char != "x" else "0" for p in counted))
+        if any(p.char == "x" for p in counted):
+            editor_value = None
+        if editor_value is not None and editor_value > 59:
+            raise NumcheckRangeError(
+                f"The editor's restoration {written!r} is {editor_value}, but a sexagesimal place holds 0 to 59.",
+                value=editor_value, legal="0 to 59", text=text, position=start)
+        editor = Fraction(editor_value) if editor_value is not None else None
+    return tuple(Fraction(v) for v in legal), editor
+
+
+def _kind(token_type: str, state: dict) -> Status:
+    if state["superfluous"] is not None:
+        return Status.SUPERFLUOUS
+    if state["lost"] is not None:
+        return Status.LOST if token_type == "UNREAD" else Status.RESTORED
+    if token_type == "UNREAD":
+        return Status.UNREAD
+    if state["added"] is not None:
+        return Status.ADDED
+    return Status.READ
+
+
+def _open(text: str, tok: Token, state: dict, name: str) -> None:
+    if state[name] is not None:
+        raise NumcheckSyntaxError(f"Cannot read {text!r}: a bracket opened inside the same kind of bracket",
+                                  text, tok.start_pos, expected=f"the {name} bracket opened at column "
+                                                                f"{state[name] + 1} to be closed first")
+    state[name] = tok.start_pos
+
+
+def _close(text: str, tok: Token, state: dict, name: str, positions) -> None:
+    if state[name] is None:
+        raise NumcheckSyntaxError(f"Cannot read {text!r}: a closing bracket with no opening bracket",
+                                  text, tok.start_pos, expected="an opening bracket before it")
+    state[name] = None
+
+
+# -- writing back ---------------------------------------------------------
+
+_OPEN = {Status.LOST: "[", Status.RESTORED: "[", Status.ADDED: "<", Status.SUPERFLUOUS: "{"}
+_CLOSE = {"[": "]", "<": ">", "{": "}"}
+
+
+def format(reading: Reading, choice: tuple[Fraction, ...] | None = None) -> str:
+    """Write *reading* back in canonical sexagesimal notation, marks included.
+
+    With *choice* (one value per slot of a gapless reading), write that reading,
+    the chosen digits of lost places inside brackets, as a restoration.
+    """
+    parts: list[tuple[str, list[tuple[str, str | None]]]] = []  # (separator, [(char, bracket)])
+    seen_units = False
+    for i, slot in enumerate(reading.slots):
+        sep = ""
+        if i:
+            sep = ";" if (not seen_units and slot.place < 0 and
+                          any(s.place >= 0 for s in reading.slots[:i] if s.counted)
+                          and slot.counted) else ","
+            if sep == ";":
+                seen_units = True
+        elif slot.place < 0 and not reading.floating:
+            parts.append(("", [("0", None)]))
+            sep = ";"
+            seen_units = True
+        chosen = choice[i] if choice is not None else None
+        parts.append((sep, _slot_chars(slot, chosen)))
+    # Flatten to (char, bracket) with separators in between; a bracket stays
+    # open across a separator when the places on both sides share it.
+    flat: list[tuple[str, str | None, bool]] = []  # (text, bracket, is_separator)
+    for sep, chars in parts:
+        if sep:
+            flat.append((sep, None, True))
+        flat.extend((ch, br, False) for ch, br in chars)
+    out = ["-" if reading.sign < 0 else ""]
+    open_bracket = None
+    for i, (piece, bracket, is_sep) in enumerate(flat):
+        if is_sep:
+            nxt = flat[i + 1][1] if i + 1 < len(flat) else None
+            if open_bracket and nxt != open_bracket:
+                out.append(_CLOSE[open_bracket])
+                open_bracket = None
+            out.append(piece)
+            continue
+        if bracket != open_bracket:
+            if open_bracket:
+                out.append(_CLOSE[open_bracket])
+            if bracket:
+                out.append(bracket)
+            open_bracket = bracket
+        out.append(piece)
+    if open_bracket:
+        out.append(_CLOSE[open_bracket])
+    return "".join(out)
+
+
+def _slot_chars(slot: Slot, chosen: Fraction | None) -> list[tuple[str, str | None]]:
+    if slot.gap is not None:
+        if chosen is not None:
+            return [(c, "[") for c in str(int(chosen))]
+        return [("...", "[")]
+    if not slot.form:
+        return [(c, None) for c in str(int(chosen if chosen is not None else slot.values[0]))]
+    positions: list[_Pos] = list(slot.form)
+    counted = [p for p in positions if p.kind is not Status.SUPERFLUOUS]
+    digits: list[str] | None = None
+    if chosen is not None and counted:
+        if len(counted) == 1 and counted[0].kind in (Status.UNREAD, Status.LOST, Status.RESTORED):
+            text = str(int(chosen))
+            bracket = None if counted[0].kind is Status.UNREAD else "["
+            return [(c, bracket) for c in text]
+        digits = list(str(int(chosen)).rjust(len(counted), "0"))
+    out = []
+    k = 0
+    for p in positions:
+        ch = p.char
+        if p.kind is not Status.SUPERFLUOUS and digits is not None:
+            ch = digits[k]
+            k += 1
+        bracket = _OPEN.get(p.kind)
+        mark = "?" if p.doubtful else ""
+        out.append((ch + mark, bracket))
+    return out
+
+
+def render(reading: Reading, choice: tuple[Fraction, ...]) -> str:
+    """Write one reading of a damaged number, restored digits in brackets."""
+    return format(reading, choice)
