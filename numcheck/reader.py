@@ -11,17 +11,10 @@ import unicodedata
 from .errors import LimitError, NumcheckSyntaxError
 from .limits import MAX_TEXT_LENGTH
 from .notations import NOTATIONS, notation_module
+from .notations.detect import detect_notation
 from .reading import Reading
 
 __all__ = ["read", "detect_notation"]
-
-
-def detect_notation(text: str) -> tuple[str, str]:
-    """Choose a notation from the characters of *text*; say why.
-
-    Returns ``(name, reason)``.
-    """
-    return "sexagesimal", "digits and sexagesimal separators"
 
 
 def read(text: str, notation: str | None = None, unit: str | None = None) -> Reading:
