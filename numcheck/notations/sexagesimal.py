@@ -33,7 +33,7 @@ BAD_EXAMPLES: list[tuple[str, int, str]] = [
     (",1", 1, "a separator with no place before it"),
     (";30", 1, "a separator with no place before it (write 0;30)"),
     ("12a", 3, "a character that is not part of sexagesimal notation"),
-    ("1 , 2 ,", 7, "a separator with no place after it"),
+    ("1 , 2 ,", 8, "a separator with no place after it"),
     ("--1", 2, "a second sign"),
 ]
 
@@ -132,7 +132,11 @@ def _build(text: str, tree: Tree, *, floating: bool, notation: str) -> Reading:
                          "Set numcheck.limits.MAX_PLACES higher to read it.")
 
     state = {"lost": None, "added": None, "superfluous": None}
-    built_whole = [_place(text, toks, state) for toks in whole]
+    # Scholarly usage writes a lone whole place in decimal beyond 59 when a
+    # fractional part follows (365;14,48 days, 359;59 degrees): only then is
+    # the place not capped at 59.
+    lone_whole = len(whole) == 1 and has_semi
+    built_whole = [_place(text, toks, state, capped=not lone_whole) for toks in whole]
     built_frac = [_place(text, toks, state) for toks in fraction]
     for name, opened in state.items():
         if opened is not None:
@@ -168,7 +172,7 @@ def _assign_places(whole: list[Slot], fraction: list[Slot]) -> list[Slot]:
     return list(reversed(placed_whole)) + placed_frac
 
 
-def _place(text: str, tokens: list[Token], state: dict) -> Slot:
+def _place(text: str, tokens: list[Token], state: dict, capped: bool = True) -> Slot:
     start = tokens[0].start_pos
     end = tokens[-1].end_pos
     written = text[start:end]
@@ -219,6 +223,8 @@ def _place(text: str, tokens: list[Token], state: dict) -> Slot:
         value = int("".join(p.char for p in positions).replace("x", "0") or 0)
         return (Slot(values=(Fraction(value),), status=Status.SUPERFLUOUS, text=written,
                            span=(start, end), form=tuple(positions)))
+    if not capped:
+        return _uncapped_place(text, counted, positions, written, start)
     if len(counted) > 2 and int("".join(p.char for p in counted).replace("x", "0")) > 59:
         raise NumcheckRangeError(
             f"The place {written!r} has more digits than a sexagesimal place holds.",
@@ -228,6 +234,28 @@ def _place(text: str, tokens: list[Token], state: dict) -> Slot:
     status = max(kinds, key=_KIND_ORDER.__getitem__)
     return (Slot(values=values, status=status, text=written, span=(start, end),
                        editor=editor, form=tuple(positions)))
+
+
+def _uncapped_place(text, counted: list[_Pos], positions, written: str, start: int) -> Slot:
+    """A lone whole place written in decimal (365 in 365;14,48): any value."""
+    if len(counted) > 6:
+        raise NumcheckRangeError(f"The units place {written!r} has more digits than numcheck reads.",
+                                 value=written, legal="at most six decimal digits", text=text,
+                                 position=start)
+    open_kinds = (Status.UNREAD, Status.LOST, Status.RESTORED)
+    sums = {0}
+    n = len(counted)
+    for i, pos in enumerate(counted):
+        weight = 10 ** (n - 1 - i)
+        opts = range(10) if pos.kind in open_kinds else (int(pos.char),)
+        sums = {a + d * weight for a in sums for d in opts}
+    editor = None
+    if any(p.kind is Status.RESTORED for p in counted) and not any(p.char == "x" for p in counted):
+        editor = Fraction(int("".join(p.char for p in counted)))
+    kinds = [p.kind for p in counted] + [Status.DOUBTFUL for p in counted if p.doubtful]
+    status = max(kinds, key=_KIND_ORDER.__getitem__)
+    return Slot(values=tuple(Fraction(v) for v in sorted(sums)), status=status, text=written,
+                span=(start, start + len(written)), editor=editor, form=tuple(positions))
 
 
 def _place_values(text, counted: list[_Pos], written: str, start: int):
