@@ -11,3 +11,11 @@ MAX_TEXT_LENGTH = 4000
 MAX_PLACES = 60
 #: An unknown number of lost places (``[...]``) stands for 1 to this many places.
 GAP_MAX_PLACES = 3
+#: Largest XML file read by ``annotate`` or as a TEI table (bytes).
+MAX_XML_BYTES = 50_000_000
+#: Deepest element nesting accepted in an XML file.
+MAX_XML_DEPTH = 200
+#: Most ``<num>`` elements annotated in one XML file.
+MAX_XML_NUMS = 200_000
+#: Most files in one batch run (``annotate DIR``, ``audit DIR``).
+MAX_BATCH_FILES = 10_000
