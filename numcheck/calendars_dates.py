@@ -109,7 +109,7 @@ def date_from_parts(calendar: str, year: int, month: int, day: int, *, era: Era 
         jdn = julian_to_jdn(year, month, day)
         return CalendarDate("julian", jdn, None, year, month, day, text)
     if era is None or era.calendar != calendar:
-        raise UnknownNameError(f"era of the {calendar} calendar", era.name if era else "",
+        raise UnknownNameError("era", era.name if era else "",
                                [e.name for e in _eras_of(calendar)])
     convert = egyptian_to_jdn if calendar == "egyptian" else alexandrian_to_jdn
     jdn = convert(era, year, month, day)

@@ -18,9 +18,8 @@ Months are numbered 1-12; the epagomenal days count as month 13.
 
 from __future__ import annotations
 
-from .calendars_julian import jdn_to_julian, julian_to_jdn
+from .calendars_julian import jdn_to_julian, julian_to_jdn, range_error
 from .calendars_names import Era, months
-from .errors import NumcheckRangeError
 
 __all__ = ["EPAGOMENAL", "egyptian_to_jdn", "jdn_to_egyptian", "alexandrian_to_jdn",
            "jdn_to_alexandrian", "alexandrian_thoth1", "egyptian_text"]
@@ -31,21 +30,21 @@ EPAGOMENAL = 13
 
 def _check(era: Era, year: int, month: int, day: int, epagomenal_days: int) -> None:
     if year < 1:
-        raise NumcheckRangeError(
-            f"Year {year} of the era of {era.name} is before the era began.",
+        raise range_error(
+            f"Year {year} of the era of {era.name} is before the era began.", "year",
             value=year, legal=f"years 1 and later (year 1 of {era.name} begins {era.epoch})")
     if not 1 <= month <= EPAGOMENAL:
-        raise NumcheckRangeError(f"Month {month} of an Egyptian year does not exist.", value=month,
+        raise range_error(f"Month {month} of an Egyptian year does not exist.", "month", value=month,
                                  legal="months 1 to 12 (Thoth to Mesore) and the epagomenal days")
     if month == EPAGOMENAL:
         if not 1 <= day <= epagomenal_days:
             leap = " (an Alexandrian leap year)" if epagomenal_days == 6 else ""
-            raise NumcheckRangeError(
-                f"Epagomenal day {day} of {era.name} {year} does not exist{leap}.", value=day,
+            raise range_error(
+                f"Epagomenal day {day} of {era.name} {year} does not exist{leap}.", "day", value=day,
                 legal=f"epagomenal days 1 to {epagomenal_days} in {era.name} {year}")
     elif not 1 <= day <= 30:
         name = months("egyptian")[month - 1].name
-        raise NumcheckRangeError(f"Day {day} of {name} does not exist.", value=day,
+        raise range_error(f"Day {day} of {name} does not exist.", "day", value=day,
                                  legal=f"days 1 to 30 (every Egyptian month has 30 days)")
 
 

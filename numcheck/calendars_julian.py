@@ -18,8 +18,19 @@ from __future__ import annotations
 from .calendars_names import months
 from .errors import NumcheckRangeError
 
-__all__ = ["is_leap", "month_length", "julian_to_jdn", "jdn_to_julian", "year_label",
+__all__ = ["range_error", "is_leap", "month_length", "julian_to_jdn", "jdn_to_julian", "year_label",
            "julian_text", "iso_text", "check_julian"]
+
+
+def range_error(message: str, part: str, **kwargs) -> NumcheckRangeError:
+    """A range error that also says which *part* of a date (year, month, day) is wrong.
+
+    The date parser uses ``part`` to point at the place in the text.
+    """
+    err = NumcheckRangeError(message, **kwargs)
+    err.part = part
+    err.reason = message
+    return err
 
 
 def is_leap(year: int) -> bool:
@@ -50,8 +61,8 @@ def year_label(year: int) -> str:
 def check_julian(year: int, month: int, day: int) -> None:
     """Raise a range error naming the part of a Julian date that cannot be."""
     if not 1 <= month <= 12:
-        raise NumcheckRangeError(f"Month {month} of a Julian date does not exist.",
-                                 value=month, legal="1 to 12 (January to December)")
+        raise range_error(f"Month {month} of a Julian date does not exist.", "month",
+                          value=month, legal="1 to 12 (January to December)")
     last = month_length(year, month)
     if not 1 <= day <= last:
         name = months("julian")[month - 1].name
@@ -59,8 +70,8 @@ def check_julian(year: int, month: int, day: int) -> None:
         if month == 2:
             why = (f" ({year_label(year)} is {'a' if is_leap(year) else 'not a'} Julian leap year;"
                    " leap years are divisible by 4 in astronomical numbering, 1 BC = year 0)")
-        raise NumcheckRangeError(f"Day {day} of {name} {year_label(year)} does not exist{why}.",
-                                 value=day, legal=f"1 to {last} for {name} {year_label(year)}")
+        raise range_error(f"Day {day} of {name} {year_label(year)} does not exist{why}.", "day",
+                          value=day, legal=f"1 to {last} for {name} {year_label(year)}")
 
 
 def julian_to_jdn(year: int, month: int, day: int) -> int:

@@ -97,7 +97,8 @@ def parse_date(text: str, calendar: str = "julian") -> CalendarDate:
     iso = _ISO.fullmatch(text)
     if iso:
         year, month, day = (int(g) for g in iso.groups())
-        return date_from_parts("julian", year, month, day, text=text)
+        return _build(text, "julian", year, month, day, None,
+                      {"year": iso.start(1), "month": iso.start(2), "day": iso.start(3)})
     tokens = _tokens(text)
     if calendar == "jd":
         if len(tokens) == 1 and tokens[0][0] == "num":
@@ -112,8 +113,8 @@ def parse_date(text: str, calendar: str = "julian") -> CalendarDate:
         return _era_date(text, era, tokens[len(lead):])
     if calendar in ("egyptian", "alexandrian"):
         choices = [e.name for e in eras() if e.calendar == calendar]
-        if phrase:
-            raise UnknownNameError(f"era of the {calendar} calendar", phrase, choices)
+        if phrase and not is_month_name("egyptian", phrase):
+            raise UnknownNameError("era", phrase, choices)
         raise NumcheckSyntaxError(f"Cannot read {text!r} as an {calendar.title()} date: it must "
                                   "begin with its era", text, tokens[0][2],
                                   expected=f"one of {', '.join(choices)}, e.g. 'Nabonassar 1 Thoth 1'")
@@ -128,7 +129,7 @@ def _era_date(text: str, era, rest: list) -> CalendarDate:
         where = rest[0][2] if rest else len(text)
         raise NumcheckSyntaxError(f"Cannot read {text!r}: a year of the era of {era.name} must "
                                   "follow the era", text, where, expected=_EXPECT_EGYPTIAN)
-    year = int(rest[0][1])
+    year, year_pos = int(rest[0][1]), rest[0][2]
     rest = rest[1:]
     words = [t for t in rest if t[0] == "word"]
     nums = [t for t in rest if t[0] == "num"]
@@ -145,7 +146,8 @@ def _era_date(text: str, era, rest: list) -> CalendarDate:
         raise NumcheckSyntaxError(f"Cannot read {text!r}: the day stands inside the month's name",
                                   text, nums[0][2], expected=_EXPECT_EGYPTIAN)
     month = month_named("egyptian", " ".join(w[1] for w in words))
-    return date_from_parts(era.calendar, year, month.number, int(nums[0][1]), era=era, text=text)
+    return _build(text, era.calendar, year, month.number, int(nums[0][1]), era,
+                  {"year": year_pos, "month": words[0][2], "day": nums[0][2]})
 
 
 def _julian_date(text: str, tokens: list) -> CalendarDate:
@@ -195,7 +197,22 @@ def _julian_date(text: str, tokens: list) -> CalendarDate:
         if mark[0] == "bc":
             year = 1 - year
     day = int(items[day_index][1])
-    return date_from_parts("julian", year, items[months_found[0]][1], day, text=text)
+    return _build(text, "julian", year, items[months_found[0]][1], day, None,
+                  {"year": items[year_index][2], "month": items[months_found[0]][2],
+                   "day": items[day_index][2]})
+
+
+def _build(text, calendar, year, month, day, era, positions) -> CalendarDate:
+    """Make the date; a part out of range is reported at its place in *text*."""
+    try:
+        return date_from_parts(calendar, year, month, day, era=era, text=text)
+    except NumcheckRangeError as err:
+        part = getattr(err, "part", None)
+        if part not in positions:
+            raise
+        raise NumcheckRangeError(f"In the date {text!r}, the {part} is impossible: {err.reason}",
+                                 value=err.value, legal=err.legal, text=text,
+                                 position=positions[part]) from None
 
 
 def _which_is_year(text, items, nums, month_index, marks):
