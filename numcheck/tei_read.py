@@ -1,0 +1,366 @@
+"""Reading TEI/EpiDoc safely, and turning a ``<num>``'s markup into Leiden text.
+
+numcheck's notations read the Leiden conventions as editors print them
+(``ι[.]``, ``29;31,5[x],8,20``).  An EpiDoc file says the same with markup:
+``<gap reason="lost" quantity="1" unit="character"/>``, ``<supplied
+reason="lost">``, ``<unclear>``, ``<surplus>``.  This module maps that markup
+back to the printed sigla of the notation at hand, so that the one strict
+parser of each notation reads both (EpiDoc Guidelines, "Appendix: Aligning
+EpiDoc with Krummrey-Panciera 1980"; see reference/conventions.md §1.2).
+
+XML is parsed with entities left unresolved, no network access and lxml's
+default size guards; the limits of :mod:`numcheck.limits` bound the rest.
+"""
+
+from __future__ import annotations
+
+import os
+import re
+from dataclasses import dataclass
+from pathlib import Path
+
+from lxml import etree
+
+from . import limits
+from .errors import LimitError, NumcheckError
+
+__all__ = [
+    "TEI_NS",
+    "TeiError",
+    "parse_tei",
+    "num_pieces",
+    "leiden_text",
+    "plain_text",
+    "notation_hint",
+    "table_to_dataframe",
+]
+
+TEI_NS = "http://www.tei-c.org/ns/1.0"
+
+#: Notations whose lost letters are written as dots (``ι[.]``); the others
+#: (digit strings) write a lost digit as ``x`` (``5[x]``).  Roman uses dots
+#: because ``x`` is one of its letters.
+_DOT_NOTATIONS = {"greek", "attic", "roman", "abjad", "abjad-maghribi"}
+#: Notations where an underdot is not a mark of doubt (cuneiform: ṣ, ṭ are
+#: letters; Arabic script: dots are part of the letters) and ``?`` is used.
+_QUERY_NOTATIONS = {"cuneiform", "abjad", "abjad-maghribi"}
+
+#: ``xml:lang`` of the text -> the notation its numbers are most likely in,
+#: used only when a ``<num>`` has no legible letter to detect from.
+_LANG_HINTS = {"grc": "greek", "el": "greek", "la": "roman", "akk": "cuneiform",
+               "sux": "cuneiform", "ar": "abjad", "fa": "abjad"}
+
+#: Elements whose content is not part of the number's text.
+_SKIP = {"certainty", "note", "precision", "respons", "del", "sic", "orig", "abbr",
+         "fw", "figure", "index", "interp", "interpGrp", "link", "bibl"}
+#: In a ``<choice>``, the member read (first found wins).
+_CHOICE_ORDER = ("corr", "reg", "expan", "sic", "orig", "abbr")
+
+
+class TeiError(NumcheckError):
+    """A TEI file numcheck cannot use: malformed, not TEI, or a bad ``<num>``.
+
+    The message names the file and the line.
+    """
+
+    def __init__(self, path, line: int | None, message: str):
+        self.path = str(path)
+        self.line = line
+        where = f"{self.path}, line {line}" if line else self.path
+        super().__init__(f"{where}: {message}")
+
+
+def _parser() -> etree.XMLParser:
+    # No entity expansion (no "billion laughs"), no network, lxml's guards on
+    # huge text nodes and deep trees kept on; comments, PIs and whitespace kept.
+    return etree.XMLParser(resolve_entities=False, no_network=True, huge_tree=False,
+                           load_dtd=False, dtd_validation=False, remove_blank_text=False,
+                           remove_comments=False, remove_pis=False, strip_cdata=False)
+
+
+def read_bytes(path: str | os.PathLike) -> bytes:
+    """The bytes of *path*, after checking the size limit (the file is only read)."""
+    p = Path(path)
+    if not p.is_file():
+        raise TeiError(p, None, "no such file" if not p.exists() else "not a file")
+    size = p.stat().st_size
+    if size > limits.MAX_XML_BYTES:
+        raise LimitError(f"size of {str(p)!r}", f"{size} bytes", f"{limits.MAX_XML_BYTES} bytes",
+                         "Set numcheck.limits.MAX_XML_BYTES higher to read it.")
+    with open(p, "rb") as handle:
+        return handle.read()
+
+
+def parse_tei(path: str | os.PathLike, data: bytes | None = None) -> etree._Element:
+    """Parse a TEI file safely and return its root element.
+
+    Raises :class:`TeiError` (file and line) for malformed XML or a root that
+    is not in the TEI namespace, :class:`LimitError` for a file too large or
+    too deep.
+    """
+    if data is None:
+        data = read_bytes(path)
+    try:
+        root = etree.fromstring(data, _parser())
+    except etree.XMLSyntaxError as err:
+        line = err.lineno if err.lineno else None
+        msg = err.msg or str(err)
+        msg = re.sub(r", line \d+, column \d+$", "", msg)
+        col = f" (column {err.position[1]})" if getattr(err, "position", None) else ""
+        raise TeiError(path, line, f"malformed XML{col}: {msg}. Fix the markup and run again.") from None
+    if root is None:
+        raise TeiError(path, None, "the file holds no XML element")
+    qname = etree.QName(root)
+    if qname.namespace != TEI_NS:
+        found = f"{{{qname.namespace}}}{qname.localname}" if qname.namespace else qname.localname
+        hint = (" (TEI P4 or a file without the TEI namespace: add "
+                f"xmlns=\"{TEI_NS}\" to the root)" if not qname.namespace else "")
+        raise TeiError(path, root.sourceline,
+                       f"not a TEI file: the root element is <{found}>, expected an element in "
+                       f"the TEI namespace {TEI_NS}{hint}")
+    _check_depth(path, root)
+    return root
+
+
+def _check_depth(path, root) -> None:
+    stack = [(root, 1)]
+    while stack:
+        el, depth = stack.pop()
+        if depth > limits.MAX_XML_DEPTH:
+            raise LimitError(f"element nesting of {str(path)!r} (at line {el.sourceline})",
+                             depth, limits.MAX_XML_DEPTH,
+                             "Set numcheck.limits.MAX_XML_DEPTH higher to read it.")
+        stack.extend((c, depth + 1) for c in el if isinstance(c.tag, str))
+
+
+def local_name(el) -> str | None:
+    """The local name of an element (``None`` for comments, PIs, entities)."""
+    return etree.QName(el).localname if isinstance(el.tag, str) else None
+
+
+@dataclass(frozen=True)
+class Piece:
+    """A run of a ``<num>``'s content and what the markup says about it.
+
+    ``kind``: ``text`` (read), ``supplied`` (lost, restored by the editor),
+    ``omitted`` (added by the editor), ``unclear`` (doubtful), ``surplus``
+    (superfluous), ``lost`` (``count`` letters lost, ``None`` = unknown) or
+    ``illegible`` (``count`` letters present but not read).
+    """
+
+    kind: str
+    text: str = ""
+    count: int | None = None
+
+
+def _int_attr(el, name: str) -> int | None:
+    raw = el.get(name)
+    if raw is None:
+        return None
+    try:
+        n = int(raw.strip())
+    except ValueError:
+        return None
+    return n if n >= 0 else None
+
+
+def _gap_piece(el) -> Piece:
+    reason = (el.get("reason") or "lost").strip()
+    unit = (el.get("unit") or "character").strip()
+    count = _int_attr(el, "quantity")
+    if unit not in ("character", "characters", "char", "chars", "digit", "letter", "sign"):
+        count = None
+    if el.get("precision") == "low" or el.get("extent") == "unknown":
+        count = None
+    if count is None and _int_attr(el, "atLeast") is not None and \
+            _int_attr(el, "atLeast") == _int_attr(el, "atMost"):
+        count = _int_attr(el, "atLeast")
+    if count == 0:
+        count = None
+    return Piece("illegible" if reason == "illegible" else "lost", count=count)
+
+
+def num_pieces(el) -> list[Piece]:
+    """The content of a ``<num>`` (or a table cell) as a list of :class:`Piece`."""
+    out: list[Piece] = []
+    _walk(el, "text", out, top=True)
+    return out
+
+
+def _walk(el, mode: str, out: list[Piece], top: bool = False) -> None:
+    if el.text:
+        out.append(Piece(mode, el.text))
+    for child in el:
+        name = local_name(child)
+        if name is None:
+            pass  # a comment or PI inside the number: not part of it
+        elif name == "gap":
+            out.append(_gap_piece(child))
+        elif name == "space":
+            pass  # a deliberate blank, not a letter
+        elif name == "lb":
+            if child.get("break") != "no":
+                out.append(Piece(mode, " "))
+        elif name in _SKIP:
+            pass
+        elif name == "choice":
+            members = {local_name(c): c for c in child if local_name(c)}
+            for pick in _CHOICE_ORDER:
+                if pick in members:
+                    _walk(members[pick], mode, out)
+                    break
+        elif name == "supplied":
+            reason = (child.get("reason") or "lost").strip()
+            inner = "omitted" if reason == "omitted" else "supplied"
+            _walk(child, mode if mode != "text" else inner, out)
+        elif name == "unclear":
+            _walk(child, mode if mode != "text" else "unclear", out)
+        elif name == "surplus":
+            _walk(child, mode if mode != "text" else "surplus", out)
+        else:  # hi, g, add, seg, num, expan, ex, c, w, reg, corr ...: their letters count
+            _walk(child, mode, out)
+        if child.tail:
+            out.append(Piece(mode, child.tail))
+
+
+def plain_text(pieces: list[Piece]) -> str:
+    """The letters the markup gives, without damage marks (for detecting the notation)."""
+    text = "".join(p.text for p in pieces if p.kind not in ("lost", "illegible"))
+    return " ".join(text.split())
+
+
+def _lost_mark(notation: str, count: int | None) -> str:
+    if count is None:
+        return "[...]"
+    letter = "." if notation in _DOT_NOTATIONS else "x"
+    if letter == "." and count == 3:
+        # "[...]" is the sign for an unknown number of lost letters; three
+        # counted letters are written one bracket each.
+        return "[.][.][.]"
+    return "[" + letter * count + "]"
+
+
+def _unread_mark(notation: str, count: int | None) -> str:
+    if notation in _DOT_NOTATIONS:
+        # Papyrological dots for illegible letters (one underdotted space each).
+        return "[...]" if count is None else " \u0323" * count
+    return "x" * (count or 1)
+
+
+def _wrap_words(text: str, left: str, right: str) -> str:
+    return re.sub(r"\S+", lambda m: f"{left}{m.group(0)}{right}", text)
+
+
+def leiden_text(pieces: list[Piece], notation: str) -> str:
+    """The Leiden text of *pieces* in the conventions of *notation*.
+
+    >>> leiden_text([Piece("text", "ι"), Piece("lost", count=1)], "greek")
+    'ι[.]'
+    >>> leiden_text([Piece("text", "29;31,5"), Piece("lost", count=1), Piece("text", ",8,20")], "sexagesimal")
+    '29;31,5[x],8,20'
+    """
+    doubt_mark = "?" if notation in _QUERY_NOTATIONS else "\u0323"
+    parts: list[str] = []
+    for p in pieces:
+        if p.kind == "text":
+            parts.append(p.text)
+        elif p.kind == "supplied":
+            parts.append(_wrap_words(p.text, "[", "]"))
+        elif p.kind == "omitted":
+            parts.append(_wrap_words(p.text, "<", ">"))
+        elif p.kind == "surplus":
+            parts.append(_wrap_words(p.text, "{", "}"))
+        elif p.kind == "unclear":
+            parts.append("".join(c + doubt_mark if not c.isspace() else c for c in p.text))
+        elif p.kind == "lost":
+            parts.append(_lost_mark(notation, p.count))
+        elif p.kind == "illegible":
+            parts.append(_unread_mark(notation, p.count))
+    text = " ".join("".join(parts).split())
+    if notation not in _DOT_NOTATIONS:
+        # Adjacent lost runs are one lacuna: "[x][5]" -> "[x5]".  Counted dots
+        # stay apart, lest three of them read as the unknown-extent "[...]".
+        text = text.replace("][", "")
+    return text
+
+
+def notation_hint(el) -> str | None:
+    """The notation the ``xml:lang`` in force at *el* suggests, if any."""
+    lang = el.xpath("ancestor-or-self::*[@xml:lang][1]/@xml:lang")
+    if not lang:
+        return None
+    base = str(lang[0]).split("-")[0].lower()
+    return _LANG_HINTS.get(base)
+
+
+def tei_elements(root, name: str):
+    """Every element *name* in the TEI namespace under *root*, in document order."""
+    return root.iter(f"{{{TEI_NS}}}{name}")
+
+
+def table_to_dataframe(path: str | os.PathLike, *, table: int | str = 0,
+                       notation: str | None = None):
+    """A TEI ``<table>`` as a pandas DataFrame of cell texts, ready for ``audit``.
+
+    Rows are ``<row>``, cells ``<cell>``.  The first row whose ``@role`` is
+    ``label`` (or whose cells all are) gives the column names; otherwise the
+    columns are named ``1``, ``2`` ...  Damage markup in a cell becomes Leiden
+    text in the cells' notation (given, or detected from the letters), so that
+    the audit reads it as it reads a TSV.  *table* picks the table by position
+    (0 = first) or by ``xml:id``.  ``df.attrs`` holds the source path, the
+    table's line and each data row's line.
+    """
+    import pandas as pd
+
+    from .notations.detect import detect_notation
+
+    root = parse_tei(path)
+    tables = list(tei_elements(root, "table"))
+    if isinstance(table, str):
+        chosen = [t for t in tables if t.get("{http://www.w3.org/XML/1998/namespace}id") == table]
+        if not chosen:
+            ids = [t.get("{http://www.w3.org/XML/1998/namespace}id") or "(no id)" for t in tables]
+            raise TeiError(path, None, f"no <table> with xml:id {table!r}; the tables here: {', '.join(ids) or 'none'}")
+        el = chosen[0]
+    else:
+        if not tables:
+            raise TeiError(path, None, "no TEI <table> in this file (a table to audit needs <table>, <row>, <cell>)")
+        if not 0 <= table < len(tables):
+            raise TeiError(path, None, f"asked for table {table + 1}, but the file has {len(tables)}")
+        el = tables[table]
+    header: list[str] | None = None
+    rows: list[list[str]] = []
+    lines: list[int] = []
+    for row in el.iter(f"{{{TEI_NS}}}row"):
+        cells = [c for c in row if local_name(c) == "cell"]
+        if not cells:
+            continue
+        is_label = row.get("role") == "label" or all(c.get("role") == "label" for c in cells)
+        if header is None and not rows and is_label:
+            header = [plain_text(num_pieces(c)) or str(i + 1) for i, c in enumerate(cells)]
+            continue
+        texts = []
+        for c in cells:
+            pieces = num_pieces(c)
+            plain = plain_text(pieces)
+            cell_notation = notation or (detect_notation(plain)[0] if plain else notation_hint(c)) or "sexagesimal"
+            texts.append(leiden_text(pieces, cell_notation))
+        rows.append(texts)
+        lines.append(row.sourceline)
+    if not rows:
+        raise TeiError(path, el.sourceline, "the <table> has no data rows")
+    width = max(len(r) for r in rows)
+    if header is None:
+        header = [str(i + 1) for i in range(width)]
+    header = header + [str(i + 1) for i in range(len(header), width)]
+    # Column names must be distinct for the audit to name them.
+    seen: dict[str, int] = {}
+    names = []
+    for h in header[:width]:
+        seen[h] = seen.get(h, 0) + 1
+        names.append(h if seen[h] == 1 else f"{h} ({seen[h]})")
+    frame = pd.DataFrame([r + [""] * (width - len(r)) for r in rows], columns=names, dtype=str)
+    frame.attrs["source"] = str(path)
+    frame.attrs["table_line"] = el.sourceline
+    frame.attrs["row_lines"] = lines
+    return frame

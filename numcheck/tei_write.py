@@ -1,0 +1,249 @@
+"""Writing annotations back into an XML file without touching the rest of it.
+
+A digital editor's file is more than its tree: the XML declaration, the
+quoting of attributes, character references, comments, processing
+instructions and line breaks are all the editor's.  A parse-and-serialise
+round trip would rewrite them, so numcheck edits the *source text* instead:
+it finds each element's start and end tags in the text (in document order,
+the same order as lxml's tree) and splices in only the attributes and
+elements it adds.  Everything else stays byte for byte.  When the text and
+the tree cannot be matched (an unusual encoding, entities that expand to
+elements), it falls back to lxml's serialisation and says so.
+"""
+
+from __future__ import annotations
+
+import codecs
+import re
+from dataclasses import dataclass, field
+
+from lxml import etree
+
+__all__ = ["ElementSpan", "Edit", "scan_elements", "decode_source", "apply_edits",
+           "apply_edits_tree"]
+
+_NAME = re.compile(r"[^\s/>=]+")
+_ATTR = re.compile(r"""(\s+)([^\s=/>]+)(\s*=\s*)(["'])(.*?)\4""", re.S)
+
+
+@dataclass
+class ElementSpan:
+    """Where one element sits in the source text (character offsets)."""
+
+    name: str                 # the qualified name as written (``tei:num``)
+    start: int                # offset of "<"
+    start_end: int            # offset just after the start tag's ">"
+    empty: bool               # written as <x/>
+    end_start: int = -1       # offset of "</" (the start for an empty element)
+    end: int = -1             # offset just after the end tag
+
+    def __post_init__(self):
+        if self.empty:
+            self.end_start = self.start
+            self.end = self.start_end
+
+
+@dataclass
+class Edit:
+    """What to change in one element: attributes to set or drop, children to add or drop."""
+
+    set_attrs: dict[str, str] = field(default_factory=dict)     # in order of writing
+    drop_attrs: list[str] = field(default_factory=list)
+    drop_children: list[int] = field(default_factory=list)      # element indexes (document order)
+    add_children: list[tuple[str, dict[str, str]]] = field(default_factory=list)  # (local name, attrs)
+
+
+def decode_source(data: bytes, declared: str | None) -> tuple[str, str] | None:
+    """Decode *data* to text that re-encodes to the very same bytes.
+
+    Returns ``(text, codec)`` or ``None`` when no lossless codec is found.
+    """
+    if data.startswith(codecs.BOM_UTF8):
+        candidates = ["utf-8"]
+    elif data.startswith(codecs.BOM_UTF16_LE):
+        candidates = ["utf-16-le"]
+    elif data.startswith(codecs.BOM_UTF16_BE):
+        candidates = ["utf-16-be"]
+    else:
+        candidates = [declared or "utf-8", "utf-8"]
+    for enc in candidates:
+        try:
+            text = data.decode(enc)
+            if text.encode(enc) == data:
+                return text, enc
+        except (LookupError, UnicodeError):
+            continue
+    return None
+
+
+def _skip_to(text: str, i: int, token: str) -> int:
+    k = text.find(token, i)
+    if k < 0:
+        raise ValueError(f"unterminated markup at offset {i}")
+    return k + len(token)
+
+
+def _tag_end(text: str, i: int) -> int:
+    """Offset just after the ">" that closes the tag starting at *i* (quotes respected)."""
+    quote = None
+    n = len(text)
+    while i < n:
+        c = text[i]
+        if quote:
+            if c == quote:
+                quote = None
+        elif c in "\"'":
+            quote = c
+        elif c == ">":
+            return i + 1
+        i += 1
+    raise ValueError("unterminated tag")
+
+
+def _doctype_end(text: str, i: int) -> int:
+    quote = None
+    depth = 0
+    n = len(text)
+    while i < n:
+        if quote:
+            if text[i] == quote:
+                quote = None
+        elif text.startswith("<!--", i):
+            i = _skip_to(text, i + 4, "-->")
+            continue
+        elif text[i] in "\"'":
+            quote = text[i]
+        elif text[i] == "[":
+            depth += 1
+        elif text[i] == "]":
+            depth -= 1
+        elif text[i] == ">" and depth <= 0:
+            return i + 1
+        i += 1
+    raise ValueError("unterminated DOCTYPE")
+
+
+def scan_elements(text: str) -> list[ElementSpan]:
+    """Every element of an XML text, in the order of its start tags.
+
+    A small scanner for well-formed XML (lxml has already checked that): it
+    skips comments, CDATA, PIs and the DOCTYPE and pairs start and end tags.
+    """
+    out: list[ElementSpan] = []
+    stack: list[ElementSpan] = []
+    i = 0
+    while True:
+        j = text.find("<", i)
+        if j < 0:
+            break
+        if text.startswith("<!--", j):
+            i = _skip_to(text, j + 4, "-->")
+        elif text.startswith("<![CDATA[", j):
+            i = _skip_to(text, j + 9, "]]>")
+        elif text.startswith("<?", j):
+            i = _skip_to(text, j + 2, "?>")
+        elif text.startswith("<!", j):
+            i = _doctype_end(text, j + 2)
+        elif text.startswith("</", j):
+            k = _tag_end(text, j)
+            span = stack.pop()
+            span.end_start, span.end = j, k
+            i = k
+        else:
+            m = _NAME.match(text, j + 1)
+            k = _tag_end(text, j)
+            empty = text[k - 2] == "/"
+            span = ElementSpan(m.group(0) if m else "", j, k, empty)
+            out.append(span)
+            if not empty:
+                stack.append(span)
+            i = k
+    if stack:
+        raise ValueError("unclosed element")
+    return out
+
+
+def _attr_text(name: str, value: str, quote: str = '"') -> str:
+    escaped = value.replace("&", "&amp;").replace("<", "&lt;").replace(quote, "&quot;" if quote == '"' else "&apos;")
+    return f"{name}={quote}{escaped}{quote}"
+
+
+def _edit_start_tag(tag: str, edit: Edit) -> str:
+    """The start tag *tag* with the attributes of *edit* set and dropped."""
+    for name in edit.drop_attrs:
+        tag = re.sub(r"\s+" + re.escape(name) + r"""\s*=\s*(["']).*?\1""", "", tag, count=1, flags=re.S)
+    for name, value in edit.set_attrs.items():
+        found = None
+        for m in _ATTR.finditer(tag):
+            if m.group(2) == name:
+                found = m
+                break
+        if found:
+            quote = found.group(4)
+            tag = tag[:found.start(2)] + _attr_text(name, value, quote) + tag[found.end():]
+        else:
+            close = len(tag) - (2 if tag.endswith("/>") else 1)
+            body = tag[:close]
+            stripped = body.rstrip()
+            tag = stripped + " " + _attr_text(name, value) + body[len(stripped):] + tag[close:]
+    return tag
+
+
+def _child_xml(prefix: str | None, name: str, attrs: dict[str, str]) -> str:
+    qname = f"{prefix}:{name}" if prefix else name
+    return "<" + " ".join([qname] + [_attr_text(k, v) for k, v in attrs.items()]) + "/>"
+
+
+def apply_edits(text: str, spans: list[ElementSpan], edits: dict[int, Edit],
+                prefixes: dict[int, str | None]) -> str:
+    """Splice *edits* (element index -> Edit) into the source *text*."""
+    changes: list[tuple[int, int, str]] = []  # (start, end, replacement)
+    for index, edit in edits.items():
+        span = spans[index]
+        tag = text[span.start:span.start_end]
+        new_tag = _edit_start_tag(tag, edit)
+        for child in edit.drop_children:
+            c = spans[child]
+            changes.append((c.start, c.end, ""))
+        added = "".join(_child_xml(prefixes.get(index), n, a) for n, a in edit.add_children)
+        if added and span.empty:
+            qname = span.name
+            body = new_tag[:-2].rstrip()
+            changes.append((span.start, span.start_end, f"{body}>{added}</{qname}>"))
+        else:
+            if new_tag != tag:
+                changes.append((span.start, span.start_end, new_tag))
+            if added:
+                changes.append((span.end_start, span.end_start, added))
+    # Apply from the end so earlier offsets stay valid; a zero-width insert at
+    # the end tag goes after any removal that ends there.
+    changes.sort(key=lambda c: (c[0], c[1]), reverse=True)
+    out = text
+    for start, end, repl in changes:
+        out = out[:start] + repl + out[end:]
+    return out
+
+
+def apply_edits_tree(root, elements: list, edits: dict[int, Edit]) -> None:
+    """The same edits applied to an lxml tree (the fallback path)."""
+    for index, edit in edits.items():
+        el = elements[index]
+        for name in edit.drop_attrs:
+            el.attrib.pop(name, None)
+        for name, value in edit.set_attrs.items():
+            el.set(name, value)
+        for child in edit.drop_children:
+            c = elements[child]
+            parent = c.getparent()
+            if c.tail:
+                prev = c.getprevious()
+                if prev is not None:
+                    prev.tail = (prev.tail or "") + c.tail
+                else:
+                    parent.text = (parent.text or "") + c.tail
+            parent.remove(c)
+        ns = etree.QName(el).namespace
+        for name, attrs in edit.add_children:
+            child = etree.SubElement(el, f"{{{ns}}}{name}" if ns else name)
+            for k, v in attrs.items():
+                child.set(k, v)
