@@ -23,3 +23,6 @@ MAX_BATCH_FILES = 10_000
 MAX_TABLE_CELLS = 2_000_000
 #: Most readings of one damaged table cell enumerated when restoring it from its scheme.
 AUDIT_MAX_CELL_READINGS = 100_000
+#: Most lost letters tried at once when a lost letter changes its neighbours
+#: (Roman numerals, abjad groups): every letter is tried at every lost place.
+MAX_LOST_LETTERS = 6
