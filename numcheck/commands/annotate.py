@@ -1,0 +1,125 @@
+"""``numcheck annotate IN.xml -o OUT.xml``: exact values into a TEI/EpiDoc file (or a folder of them)."""
+
+from __future__ import annotations
+
+from pathlib import Path
+
+NAME = "annotate"
+HELP = ("give every <num> of a TEI/EpiDoc file (or of every .xml file in a folder) its exact "
+        "@value, or @atLeast/@atMost where damage leaves a range; report values the letters contradict")
+ORDER = 70
+
+
+def add_arguments(parser) -> None:
+    parser.add_argument("input", metavar="IN", help="a TEI/EpiDoc .xml file, or a folder of them")
+    parser.add_argument("-o", "--output", metavar="OUT",
+                        help="the annotated copy (a file; a folder when IN is a folder). "
+                             "Without it nothing is written: the numbers are only checked")
+    parser.add_argument("--alternatives", "-k", type=int, default=0, metavar="K",
+                        help="add the K best restorations of each damaged number as "
+                             "<certainty locus=\"value\" assertedValue=.. degree=..> (EpiDoc)")
+    parser.add_argument("--fix", action="store_true",
+                        help="replace an existing @value that the letters contradict (default: report it)")
+    parser.add_argument("--notation", "-n", help="the notation of the numbers (detected when left out)")
+    parser.add_argument("--workers", type=int, default=None,
+                        help="processes for a folder of many files (default 2)")
+
+
+def run(args, console) -> dict:
+    from ..errors import NumcheckError
+
+    src = Path(args.input)
+    if src.is_dir():
+        if not args.output:
+            raise NumcheckError(f"{str(src)!r} is a folder: give an output folder with -o OUTDIR "
+                                "(the inputs are never written over).")
+        return _run_folder(args, console)
+    from ..tei import annotate
+
+    result = annotate(src, args.output, alternatives=args.alternatives, fix=args.fix,
+                      notation=args.notation)
+    out = result.to_dict()
+    if console is not None:
+        _show_file(out, console)
+    return out
+
+
+def _run_folder(args, console) -> dict:
+    from ..batch import annotate_folder
+
+    if console is None:
+        result = annotate_folder(args.input, args.output, alternatives=args.alternatives,
+                                 fix=args.fix, notation=args.notation, workers=args.workers)
+    else:
+        from rich.progress import BarColumn, MofNCompleteColumn, Progress, TextColumn
+
+        with Progress(TextColumn("annotating"), BarColumn(), MofNCompleteColumn(),
+                      TextColumn("{task.description}"), console=console, transient=True) as bar:
+            task = bar.add_task("", total=None)
+
+            def progress(done, total, name):
+                bar.update(task, completed=done, total=total, description=name)
+
+            result = annotate_folder(args.input, args.output, alternatives=args.alternatives,
+                                     fix=args.fix, notation=args.notation, workers=args.workers,
+                                     progress=progress)
+    out = result.to_dict()
+    if console is not None:
+        show_batch(out, console, "annotate")
+    return out
+
+
+def _show_file(out: dict, console) -> None:
+    from rich.markup import escape
+    from rich.table import Table
+
+    table = Table(title=f"numcheck annotate  {escape(out['input'])}", header_style="bold")
+    for col in ("line", "as read", "notation", "value", "status"):
+        table.add_column(col)
+    style = {"contradiction": "red", "fixed": "yellow", "range-added": "cyan"}
+    for n in out["nums"]:
+        value = n.get("value") or f"{n.get('atLeast')} to {n.get('atMost')}"
+        status = n["status"]
+        table.add_row(str(n["line"] or ""), escape(n["text"]), n["notation"], value,
+                      f"[{style[status]}]{status}[/]" if status in style else status)
+    console.print(table)
+    for n in out["nums"]:
+        if n.get("message"):
+            console.print(f"[red]line {n['line']}:[/red] {escape(n['message'])}")
+        if n.get("alternatives"):
+            alts = ", ".join(f"{escape(a['text'])} = {a['value']} ({a['probability']:.0%})"
+                             for a in n["alternatives"])
+            console.print(f"line {n['line']}: restorations (suggestions, not readings): {alts}")
+    for note in out["notes"]:
+        console.print(f"[yellow]note:[/yellow] {escape(note)}")
+    where = f"written to {escape(out['output'])}" if out["output"] else "nothing written (no -o given)"
+    console.print(f"{out['numbers']} numbers, {out['damaged']} damaged, {out['flagged']} contradicted "
+                  f"by their letters, {out['restored']} with restorations; {where}.")
+
+
+def show_batch(out: dict, console, kind: str) -> None:
+    """The summary table of a batch run (also used by ``audit DIR``)."""
+    from rich.markup import escape
+    from rich.table import Table
+
+    table = Table(title=f"numcheck {kind}  {escape(out['folder'])}", header_style="bold")
+    for col in ("file", "numbers", "damaged", "flagged", "restored", "note"):
+        table.add_column(col)
+    for f in out["files"]:
+        if "error" in f:
+            table.add_row(escape(f["file"]), "", "", "", "", "[red]not read (see below)[/red]")
+        else:
+            table.add_row(escape(f["file"]), str(f.get("numbers", 0)), str(f.get("damaged", 0)),
+                          str(f.get("flagged", 0)), str(f.get("restored", 0)), "")
+    s = out["summary"]
+    table.add_section()
+    table.add_row(f"{s['files']} files ({s['failed']} failed)", str(s["numbers"]), str(s["damaged"]),
+                  str(s["flagged"]), str(s["restored"]), "", style="bold")
+    console.print(table)
+    for f in out["files"]:
+        if "error" in f:
+            console.print(f"[red]{escape(f['file'])}:[/red] {escape(f['error'])}")
+    if out.get("out"):
+        console.print(f"output: {escape(out['out'])}")
+    if out.get("index"):
+        console.print(f"index of reports: {escape(out['index'])}")
