@@ -26,3 +26,11 @@ AUDIT_MAX_CELL_READINGS = 100_000
 #: Most lost letters tried at once when a lost letter changes its neighbours
 #: (Roman numerals, abjad groups): every letter is tried at every lost place.
 MAX_LOST_LETTERS = 6
+#: Most readings a restoration scores one by one (those that agree with some evidence).
+RESTORE_MAX_MATCHES = 200_000
+#: Most steps of a restoration's search (branch and bound, and the walk by prior).
+RESTORE_MAX_NODES = 2_000_000
+#: A restoration space larger than this, with no evidence that narrows it, is said to be wide.
+RESTORE_WIDE_SPACE = 10_000
+#: A floating (cuneiform) number is tried with its first place from 60^lo to 60^hi.
+RESTORE_FLOAT_FIRST_PLACE = (-2, 3)
