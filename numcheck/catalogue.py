@@ -1,0 +1,199 @@
+"""The catalogue of periods, parameters and period relations, with sources.
+
+Two package files make the catalogue: ``data/periods.csv`` (written by hand
+from published sources, one row per period, parameter or relation, each with
+its source and an honest confidence) and ``data/periods_modern.csv`` (mean
+periods at J2000.0 generated from the IERS 2003 fundamental arguments by
+``data/make_modern_periods.py``).  Every row states what it asserts in the
+``statement`` column, which :mod:`numcheck.statements` reads into sides, so
+that identify can match every side of a relation.
+
+The loader gives a pandas DataFrame (:func:`frame`) and typed lookups
+(:func:`entries`, :func:`by_id`, :func:`period`, :func:`bodies`).
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+from fractions import Fraction
+from functools import lru_cache
+from importlib import resources
+
+from .errors import NumcheckError, UnknownNameError
+from .statements import Side, parse_number, parse_statement
+
+__all__ = [
+    "Entry",
+    "COLUMNS",
+    "KINDS",
+    "CONFIDENCES",
+    "CYCLES",
+    "frame",
+    "entries",
+    "by_id",
+    "period",
+    "periods",
+    "bodies",
+    "traditions",
+    "parse_value",
+]
+
+#: The columns of the catalogue files, in order.
+COLUMNS = ("id", "body", "kind", "tradition", "cycle", "statement", "value_as_attested",
+           "value", "unit", "source", "confidence")
+KINDS = ("period", "parameter", "relation")
+CONFIDENCES = ("published", "from memory", "common practice")
+#: Cycles a period row may be an estimate of (``cycle`` column).
+CYCLES = ("synodic", "sidereal", "tropical", "anomalistic", "draconitic", "eclipse", "node",
+          "apogee", "precession")
+
+_FILES = ("periods.csv", "periods_modern.csv")
+
+
+@dataclass(frozen=True)
+class Entry:
+    """One catalogue row, with its exact value and its statement read into sides."""
+
+    id: str
+    body: str
+    kind: str
+    tradition: str
+    cycle: str | None
+    statement: str
+    value_as_attested: str
+    value: Fraction
+    unit: str
+    source: str
+    confidence: str
+    sides: tuple[Side, ...]
+
+    def to_dict(self) -> dict:
+        """The row for JSON (exact value as a string)."""
+        from .reading import exact_text
+
+        return {
+            "id": self.id, "body": self.body, "kind": self.kind, "tradition": self.tradition,
+            "cycle": self.cycle, "statement": self.statement, "value_as_attested": self.value_as_attested,
+            "value": exact_text(self.value), "unit": self.unit, "source": self.source,
+            "confidence": self.confidence,
+        }
+
+
+def parse_value(text: str) -> Fraction:
+    """Read the exact ``value`` column: ``6585;20``, ``19756/3``, ``29.530588855`` or ``223``.
+
+    >>> parse_value("29;31,50,8,20") == parse_value("765433/25920")
+    True
+    """
+    text = str(text).strip()
+    if "/" in text and " " not in text:
+        return Fraction(text)
+    if "." in text:
+        return Fraction(text)
+    return parse_number(text)
+
+
+@lru_cache(maxsize=1)
+def frame():
+    """The whole catalogue as a pandas DataFrame (strings as in the files; cached).
+
+    A column ``exact`` holds the value as a :class:`~fractions.Fraction`.
+    Callers must not modify the cached frame: take a ``.copy()`` to change it.
+    """
+    import pandas as pd
+
+    parts = []
+    for name in _FILES:
+        with resources.files("numcheck.data").joinpath(name).open("r", encoding="utf-8") as fh:
+            parts.append(pd.read_csv(fh, comment="#", dtype=str, keep_default_na=False))
+    df = pd.concat(parts, ignore_index=True)
+    missing = [c for c in COLUMNS if c not in df.columns]
+    if missing:
+        raise NumcheckError(f"The catalogue files lack the columns {missing}.")
+    df = df[list(COLUMNS)]
+    df["exact"] = [parse_value(v) for v in df["value"]]
+    return df
+
+
+@lru_cache(maxsize=1)
+def _entries() -> tuple[Entry, ...]:
+    out = []
+    for row in frame().itertuples(index=False):
+        out.append(Entry(
+            id=row.id, body=row.body, kind=row.kind, tradition=row.tradition,
+            cycle=row.cycle or None, statement=row.statement, value_as_attested=row.value_as_attested,
+            value=row.exact, unit=row.unit, source=row.source, confidence=row.confidence,
+            sides=parse_statement(row.statement),
+        ))
+    return tuple(out)
+
+
+def entries(*, body: str | None = None, kind: str | None = None,
+            tradition: str | None = None) -> tuple[Entry, ...]:
+    """Every catalogue entry, optionally only one body, kind or tradition."""
+    if body is not None:
+        _check("body", body, bodies())
+    if kind is not None:
+        _check("kind", kind, KINDS)
+    if tradition is not None:
+        _check("tradition", tradition, traditions())
+    return tuple(e for e in _entries()
+                 if (body is None or e.body == body) and (kind is None or e.kind == kind)
+                 and (tradition is None or e.tradition == tradition))
+
+
+@lru_cache(maxsize=1)
+def _by_id() -> dict[str, Entry]:
+    return {e.id: e for e in _entries()}
+
+
+def by_id(entry_id: str) -> Entry:
+    """The entry with this id."""
+    table = _by_id()
+    if entry_id not in table:
+        raise UnknownNameError("catalogue id", entry_id, table)
+    return table[entry_id]
+
+
+def bodies() -> tuple[str, ...]:
+    """The bodies in the catalogue (moon, sun, the five planets, calendar, stars)."""
+    return tuple(sorted({e.body for e in _entries()}))
+
+
+def traditions() -> tuple[str, ...]:
+    """The traditions in the catalogue (babylonian, greek, indian, islamic, modern ...)."""
+    return tuple(sorted({e.tradition for e in _entries()}))
+
+
+def _check(kind: str, name: str, known) -> None:
+    if name not in known:
+        raise UnknownNameError(kind, name, known)
+
+
+def periods(body: str, cycle: str, tradition: str | None = None) -> tuple[Entry, ...]:
+    """Every period row of *body* estimating *cycle* (in days), standard one first."""
+    _check("body", body, bodies())
+    _check("cycle", cycle, CYCLES)
+    if tradition is not None:
+        _check("tradition", tradition, traditions())
+    return tuple(e for e in _entries()
+                 if e.kind == "period" and e.body == body and e.cycle == cycle and e.unit == "days"
+                 and (tradition is None or e.tradition == tradition))
+
+
+def period(body: str, cycle: str, tradition: str = "modern") -> Fraction:
+    """The length in days of one *cycle* of *body* in a *tradition*.
+
+    ``tradition="modern"`` gives the mean period at J2000.0 from the IERS
+    2003 arguments (pyerfa).  When a tradition has several values (Greek:
+    Hipparchus' month before Geminus'), the first row of the file, its
+    standard value, is returned; :func:`periods` gives them all.
+
+    >>> float(period("moon", "synodic", "babylonian"))
+    29.530594135802468
+    """
+    found = periods(body, cycle, tradition)
+    if not found:
+        have = sorted({e.tradition for e in periods(body, cycle)})
+        raise UnknownNameError(f"tradition for the {body}'s {cycle} period", tradition, have)
+    return found[0].value
