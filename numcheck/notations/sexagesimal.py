@@ -386,7 +386,9 @@ def _slot_chars(slot: Slot, chosen: Fraction | None) -> list[tuple[str, str | No
             return [(c, "[") for c in str(int(chosen))]
         return [("...", "[")]
     if not slot.form:
-        return [(c, None) for c in str(int(chosen if chosen is not None else slot.values[0]))]
+        # A place made by expanding a gap [...] is lost: its chosen digits are a restoration.
+        bracket = "[" if slot.status in (Status.LOST, Status.RESTORED) else None
+        return [(c, bracket) for c in str(int(chosen if chosen is not None else slot.values[0]))]
     positions: list[_Pos] = list(slot.form)
     counted = [p for p in positions if p.kind is not Status.SUPERFLUOUS]
     digits: list[str] | None = None
