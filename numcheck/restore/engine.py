@@ -1,0 +1,188 @@
+"""``restore``: rank every reading a damaged number allows, by all the evidence.
+
+The steps: the candidate space of the reading (:mod:`.space`), the evidence
+(:mod:`.evidence`), the readings that agree with it (:mod:`.search`), the one
+scoring model (:mod:`.scoring`), the reasons (:mod:`.explain`).  The result
+is a list of suggestions for the editor's judgement, never a reading.
+"""
+
+from __future__ import annotations
+
+from bisect import bisect_left
+from dataclasses import replace
+
+import numpy as np
+
+from .. import limits
+from ..errors import NumcheckRangeError
+from ..notations import render_choice
+from ..reading import Reading, sexagesimal_text
+from . import scoring
+from .evidence import Target, gather
+from .explain import NO_EVIDENCE, evidence_reason, position_reasons
+from .result import Candidate, RestoreResult
+from .search import estimate, find_matches, grid_for, top_by_prior, windows_for
+from .space import build_space
+
+__all__ = ["restore"]
+
+
+def _reading(reading_or_text, notation, unit) -> Reading:
+    if isinstance(reading_or_text, Reading):
+        reading = reading_or_text
+        if unit is not None and reading.unit is None:
+            reading = replace(reading, unit=unit)
+        return reading
+    from ..reader import read
+
+    return read(reading_or_text, notation=notation, unit=unit)
+
+
+def restore(reading_or_text, *, notation=None, unit=None, expect=None, context=(), top=10,
+            use_catalogue=True) -> RestoreResult:
+    """Rank the readings a damaged number allows, with probabilities and reasons.
+
+    *reading_or_text* is a :class:`~numcheck.reading.Reading` or a text read
+    with :func:`numcheck.read` (*notation*, *unit* as there).  *expect* is a
+    value the user expects (a text or an exact number); *context* a sequence
+    of :class:`Evidence` from the number's surroundings; the catalogue of
+    periods is consulted unless ``use_catalogue=False``.  Gives the *top*
+    candidates, best first, with probabilities over the whole space.
+
+    >>> restore("29;31,5[x],8,20", use_catalogue=False, expect="29;31,50,8,20").best.text
+    '29;31,5[0],8,20'
+    """
+    if isinstance(top, bool) or not isinstance(top, int) or top < 1:
+        raise NumcheckRangeError(f"The number of candidates asked for is {top!r}.", value=top,
+                                 legal="a whole number, 1 or more")
+    reading = _reading(reading_or_text, notation, unit)
+    space = build_space(reading)
+    targets, ev_notes = gather(reading, space, expect=expect, context=context,
+                               use_catalogue=use_catalogue, unit=unit or reading.unit)
+    notes = list(space.notes) + ev_notes
+    grids = [grid_for(s) for s in space.subspaces]
+    windows = [windows_for(g, targets) for g in grids]
+    _drop_broad(targets, grids, windows, notes)
+    match, norm = find_matches(space, grids, windows, len(targets))
+
+    possible = {i for i in range(len(targets)) if norm[i] > 0}
+    groups = {i: t.group for i, t in enumerate(targets) if t.group}
+    pi0, pis = scoring.mixture({i: t.weight for i, t in enumerate(targets)}, possible, groups,
+                               {"catalogue": scoring.CATALOGUE_WEIGHT})
+    for r, hits in enumerate(match.hits):
+        match.score[r] = match.prior[r] * (pi0 + sum(pis[t] * k / norm[t] for t, k in hits))
+    matched_prior = float(match.prior.sum())
+    unmatched = max(0.0, pi0 * (1.0 - matched_prior))
+
+    rows = []  # (probability, prior, sub index, V, grid, choice, hits)
+    by_index = {g.sub.index: g for g in grids}
+    # Only the best rows need the full (exact) tie-break; numpy picks them first.
+    best = np.lexsort((-match.prior, -match.score))[: 4 * top + 16]
+    for r in best:
+        g = by_index[int(match.sub[r])]
+        choice = tuple(int(c) for c in match.choice[r][:len(g.contrib)])
+        rows.append((float(match.score[r]), float(match.prior[r]), g.sub.index, match.value[r], g,
+                     choice, match.hits[r]))
+    rows.sort(key=_rank_key)
+    rows = rows[:top]
+    merged = [_merged(w) for w in windows]
+    skip = lambda g, V: _inside(merged[g.sub.index], V)  # noqa: E731 - a small predicate
+    for g, choice, V, prior in top_by_prior(grids, skip, top, limits.RESTORE_MAX_NODES):
+        rows.append((pi0 * prior, prior, g.sub.index, V, g, choice, []))
+    rows.sort(key=_rank_key)
+    rows = rows[:top]
+
+    candidates = [_candidate(reading, targets, row) for row in rows]
+    _space_notes(reading, space, targets, possible, notes)
+    evidence = [{"id": t.id, "label": t.label, "kind": t.kind,
+                 "possible": i in possible, "weight": pis.get(i, 0.0)}
+                for i, t in enumerate(targets) if t.kind != "catalogue" or i in possible]
+    return RestoreResult(reading.text, reading.notation, candidates, space.count, unmatched,
+                         notes, evidence)
+
+
+def _rank_key(row):
+    prob, prior, sub, V, g, choice, _ = row
+    return (-prob, -prior, sub, g.value_of(V), choice)
+
+
+def _merged(wins):
+    spans = sorted((w.lo, w.hi) for w in wins)
+    los, his = [], []
+    for lo, hi in spans:
+        if los and lo <= his[-1] + 1:
+            his[-1] = max(his[-1], hi)
+        else:
+            los.append(lo)
+            his.append(hi)
+    return los, his
+
+
+def _inside(merged, V) -> bool:
+    los, his = merged
+    i = bisect_left(his, V)
+    return i < len(los) and los[i] <= V
+
+
+def _drop_broad(targets, grids, windows, notes) -> None:
+    """Set aside evidence that agrees with too many readings to narrow anything."""
+    limit = limits.RESTORE_MAX_MATCHES // 2
+    counts: dict[int, float] = {}
+    for g, wins in zip(grids, windows):
+        for w in wins:
+            counts[w.target] = counts.get(w.target, 0.0) + estimate(g, w)
+    broad = {t for t, n in counts.items() if n > limit}
+    for t in sorted(broad):
+        notes.append(f"{targets[t].label} agrees with about {int(counts[t]):,} readings, too many to "
+                     f"narrow the search (numcheck.limits.RESTORE_MAX_MATCHES // 2 = {limit:,}); "
+                     f"it was set aside. Give it a smaller tolerance.")
+    if broad:
+        for wins in windows:
+            wins[:] = [w for w in wins if w.target not in broad]
+
+
+def _candidate(reading: Reading, targets: list[Target], row) -> Candidate:
+    prob, prior, _, V, g, choice, hits = row
+    sub = g.sub
+    e = sub.expansion
+    chosen = {pi: oi for pi, oi in zip(g.open_ids, choice)}
+    values = []
+    pos_of = {p.slot_index: (i, p) for i, p in enumerate(sub.positions)}
+    for si, slot in enumerate(e.slots):
+        if si in pos_of:
+            pi, p = pos_of[si]
+            values.append(p.options[chosen.get(pi, 0)].value)
+        else:
+            values.append(slot.values[0])
+    value = g.value_of(V)
+    try:
+        text = render_choice(e, tuple(values))
+    except Exception:  # a notation that cannot write this reading: show it in sexagesimal
+        text = sexagesimal_text(value)
+    reasons = [evidence_reason(targets[t], value, sub.ulp, e.base)
+               for t, _ in sorted(hits, key=lambda h: (-h[1], targets[h[0]].kind, h[0]))]
+    reasons += position_reasons(sub, chosen)
+    if not hits:
+        reasons.append(NO_EVIDENCE)
+    editor_slots = [p for p in sub.positions if p.slot.editor is not None]
+    is_editor = bool(editor_slots) and all(
+        p.options[chosen.get(i, 0)].editor for i, p in enumerate(sub.positions) if p.slot.editor is not None)
+    return Candidate(text, value, prob, tuple(reasons), is_editor, sub.scale, prior,
+                     tuple(targets[t].id for t, _ in hits))
+
+
+def _space_notes(reading, space, targets, possible, notes) -> None:
+    count = space.count
+    if count == 1:
+        notes.append("Nothing is lost or doubtful: the only reading is the text itself.")
+        return
+    unmet = [t for i, t in enumerate(targets) if i not in possible and t.kind != "catalogue"]
+    for t in unmet:
+        notes.append(f"No reading the traces allow agrees with {t.label}.")
+    if not possible:
+        wide = count > limits.RESTORE_WIDE_SPACE
+        notes.append(
+            f"{count:,} readings are possible and no evidence singles any out; the list shows the "
+            f"readings the traces favour." + (
+                " An expected value (--expect), the unit (so that the catalogue of periods can be "
+                "consulted) or the values the table around it expects would narrow it." if wide else ""))

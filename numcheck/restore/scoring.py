@@ -1,0 +1,127 @@
+"""The one scoring model of restoration, in one place.
+
+    posterior(reading)  ∝  prior(reading | traces, slip model) × likelihood(value | evidence)
+
+**Prior.**  A product of independent factors, so that the mass of any set of
+readings is known in closed form:
+
+* each lost or unread place (or digit) takes every value the traces allow,
+  uniformly, times a mild *simplicity* factor (:func:`simplicity`: a round
+  value such as 0 or 30 is a little likelier, as scribes and editors meet
+  round numbers often — common practice, not a measured frequency);
+* an editor's restoration counts :data:`EDITOR_WEIGHT` times an unrestored
+  value: the editor saw the original and its context, but the restoration is
+  one candidate among the others, and evidence can overturn it;
+* a doubtful digit keeps :data:`DOUBT_READ_MASS` for the value read; the rest
+  goes to its alternatives in proportion to the weights of the confusion data
+  (``numcheck.confusions``: wedge miscounts, look-alike letters);
+* an unknown gap ``[...]`` of *n* places more than its fewest weighs
+  ``GAP_DECAY ** n``; a floating number's magnitude is likelier near its
+  written size (:func:`scale_weight`).
+
+No relative frequencies of scribal slips are published (see the reference
+notes on schemes and slips), so these factors are deliberately mild and flat.
+
+**Likelihood: a mixture of hypotheses.**  Either the number is none of the
+values the evidence names (hypothesis 0, weight :data:`NONE_WEIGHT`), or it is
+the value of one piece of evidence *e* (weight ``w_e``; the catalogue counts
+as one source of weight :data:`CATALOGUE_WEIGHT`, shared among the catalogue
+values the traces allow, in proportion to their own weights).  Under
+hypothesis *e* the value lies within the tolerance of the evidence, an exact
+fit likelier than a near one (:func:`kernel`).  So::
+
+    likelihood(v) = π0 + Σ_e π_e · k_e(v) / N_e
+    N_e = Σ_readings prior(r) · k_e(v_r)          (the readings that agree with e)
+    π_e = w_e / (NONE_WEIGHT + Σ_{e' possible} w_e'),  π0 = NONE_WEIGHT / (same)
+
+Evidence that no reading can meet is impossible under the traces and drops
+out (its weight is not counted).  Because the prior sums to 1 over the whole
+space, the posterior needs no further normalising: the readings no evidence
+touches carry ``π0 × (1 − Σ prior of the readings that agree)`` between them,
+computed in closed form, not by enumeration.
+
+Ties are broken by the prior, then by the order of the sub-spaces (fewer gap
+places, nearer magnitude first), then by the value: the same input always
+gives the same ranking.
+"""
+
+from __future__ import annotations
+
+from fractions import Fraction
+
+__all__ = [
+    "EDITOR_WEIGHT", "DOUBT_READ_MASS", "GAP_DECAY", "NONE_WEIGHT", "CATALOGUE_WEIGHT",
+    "EXPECT_WEIGHT", "KERNEL_EDGE", "simplicity", "scale_weight", "kernel", "mixture",
+]
+
+#: An editor's restored value against one unrestored value (prior odds).
+EDITOR_WEIGHT = 3.0
+#: Prior probability that a doubtful digit is what the editor read.
+DOUBT_READ_MASS = 0.6
+#: Each lost place of an unknown gap beyond its fewest multiplies the prior by this.
+GAP_DECAY = 0.5
+#: Weight of the hypothesis "the number is none of the values the evidence names".
+NONE_WEIGHT = 1.0
+#: Weight of the catalogue as a whole (shared among its possible values).
+CATALOGUE_WEIGHT = 1.0
+#: Weight of a value the user expects (``--expect``).
+EXPECT_WEIGHT = 4.0
+#: A reading at the edge of a tolerance counts this much of an exact fit.
+KERNEL_EDGE = 0.5
+
+
+def simplicity(value: Fraction) -> float:
+    """A mild preference for round values in a lost place.
+
+    >>> simplicity(Fraction(0)), simplicity(Fraction(30)), simplicity(Fraction(37))
+    (1.5, 1.2, 1.0)
+    """
+    if value == 0:
+        return 1.5
+    if value.denominator == 1 and value % 10 == 0:
+        return 1.2
+    return 1.0
+
+
+def scale_weight(expansion, scale: int) -> float:
+    """Prior weight of a magnitude: the first place near the units place is likelier.
+
+    A floating number is written at integer scale (its last place is the
+    units); *scale* is the power of 60 applied to it.
+    """
+    top = max((s.place for s in expansion.counted_slots), default=0)
+    return 1.0 / (1 + abs(top + scale))
+
+
+def kernel(distance: float, tolerance: float) -> float:
+    """How well a value at *distance* from the evidence fits: 1 exact, KERNEL_EDGE at the edge.
+
+    >>> kernel(0.0, 0.0), kernel(0.5, 1.0)
+    (1.0, 0.75)
+    """
+    if tolerance <= 0:
+        return 1.0 if distance == 0 else 0.0
+    return 1.0 - (1.0 - KERNEL_EDGE) * min(1.0, distance / tolerance)
+
+
+def mixture(weights: dict[int, float], possible: set[int], groups: dict[int, str],
+            group_weights: dict[str, float]) -> tuple[float, dict[int, float]]:
+    """The mixing weights π0 and π_e for the evidence that some reading can meet.
+
+    *weights* are the evidence weights by index; evidence in a group (the
+    catalogue) shares the group's weight in proportion to its own.
+    """
+    share: dict[int, float] = {}
+    grouped: dict[str, list[int]] = {}
+    for e in sorted(possible):
+        g = groups.get(e)
+        if g is None:
+            share[e] = weights[e]
+        else:
+            grouped.setdefault(g, []).append(e)
+    for g, members in grouped.items():
+        total = sum(weights[e] for e in members)
+        for e in members:
+            share[e] = group_weights[g] * (weights[e] / total if total > 0 else 1.0 / len(members))
+    denom = NONE_WEIGHT + sum(share.values())
+    return NONE_WEIGHT / denom, {e: w / denom for e, w in share.items()}
