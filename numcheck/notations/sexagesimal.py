@@ -398,6 +398,9 @@ def _slot_chars(slot: Slot, chosen: Fraction | None) -> list[tuple[str, str | No
             bracket = None if counted[0].kind is Status.UNREAD else "["
             return [(c, bracket) for c in text]
         digits = list(str(int(chosen)).rjust(len(counted), "0"))
+        if len(digits) > len(counted):  # a reading with more digits than written (5? read as 15)
+            extra = len(digits) - len(counted)
+            digits = ["".join(digits[:extra + 1])] + digits[extra + 1:]
     out = []
     k = 0
     for p in positions:
