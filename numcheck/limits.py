@@ -34,3 +34,9 @@ RESTORE_MAX_NODES = 2_000_000
 RESTORE_WIDE_SPACE = 10_000
 #: A floating (cuneiform) number is tried with its first place from 60^lo to 60^hi.
 RESTORE_FLOAT_FIRST_PLACE = (-2, 3)
+#: Largest whole multiple of a catalogue period that identify tries (e.g. 4267 months).
+IDENTIFY_MAX_MULTIPLE = 5000
+#: Largest numerator and denominator of the simple factors n/m that identify tries.
+IDENTIFY_MAX_SIMPLE = 12
+#: Most catalogue targets returned by one ``catalogue_targets`` call (simplest kept).
+IDENTIFY_MAX_TARGETS = 50_000
