@@ -40,3 +40,5 @@ IDENTIFY_MAX_MULTIPLE = 5000
 IDENTIFY_MAX_SIMPLE = 12
 #: Most catalogue targets returned by one ``catalogue_targets`` call (simplest kept).
 IDENTIFY_MAX_TARGETS = 50_000
+#: Longest span, in years, that ``relate --search`` walks (months: this many years of them).
+RELATE_MAX_SEARCH_YEARS = 20_000
