@@ -1,0 +1,49 @@
+"""``audit``: find the scheme of each column of a table, the slips that break it, and the fixes.
+
+A scholar gives a table (an ephemeris, a reciprocal table, a table of
+sexagesimal values); numcheck finds the computing scheme of each column
+(constant, linear, zigzag, step function, running sum, product, quotient,
+reciprocal, or a relation the user states), checks every cell against it
+exactly, names the likely slip of each cell that breaks it and what the
+scribe should have written, and restores damaged cells from the scheme.
+
+>>> import pandas as pd
+>>> df = pd.DataFrame({"n": ["1", "2", "3", "4", "5"], "sq": ["1", "4", "9", "16", "25"]})
+>>> audit(df, relation="sq = n * n").flags
+[]
+"""
+
+from __future__ import annotations
+
+from .detect import detect_schemes, make_frame
+from .diagnose import diagnose
+from .restoration import restore_cells
+from .result import SUGGESTION, AuditResult
+from .table import read_table
+
+__all__ = ["audit", "AuditResult", "SUGGESTION"]
+
+
+def audit(table, *, notation: str | None = None, relation: str | None = None,
+          columns=None) -> AuditResult:
+    """Audit *table* (a path to a TSV/CSV/aligned text table, or a DataFrame).
+
+    *notation* is the default notation of every cell (detected otherwise);
+    *relation* a relation between columns to check (``"C = A + B"``,
+    ``"B = prev(B) + A mod 360"``); *columns* the header names to audit (the
+    others are left out, e.g. a column of month names).
+    """
+    from .diagnose import Finding
+
+    tab = read_table(table, notation=notation, columns=columns)
+    frame = make_frame(tab)
+    schemes = detect_schemes(frame, relation=relation)
+    findings, pending, true = diagnose(tab, frame, schemes)
+    restorations, misfits = restore_cells(tab, frame, pending)
+    for p, _ in misfits:
+        findings.append(Finding(p.index, p.column, "unexplained",
+                                "no reading of the traces fits the scheme here", p.expected, p.expected))
+    findings.sort(key=lambda f: (f.index, frame.names.index(f.column)))
+    found = {s.column for s in schemes}
+    unchecked = [n for n in frame.names if n not in found]
+    return AuditResult(tab, frame, schemes, findings, restorations, unchecked, true)

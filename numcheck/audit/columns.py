@@ -1,0 +1,190 @@
+"""Schemes across columns: running sums, products, quotients, reciprocals.
+
+* Running sum: B_n = B_n−1 + A_n, modulo 360° for a longitude written within
+  signs (the sign advances whenever the sum passes 30°), schemes-and-slips.md §1.3.
+* Product and quotient of two columns, C = A·B or C = A/B, exact; for
+  floating (cuneiform) columns the magnitude is free, so the digits are
+  compared without it.
+* Reciprocal (igi): n × igi(n) is a power of 60 (Old Babylonian reciprocal
+  tables, Neugebauer & Sachs, MCT 1945; schemes-and-slips.md §1.6).
+"""
+
+from __future__ import annotations
+
+from fractions import Fraction
+from itertools import permutations
+
+from ..slips import mantissa
+from .schemes import Scheme, support_chained, support_row, value_text
+
+__all__ = ["RunningSumScheme", "ProductScheme", "QuotientScheme", "ReciprocalScheme",
+           "fit_cross"]
+
+#: Rows used to look for a relation between columns before checking it all.
+_SAMPLE = 120
+
+
+class RunningSumScheme(Scheme):
+    """B_n = B_n−1 + A_n (modulo 360° for a longitude)."""
+
+    kind = "running-sum"
+
+    def __init__(self, column, frame, source, modulus):
+        super().__init__(column, frame)
+        self.source = source
+        self.inputs = (source,)
+        self.modulus = modulus
+
+    def step(self, state, i, src):
+        a = src[self.source][i]
+        if a is None:
+            return None
+        return (self._norm(state[0] + a), None)
+
+    def back(self, state, i, src):
+        a = src[self.source][i]
+        if a is None:
+            return None
+        return (self._norm(state[0] - a), None)
+
+    def params(self):
+        out = {"of": self.source}
+        if self.modulus:
+            out["modulus"] = value_text(self.frame.fraction(self.modulus))
+        return out
+
+    def describe(self):
+        mod = f" modulo {self.frame.fraction(self.modulus)}" if self.modulus else ""
+        return f"running sum of column {self.source}{mod}"
+
+
+class _RowScheme(Scheme):
+    chained = False
+
+    def __init__(self, column, frame, a, b):
+        super().__init__(column, frame)
+        self.a, self.b = a, b
+        self.inputs = (a, b)
+        self.floating = frame.floating.get(column, False)
+
+    def _fix(self, value, i):
+        """Put a floating result at the magnitude of the written cell."""
+        if not self.floating:
+            return value
+        m = mantissa(Fraction(value, self.frame.scale) if isinstance(value, int) else value / self.frame.scale)
+        if m is None:
+            return None
+        written = self.frame.written[self.column][i]
+        target = m * self.frame.scale
+        if written is not None and mantissa(Fraction(written, self.frame.scale)) == m:
+            return written
+        return target if target.denominator != 1 else target.numerator
+
+    def params(self):
+        return {"of": [self.a, self.b]}
+
+
+class ProductScheme(_RowScheme):
+    kind = "product"
+
+    def expect(self, i, src):
+        x, y = src[self.a][i], src[self.b][i]
+        if x is None or y is None:
+            return None
+        v = Fraction(x * y, self.frame.scale)
+        return self._fix(v.numerator if v.denominator == 1 else v, i)
+
+    def describe(self):
+        return f"product {self.column} = {self.a} × {self.b}"
+
+
+class QuotientScheme(_RowScheme):
+    kind = "quotient"
+
+    def expect(self, i, src):
+        x, y = src[self.a][i], src[self.b][i]
+        if x is None or not y:
+            return None
+        v = Fraction(x * self.frame.scale, y)
+        return self._fix(v.numerator if v.denominator == 1 else v, i)
+
+    def describe(self):
+        return f"quotient {self.column} = {self.a} / {self.b}"
+
+
+class ReciprocalScheme(Scheme):
+    """igi: the column holds the reciprocal of another, n × igi a power of 60."""
+
+    kind = "reciprocal"
+    chained = False
+
+    def __init__(self, column, frame, source):
+        super().__init__(column, frame)
+        self.source = source
+        self.inputs = (source,)
+
+    def expect(self, i, src):
+        n = src[self.source][i]
+        if not n:
+            return None
+        s = self.frame.scale
+        inv = Fraction(s * s, n)   # scaled value of 1/n
+        written = self.frame.written[self.column][i]
+        if written is not None and mantissa(Fraction(written) * n / (s * s)) == 1:
+            return written
+        # Put the reciprocal at the magnitude the written cell has (the
+        # floating value is read at the scale of its last place).
+        best = inv
+        if written:
+            while best * 60 <= abs(written) and best * 60 <= s * 60 ** 12:
+                best *= 60
+            while best > abs(written) * 60 and best > 0:
+                best /= 60
+        return best.numerator if best.denominator == 1 else best
+
+    def params(self):
+        return {"of": self.source, "rule": "n × igi(n) is a power of 60"}
+
+    def describe(self):
+        return f"reciprocal of column {self.source} (n × igi a power of 60)"
+
+
+def fit_cross(frame, taken: set[str]) -> list[Scheme]:
+    """Every relation between columns that most sampled lines satisfy."""
+    found: list[Scheme] = []
+    names = frame.names
+    for a, b in permutations(names, 2):
+        if b in taken:
+            continue
+        for modulus in _moduli(frame, b):
+            s = RunningSumScheme(b, frame, a, modulus)
+            s.support = support_chained(s, frame.written[b][:_SAMPLE], frame.written)
+            if s.support > 0.5:
+                found.append(s)
+                break
+        r = ReciprocalScheme(b, frame, a)
+        r.support = support_row(r, frame.written[b], frame.written, _SAMPLE)
+        if r.support > 0.5 and _is_reciprocal_pair(frame, a, b):
+            found.append(r)
+    for a, b in permutations(names, 2):
+        for c in names:
+            if c in (a, b) or c in taken:
+                continue
+            for cls in ((ProductScheme,) if a < b else ()) + (QuotientScheme,):
+                s = cls(c, frame, a, b)
+                s.support = support_row(s, frame.written[c], frame.written, _SAMPLE)
+                if s.support > 0.5:
+                    found.append(s)
+    return found
+
+
+def _moduli(frame, column):
+    mod = frame.modulus.get(column)
+    return [mod] if mod else [None]
+
+
+def _is_reciprocal_pair(frame, a, b) -> bool:
+    # A column of ones beside another is not a reciprocal table; the source
+    # must vary and not be a constant column.
+    vals = [v for v in frame.written[a] if v is not None]
+    return len(set(vals)) > 2

@@ -1,0 +1,111 @@
+"""Find the scheme of each column: its own (constant, linear, zigzag, step) or one across columns.
+
+Each candidate is fitted from the majority of lines and scored by its
+*support*, the share of lines it explains exactly; the best candidate with a
+majority wins, a column's own scheme winning a tie (the scribe's own rule is
+the simpler explanation).  A relation the user states replaces detection for
+its column.  Columns are then ordered so that a column is checked after the
+columns it is computed from.
+"""
+
+from __future__ import annotations
+
+from fractions import Fraction
+
+from .columns import fit_cross
+from .relation import RelationScheme, parse_relation
+from .schemes import (ConstantScheme, Frame, LinearScheme, Scheme, lcm_all, support_chained,
+                      support_row)
+from .steps import StepScheme
+from .table import Table
+from .zigzag import ZigzagScheme
+
+__all__ = ["make_frame", "detect_schemes"]
+
+_OWN = (ConstantScheme, LinearScheme, ZigzagScheme, StepScheme)
+
+
+def make_frame(table: Table) -> Frame:
+    """Scale every exact value of the table to an integer on one common scale."""
+    dens = set()
+    for col in table.columns.values():
+        for c in col.cells:
+            if c.value is not None:
+                dens.add(c.value.denominator)
+    scale = lcm_all(dens) if dens else 1
+    written = {}
+    for name, col in table.columns.items():
+        written[name] = [None if c.value is None else c.value.numerator * (scale // c.value.denominator)
+                         for c in col.cells]
+    modulus = {name: (360 * scale if col.longitude else None) for name, col in table.columns.items()}
+    floating = {name: col.floating for name, col in table.columns.items()}
+    return Frame(names=list(table.columns), written=written, scale=scale, modulus=modulus,
+                 floating=floating, nrows=table.nrows)
+
+
+def _own(frame: Frame, name: str) -> Scheme | None:
+    best = None
+    for cls in _OWN:
+        scheme = cls.fit(name, frame)
+        if scheme is None:
+            continue
+        if scheme.chained:
+            scheme.support = support_chained(scheme, frame.written[name], frame.written)
+        else:
+            scheme.support = support_row(scheme, frame.written[name], frame.written)
+        if scheme.support > 0.5 and (best is None or scheme.support > best.support):
+            best = scheme
+    return best
+
+
+def detect_schemes(frame: Frame, relation: str | None = None) -> list[Scheme]:
+    """The scheme of each column that has one, in the order they must be checked."""
+    chosen: dict[str, Scheme] = {}
+    stated = None
+    if relation:
+        target, tree, modulus = parse_relation(relation, frame.names)
+        stated = RelationScheme(target, frame, relation, tree, modulus)
+        if stated.chained:
+            stated.support = support_chained(stated, frame.written[target], frame.written)
+        else:
+            stated.support = support_row(stated, frame.written[target], frame.written)
+        chosen[target] = stated
+    for name in frame.names:
+        if name in chosen:
+            continue
+        own = _own(frame, name)
+        if own is not None:
+            chosen[name] = own
+    taken = {n for n, s in chosen.items() if s is stated or s.support == 1.0}
+    for scheme in fit_cross(frame, taken):
+        if scheme.chained:
+            scheme.support = support_chained(scheme, frame.written[scheme.column], frame.written)
+        else:
+            scheme.support = support_row(scheme, frame.written[scheme.column], frame.written)
+        current = chosen.get(scheme.column)
+        if current is None or scheme.support > current.support:
+            chosen[scheme.column] = scheme
+    return _ordered(chosen)
+
+
+def _ordered(chosen: dict[str, Scheme]) -> list[Scheme]:
+    """Columns after the columns they depend on; a cycle drops the weaker scheme."""
+    out: list[Scheme] = []
+    done: set[str] = set()
+    pending = dict(chosen)
+    while pending:
+        ready = [s for s in pending.values()
+                 if all(d in done or d not in pending for d in s.inputs)]
+        if not ready:
+            weakest = min(pending.values(), key=lambda s: s.support)
+            del pending[weakest.column]
+            continue
+        for s in sorted(ready, key=lambda s: list(chosen).index(s.column)):
+            out.append(s)
+            done.add(s.column)
+            del pending[s.column]
+    return out
+
+
+def as_fraction(frame: Frame, v) -> Fraction | None:
+    return frame.fraction(v)

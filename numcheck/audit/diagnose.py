@@ -1,0 +1,261 @@
+"""Check every cell against its scheme and say where the scribe slipped.
+
+Two chains run down a chained column: the *true* chain (the scheme computed
+from a line that agrees with its neighbour, forwards and backwards) and the
+*scribe's* chain (each line computed from the line the scribe actually wrote
+before it).  A cell that matches neither is a slip; if the next line follows
+from the wrong value, the scribe computed on with it, and the later lines
+that only inherit it are marked ``carried-forward`` rather than reported as
+new slips (Neugebauer's errors "carried on" versus copying errors,
+schemes-and-slips.md §2.2).  A cell that follows the scribe's chain but not
+the true one inherits an earlier slip.
+
+Across columns the true values of a column's inputs are used: a progress
+value that is wrong beside a longitude computed with the right one is a
+copying slip in the progress column; a longitude computed with the wrong one
+carries that slip forward.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+
+from ..slips import Diagnosis, classify, mantissa
+from .columns import ReciprocalScheme
+from .schemes import Frame, Scheme
+from .table import Table
+
+__all__ = ["Finding", "Pending", "diagnose"]
+
+
+@dataclass
+class Finding:
+    """One flagged cell (index 0-based here; the output counts rows from 1)."""
+
+    index: int
+    column: str
+    kind: str
+    reason: str
+    written: object
+    expected: object
+    carried_into: list[int] = field(default_factory=list)
+    carried_from: tuple[str, int] | None = None
+    notes: list[str] = field(default_factory=list)
+
+
+@dataclass
+class Pending:
+    """A damaged cell and the value its scheme gives it."""
+
+    index: int
+    column: str
+    expected: object
+    scheme: Scheme
+
+
+def diagnose(table: Table, frame: Frame, schemes: list[Scheme]):
+    """Return (findings, damaged cells with their expected values, true values per column)."""
+    true = {name: list(vals) for name, vals in frame.written.items()}
+    findings: list[Finding] = []
+    pending: list[Pending] = []
+    index: dict[tuple[str, int], Finding] = {}
+    for scheme in schemes:
+        if scheme.chained:
+            got = _chain(table, frame, scheme, true)
+        else:
+            got = _rows(table, frame, scheme, true)
+        col_findings, col_pending, col_true = got
+        true[scheme.column] = col_true
+        for f in col_findings:
+            _link_inputs(f, scheme, frame, true, index)
+            findings.append(f)
+            index[(f.column, f.index)] = f
+        pending.extend(col_pending)
+    findings.sort(key=lambda f: (f.index, frame.names.index(f.column)))
+    return findings, pending, true
+
+
+def _link_inputs(f: Finding, scheme: Scheme, frame: Frame, true, index) -> None:
+    """Tie a cell that inherits a slip of an input column to that slip."""
+    if f.kind != "carried-forward" or f.carried_from is not None:
+        return
+    for name in scheme.inputs:
+        for k in range(f.index, -1, -1):
+            origin = index.get((name, k))
+            if origin is not None and origin.kind != "carried-forward":
+                f.carried_from = (name, k)
+                f.reason = (f"follows from the slip in column {name}, row {k + 1}, "
+                            "which the scribe computed with")
+                if f.index not in origin.carried_into:
+                    origin.carried_into.append(f.index)
+                return
+
+
+def _context(table, frame, column, i, written, expected, prev, special) -> Diagnosis:
+    f = frame.fraction
+    cell = table.columns[column].cells[i]
+    vals = frame.written[column]
+    neighbours = []
+    for j in (i - 1, i + 1):
+        if 0 <= j < len(vals):
+            neighbours.append(f(vals[j]))
+    for other in frame.names:
+        if other != column:
+            neighbours.append(f(frame.written[other][i]))
+    return classify(f(written), f(expected), places=cell.places, floating=cell.floating,
+                    notation=cell.notation, longitude=bool(frame.modulus.get(column)),
+                    prev=None if prev is None else f(prev), neighbours=tuple(neighbours),
+                    special=special,
+                    written_digits=list(cell.digits) if cell.digits is not None else None)
+
+
+def _anchor_states(scheme: Scheme, w, src):
+    """The true chain: states per line, from the first consistent pair of lines."""
+    n = len(w)
+    states = [None] * n
+    i = 0
+    while i < n - 1:
+        if w[i] is None or w[i + 1] is None:
+            i += 1
+            continue
+        st = scheme.start(w[i], i, w[i + 1], src)
+        if st is None:
+            i += 1
+            continue
+        states[i] = st
+        k = i
+        while k > 0 and states[k - 1] is None:
+            prev = scheme.back(states[k], k, src)
+            if prev is None:
+                break
+            states[k - 1] = prev
+            k -= 1
+        j = i + 1
+        while j < n:
+            nxt = scheme.step(states[j - 1], j, src)
+            if nxt is None:
+                break
+            states[j] = nxt
+            j += 1
+        if j >= n:
+            break
+        i = j  # an input was missing: find a new anchor after it
+    return states
+
+
+def _chain(table, frame, scheme: Scheme, true):
+    column = scheme.column
+    w = frame.written[column]
+    n = len(w)
+    T = _anchor_states(scheme, w, true)
+    findings: list[Finding] = []
+    pending: list[Pending] = []
+    col_true = list(w)
+    S = None
+    origin: Finding | None = None
+    two = bool(scheme.inputs)
+    for i in range(n):
+        t = T[i]
+        wi = w[i]
+        if t is None:
+            S = None  # no true chain here: nothing to compute the next line from
+            continue
+        e_true = t[0]
+        col_true[i] = e_true
+        if S is None:
+            pred, pred_w = t, None
+        else:
+            pred = scheme.step(S, i, true) or t
+            pred_w = scheme.step(S, i, frame.written) if two else None
+        if wi is None:
+            pending.append(Pending(i, column, pred[0], scheme))
+            S = pred
+            continue
+        if wi == e_true:
+            S = t
+            origin = None
+            continue
+        if wi == pred[0] or (pred_w is not None and wi == pred_w[0]):
+            f = Finding(i, column, "carried-forward",
+                        "inherits the slip of an earlier line (the scribe computed on from it)",
+                        wi, e_true)
+            if origin is not None:
+                f.carried_from = (column, origin.index)
+                f.reason = f"inherits the slip in row {origin.index + 1} (the scribe computed on from it)"
+                origin.carried_into.append(i)
+            findings.append(f)
+            S = scheme.resume(pred if wi == pred[0] else pred_w, wi)
+            continue
+        special = scheme.special(S, i, true, wi) if S is not None else None
+        diag = _context(table, frame, column, i, wi, pred[0], None if S is None else S[0], special)
+        f = Finding(i, column, diag.kind, diag.reason, wi, pred[0])
+        findings.append(f)
+        carried = False
+        if i + 1 < n and w[i + 1] is not None and T[i + 1] is not None:
+            r = scheme.resume(pred, wi)
+            nx = scheme.step(r, i + 1, true)
+            nxw = scheme.step(r, i + 1, frame.written) if two else None
+            follows = (nx is not None and w[i + 1] == nx[0]) or (nxw is not None and w[i + 1] == nxw[0])
+            carried = follows and w[i + 1] != T[i + 1][0]
+        if carried:
+            S = scheme.resume(pred, wi)
+            origin = f
+            f.notes.append("the scribe computed the following lines from this value")
+        else:
+            S = pred
+            origin = None
+    return findings, pending, col_true
+
+
+def _rows(table, frame, scheme: Scheme, true):
+    column = scheme.column
+    w = frame.written[column]
+    findings: list[Finding] = []
+    pending: list[Pending] = []
+    col_true = list(w)
+    for i, wi in enumerate(w):
+        e = scheme.expect(i, true)
+        if e is None:
+            continue
+        col_true[i] = e
+        if wi is None:
+            pending.append(Pending(i, column, e, scheme))
+            continue
+        if wi == e:
+            continue
+        ew = scheme.expect(i, frame.written) if scheme.inputs else None
+        if ew is not None and wi == ew:
+            findings.append(Finding(i, column, "carried-forward",
+                                    "computed correctly from a slip in another column", wi, e))
+            continue
+        if isinstance(scheme, ReciprocalScheme):
+            moved = _reciprocal_blame(table, frame, scheme, i, wi)
+            if moved is not None:
+                findings.append(moved)
+                col_true[i] = wi
+                continue
+        diag = _context(table, frame, column, i, wi, e, None, None)
+        findings.append(Finding(i, column, diag.kind, diag.reason, wi, e))
+    return findings, pending, col_true
+
+
+def _reciprocal_blame(table, frame, scheme, i, igi):
+    """A number that is not regular has no igi: then the slip is in the number column."""
+    from fractions import Fraction
+    s = frame.scale
+    n = frame.written[scheme.source][i]
+    if n is None or not igi:
+        return None
+    if mantissa(Fraction(s, n)) is not None:
+        return None   # n is regular: the slip is in the igi column
+    due = Fraction(s * s, igi)
+    target = due
+    while target * 60 <= abs(n):
+        target *= 60
+    while target > abs(n) * 60:
+        target /= 60
+    due = target.numerator if target.denominator == 1 else target
+    diag = _context(table, frame, scheme.source, i, n, due, None, None)
+    return Finding(i, scheme.source, diag.kind,
+                   diag.reason + f" ({frame.fraction(n)} is not a regular number and has no igi)",
+                   n, due)

@@ -1,0 +1,108 @@
+"""Restore damaged cells from the scheme of their column, through the restore engine.
+
+The value the scheme gives a damaged line (computed on from the scribe's own
+previous line, so that a carried slip is kept as the scribe would have written
+it) is handed to :func:`numcheck.restore.restore` as exact context evidence;
+the engine weighs it against the traces and returns ranked readings with
+probabilities.  In a zigzag column the trailing places of every line of one
+monotone run agree modulo d (schemes-and-slips.md §1.1, item 4): the reason
+says so when it applies.  These are suggestions for the editor.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+from fractions import Fraction
+
+from ..reading import exact_text
+from ..slips import write_value
+from .diagnose import Pending
+from .schemes import Frame
+from .table import Table, sign_index
+
+__all__ = ["Restoration", "restore_cells"]
+
+#: How strongly the exact scheme value counts against "none of these"
+#: (restore's own evidence weights are 1 for an ordinary hint).
+SCHEME_WEIGHT = 20.0
+
+
+@dataclass
+class Restoration:
+    """One proposed reading of a damaged cell."""
+
+    index: int
+    column: str
+    text: str
+    value: Fraction
+    probability: float
+    reasons: list[str] = field(default_factory=list)
+    expected: str = ""
+
+    def to_dict(self) -> dict:
+        return {"row": self.index + 1, "column": self.column, "text": self.text,
+                "value": exact_text(self.value), "probability": round(self.probability, 6),
+                "reasons": list(self.reasons), "expected": self.expected}
+
+
+def restore_cells(table: Table, frame: Frame, pending: list[Pending], top: int = 3):
+    """Candidates for every damaged cell; cells no reading of the traces fits come back apart."""
+    out: list[Restoration] = []
+    misfits: list[tuple[Pending, str]] = []
+    for p in pending:
+        cell = table.columns[p.column].cells[p.index]
+        due = frame.fraction(p.expected)
+        offset = 30 * sign_index(cell.sign_name) if cell.sign_name else 0
+        if cell.sign_name:
+            due = (due - offset) % 360
+        expected_text = write_value(frame.fraction(p.expected), notation=cell.notation,
+                                    places=cell.places, floating=cell.floating,
+                                    sign_name=cell.sign_name, longitude=bool(cell.sign_name))
+        reason = f"the {p.scheme.kind} scheme of column {p.column} gives {expected_text} here"
+        if p.scheme.kind == "zigzag":
+            reason += " (its trailing places agree with the lines of the same run)"
+        cands = _candidates(cell, due, reason, top)
+        fitting = [c for c in cands if c[1] == due or (cell.floating and _same_digits(c[1], due))]
+        if not fitting:
+            misfits.append((p, expected_text))
+            continue
+        for text, value, prob, reasons in cands:
+            shown = f"{text} {cell.sign_name}" if cell.sign_name else text
+            out.append(Restoration(p.index, p.column, shown, value + offset, prob, list(reasons),
+                                   expected_text))
+    return out, misfits
+
+
+def _same_digits(a: Fraction, b: Fraction) -> bool:
+    from ..slips import mantissa
+    return mantissa(a) == mantissa(b)
+
+
+def _candidates(cell, due: Fraction, reason: str, top: int):
+    reading = cell.reading
+    if reading is None:
+        return []
+    try:
+        from ..restore import Evidence, restore
+    except ImportError:
+        return _direct(reading, due, reason)
+    try:
+        result = restore(reading, context=[Evidence(value=due, tolerance=Fraction(0),
+                                                    weight=SCHEME_WEIGHT, label=reason)],
+                         use_catalogue=False, top=top)
+    except Exception:
+        return _direct(reading, due, reason)
+    return [(c.text, c.value, c.probability, c.reasons) for c in result.candidates]
+
+
+def _direct(reading, due: Fraction, reason: str):
+    """Without the restore engine: the readings of the traces that equal the value due."""
+    from ..limits import AUDIT_MAX_CELL_READINGS
+    from ..notations import render_choice
+    if reading.count > AUDIT_MAX_CELL_READINGS:
+        return []
+    for expansion, choice in reading.choices():
+        value = expansion.value_of(choice)
+        if value == due or (reading.floating and _same_digits(value, due)):
+            return [(render_choice(expansion, choice), value, 1.0, [reason])]
+    return []

@@ -1,0 +1,80 @@
+"""The result of an audit: the schemes found, the flagged cells, the restorations."""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+
+from ..reading import exact_text
+from ..slips import write_value
+from .diagnose import Finding
+from .restoration import Restoration
+from .schemes import Frame, Scheme
+from .table import Table
+
+__all__ = ["AuditResult", "SUGGESTION"]
+
+#: Said wherever diagnoses and restorations are shown.
+SUGGESTION = ("Diagnoses and restorations are suggestions for the editor's judgement, not "
+              "readings: each fits the scheme found, and the scheme itself is an inference.")
+
+
+@dataclass
+class AuditResult:
+    """Schemes, flags and restorations of one table (``to_dict`` gives the JSON of DESIGN.md)."""
+
+    table: Table
+    frame: Frame
+    schemes: list[Scheme]
+    findings: list[Finding]
+    restorations: list[Restoration]
+    unchecked: list[str] = field(default_factory=list)
+    true: dict = field(default_factory=dict)
+
+    @property
+    def source(self) -> str:
+        return self.table.source
+
+    @property
+    def flags(self) -> list[dict]:
+        return [self._flag(f) for f in self.findings]
+
+    @property
+    def slips(self) -> list[dict]:
+        """The flags that are slips of their own (not lines that inherit one)."""
+        return [f for f in self.flags if f["kind"] != "carried-forward"]
+
+    def _flag(self, f: Finding) -> dict:
+        cell = self.table.columns[f.column].cells[f.index]
+        fr = self.frame.fraction
+        expected = fr(f.expected)
+        out = {
+            "row": f.index + 1,
+            "column": f.column,
+            "written": cell.text,
+            "expected": write_value(expected, notation=cell.notation, places=cell.places,
+                                    floating=cell.floating, sign_name=cell.sign_name,
+                                    longitude=bool(cell.sign_name)),
+            "kind": f.kind,
+            "reason": f.reason,
+            "written_value": exact_text(fr(f.written)),
+            "expected_value": exact_text(expected),
+        }
+        if f.carried_into:
+            out["carried_into"] = [k + 1 for k in sorted(f.carried_into)]
+        if f.carried_from is not None:
+            out["carried_from"] = {"column": f.carried_from[0], "row": f.carried_from[1] + 1}
+        if f.notes:
+            out["notes"] = list(f.notes)
+        return out
+
+    def to_dict(self) -> dict:
+        return {
+            "source": self.source,
+            "rows": self.table.nrows,
+            "columns": list(self.table.columns),
+            "schemes": [s.to_dict() for s in self.schemes],
+            "flags": self.flags,
+            "restorations": [r.to_dict() for r in self.restorations],
+            "unchecked": list(self.unchecked),
+            "note": SUGGESTION,
+        }

@@ -1,0 +1,228 @@
+"""The computing schemes a column may follow, and how to fit each one robustly.
+
+Every scheme works on the *scaled* values of a frame: each exact value times
+one common integer scale, so that the check runs on Python integers (exact,
+and fast enough for an ephemeris of 100,000 lines).  A parameter that does not
+fall on the scale (a maximum halfway between two units) stays a Fraction;
+mixed integer and Fraction arithmetic is still exact.
+
+A *chained* scheme computes each line from the line before (constant
+difference, zigzag, step function, running sum): it offers ``start`` (the
+state of a line, given the next one), ``step`` (the next state), ``back`` (the
+state before) and ``resume`` (the state after the scribe wrote another value).
+A *row* scheme computes each cell from the other cells of its row (product,
+quotient, reciprocal, a stated relation): it offers ``expect``.  Parameters
+are estimated from the majority of lines (the mode of the differences, turn
+pairs that agree), so that a minority of slips does not move them
+(van Dalen's robust estimation, schemes-and-slips.md §1.7).
+"""
+
+from __future__ import annotations
+
+import math
+from collections import Counter
+from dataclasses import dataclass
+from fractions import Fraction
+
+from ..reading import exact_text, sexagesimal_text
+
+__all__ = ["Frame", "Scheme", "ConstantScheme", "LinearScheme", "mode", "diffs", "value_text",
+           "support_chained", "support_row"]
+
+
+@dataclass
+class Frame:
+    """The audited columns as scaled exact numbers (``None`` for a damaged cell)."""
+
+    names: list[str]
+    written: dict[str, list]
+    scale: int
+    modulus: dict[str, int | None]      # 360 * scale for a longitude column
+    floating: dict[str, bool]
+    nrows: int
+
+    def fraction(self, v) -> Fraction | None:
+        return None if v is None else Fraction(v) / self.scale
+
+
+def value_text(v: Fraction) -> dict:
+    """An exact parameter for the JSON output: exact text and sexagesimal."""
+    return {"value": exact_text(v), "sexagesimal": sexagesimal_text(v)}
+
+
+def mode(items) -> tuple[object, int]:
+    """The commonest item and its count (the first seen wins a tie)."""
+    counts = Counter(items)
+    if not counts:
+        return None, 0
+    best = max(counts.values())
+    for item in items:
+        if counts[item] == best:
+            return item, best
+    return None, 0  # pragma: no cover
+
+
+def diffs(values: list, modulus=None) -> list[tuple[int, object]]:
+    """(row index, difference to the line before) for each pair of known lines."""
+    out = []
+    prev = values[0] if values else None
+    for i in range(1, len(values)):
+        v = values[i]
+        if v is not None and prev is not None:
+            d = v - prev
+            if modulus:
+                d %= modulus
+            out.append((i, d))
+        prev = v
+    return out
+
+
+class Scheme:
+    """A computing scheme fitted to one column."""
+
+    kind = ""
+    chained = True
+    inputs: tuple[str, ...] = ()
+
+    def __init__(self, column: str, frame: Frame):
+        self.column = column
+        self.frame = frame
+        self.modulus = frame.modulus.get(column)
+        self.support = 0.0
+
+    # -- output --------------------------------------------------------
+    def params(self) -> dict:
+        return {}
+
+    def describe(self) -> str:
+        return self.kind
+
+    def to_dict(self) -> dict:
+        return {"column": self.column, "kind": self.kind, "params": self.params(),
+                "support": round(self.support, 4), "description": self.describe()}
+
+    def _norm(self, v):
+        return v % self.modulus if self.modulus else v
+
+    # -- chained schemes -------------------------------------------------
+    def start(self, value, i: int, nxt, src) -> tuple | None:
+        """The state of line *i* (value *value*) that leads to *nxt* at i+1."""
+        state = (value, None)
+        got = self.step(state, i + 1, src)
+        return state if got is not None and got[0] == nxt else None
+
+    def step(self, state, i: int, src) -> tuple | None:
+        raise NotImplementedError
+
+    def back(self, state, i: int, src) -> tuple | None:
+        raise NotImplementedError
+
+    def resume(self, predicted, value) -> tuple:
+        return (value,) + tuple(predicted[1:])
+
+    def special(self, prev, i: int, src, written):
+        """A scheme's own diagnosis of a slip at line *i* (missed turn, zone boundary)."""
+        return None
+
+    # -- row schemes -----------------------------------------------------
+    def expect(self, i: int, src):
+        raise NotImplementedError
+
+
+def support_chained(scheme: Scheme, values: list, src) -> float:
+    """The share of consecutive known lines that follow the scheme exactly."""
+    total = hits = 0
+    for i in range(len(values) - 1):
+        a, b = values[i], values[i + 1]
+        if a is None or b is None:
+            continue
+        total += 1
+        if scheme.start(a, i, b, src) is not None:
+            hits += 1
+    return hits / total if total else 0.0
+
+
+def support_row(scheme: Scheme, values: list, src, limit: int | None = None) -> float:
+    total = hits = 0
+    for i, v in enumerate(values if limit is None else values[:limit]):
+        if v is None:
+            continue
+        e = scheme.expect(i, src)
+        if e is None:
+            continue
+        total += 1
+        hits += e == v
+    return hits / total if total else 0.0
+
+
+class ConstantScheme(Scheme):
+    """Every line holds the same value."""
+
+    kind = "constant"
+    chained = False
+
+    def __init__(self, column, frame, value):
+        super().__init__(column, frame)
+        self.value = value
+
+    def expect(self, i, src):
+        return self.value
+
+    def params(self):
+        return {"value": value_text(self.frame.fraction(self.value))}
+
+    def describe(self):
+        return f"constant {sexagesimal_text(self.frame.fraction(self.value))}"
+
+    @classmethod
+    def fit(cls, column, frame):
+        values = [v for v in frame.written[column] if v is not None]
+        if len(values) < 3:
+            return None
+        v, n = mode(values)
+        return cls(column, frame, v) if n * 2 > len(values) else None
+
+
+class LinearScheme(Scheme):
+    """A constant difference d per line (modulo 360° for a longitude)."""
+
+    kind = "linear"
+
+    def __init__(self, column, frame, d):
+        super().__init__(column, frame)
+        self.d = d
+
+    def step(self, state, i, src):
+        return (self._norm(state[0] + self.d), None)
+
+    def back(self, state, i, src):
+        return (self._norm(state[0] - self.d), None)
+
+    def start(self, value, i, nxt, src):
+        return (value, None) if self._norm(value + self.d) == nxt else None
+
+    def params(self):
+        out = {"d": value_text(self.frame.fraction(self.d))}
+        if self.modulus:
+            out["modulus"] = value_text(self.frame.fraction(self.modulus))
+        return out
+
+    def describe(self):
+        return f"constant difference {sexagesimal_text(self.frame.fraction(self.d))} per line"
+
+    @classmethod
+    def fit(cls, column, frame):
+        ds = [d for _, d in diffs(frame.written[column], frame.modulus.get(column))]
+        if len(ds) < 2:
+            return None
+        d, n = mode(ds)
+        if not d or n * 2 <= len(ds):
+            return None
+        return cls(column, frame, d)
+
+
+def lcm_all(numbers) -> int:
+    out = 1
+    for n in numbers:
+        out = out * n // math.gcd(out, n)
+    return out

@@ -1,0 +1,340 @@
+"""Scribal-slip models: what kind of slip turns the value due into the value written.
+
+The audit finds *that* a cell breaks its scheme; this module says *how* the
+scribe most likely went wrong, by the numerical signature of each class of
+slip (schemes-and-slips.md §2.2, after Neugebauer's distinction of carried,
+copying and scheme errors): one wedge or letter too many or too few in one
+place, a place value shifted, two places merged, a neighbour copied, a carry
+dropped, a sign not advanced ...  The test is exact: a signature either fits
+the pair (written, expected) or it does not.  The result is a suggestion for
+the editor, not a reading.
+
+It also writes a value back *as the scribe would have written it*, in the
+cell's own notation and number of places, so that ``expected`` can stand in
+the cell.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+from fractions import Fraction
+
+from .reading import sexagesimal_text
+
+__all__ = ["KINDS", "Diagnosis", "classify", "digits_of", "mantissa", "write_value"]
+
+#: The flag kinds of DESIGN.md, in the order they are tried.
+KINDS = (
+    "unit-slip", "ten-slip", "place-shift", "merged-places", "split-place", "dropped-zero",
+    "copied-neighbour", "carry", "turning-point", "zone-boundary", "sign-error",
+    "letter-confusion", "intermediate-value", "carried-forward", "unexplained",
+)
+
+_BASE = 60
+
+
+@dataclass(frozen=True)
+class Diagnosis:
+    """The kind of a slip and a one-line reason for it."""
+
+    kind: str
+    reason: str
+
+
+def mantissa(value: Fraction) -> Fraction | None:
+    """A floating value with its magnitude removed: no trailing empty places.
+
+    Returns None for a value that does not end in base 60 (1/7).
+
+    >>> mantissa(Fraction(1, 2)), mantissa(Fraction(216000))
+    (Fraction(30, 1), Fraction(1, 1))
+    """
+    value = Fraction(value)
+    if value == 0:
+        return Fraction(0)
+    sign = -1 if value < 0 else 1
+    value = abs(value)
+    for _ in range(40):
+        if value.denominator == 1:
+            break
+        value *= _BASE
+    else:
+        return None
+    n = value.numerator
+    while n % _BASE == 0:
+        n //= _BASE
+    return Fraction(sign * n)
+
+
+def digits_of(value: Fraction, places: int) -> tuple[list[int], int] | None:
+    """The sexagesimal places of |value| with *places* fractional places.
+
+    Returns (digits, number of whole places), or None when the value does not
+    end within those places.
+
+    >>> digits_of(Fraction(3606, 60), 1)
+    ([1, 0, 6], 2)
+    """
+    value = abs(Fraction(value))
+    scaled = value * _BASE ** places
+    if scaled.denominator != 1:
+        return None
+    n = scaled.numerator
+    digits: list[int] = []
+    for _ in range(places):
+        n, d = divmod(n, _BASE)
+        digits.append(d)
+    whole = []
+    while True:
+        n, d = divmod(n, _BASE)
+        whole.append(d)
+        if not n:
+            break
+    return list(reversed(whole)) + list(reversed(digits)), len(whole)
+
+
+def _needed_places(value: Fraction, most: int = 12) -> int | None:
+    value = abs(Fraction(value))
+    for p in range(most + 1):
+        if (value * _BASE ** p).denominator == 1:
+            return p
+    return None
+
+
+def write_value(value: Fraction, *, notation: str = "sexagesimal", places: int = 0,
+                floating: bool = False, sign_name: str | None = None, longitude: bool = False) -> str:
+    """Write *value* as the scribe would: in the cell's notation, with its places.
+
+    Sexagesimal values get at least *places* fractional places (final zeros
+    kept, as the cell wrote them); a floating (cuneiform) value is written
+    without magnitude; a longitude as degrees within its sign.
+
+    >>> write_value(Fraction(1, 2), places=2)
+    '0;30,0'
+    >>> write_value(Fraction(206, 1), longitude=True, sign_name="Libra")
+    '26 Libra'
+    """
+    value = Fraction(value)
+    if longitude:
+        from .units import ZODIAC, zodiac_index
+        value = value % 360
+        index = int(value // 30)
+        degrees = value - 30 * index
+        name = ZODIAC[index]
+        if sign_name is not None:
+            try:
+                if zodiac_index(sign_name) == index:
+                    name = sign_name
+            except ValueError:
+                pass
+        return f"{write_value(degrees, notation=notation, places=places)} {name}"
+    if notation not in ("sexagesimal", "cuneiform"):
+        text = _other_notation(value, notation, places)
+        if text is not None:
+            return text
+    if floating:
+        m = mantissa(value)
+        if m is None:
+            return sexagesimal_text(value, fixed=False)
+        return ",".join(str(d) for d in digits_of(m, 0)[0])
+    text = sexagesimal_text(value)
+    written = text.split(";")[1].count(",") + 1 if ";" in text else 0
+    if written < places and not text.endswith("..."):
+        text += (";" if written == 0 else ",") + ",".join(["0"] * (places - written))
+    return text
+
+
+def _other_notation(value: Fraction, notation: str, places: int) -> str | None:
+    # A notation module may offer ``format_value(value, places=...)``; the
+    # ones that do write the value in their own signs.
+    try:
+        from .notations import notation_module
+        mod = notation_module(notation)
+    except Exception:
+        return None
+    fmt = getattr(mod, "format_value", None)
+    if fmt is None:
+        return None
+    try:
+        return fmt(value, places=places)
+    except Exception:
+        return None
+
+
+def _aligned(value: Fraction, places: int, floating: bool) -> dict[int, int] | None:
+    """Place exponent -> digit, for comparing two values place by place."""
+    if floating:
+        m = mantissa(value)
+        if m is None:
+            return None
+        digits, whole = digits_of(m, 0)
+        return {whole - 1 - i: d for i, d in enumerate(digits)}
+    got = digits_of(value, places)
+    if got is None:
+        return None
+    digits, whole = got
+    return {whole - 1 - i: d for i, d in enumerate(digits)}
+
+
+def _sequence(value: Fraction, places: int, floating: bool) -> list[int] | None:
+    if floating:
+        m = mantissa(value)
+        return None if m is None else digits_of(m, 0)[0]
+    got = digits_of(value, places)
+    return None if got is None else got[0]
+
+
+def classify(written: Fraction, expected: Fraction, *, places: int = 0, floating: bool = False,
+             notation: str = "sexagesimal", longitude: bool = False,
+             prev: Fraction | None = None, neighbours: tuple[Fraction | None, ...] = (),
+             special: Diagnosis | None = None, written_digits: list[int] | None = None) -> Diagnosis:
+    """Name the slip that turns *expected* into *written*, by its signature.
+
+    *places* is the number of fractional places of the cell; *prev* the value
+    the scribe computed from (the line before, for a carry); *neighbours* the
+    values around the cell (the lines above and below, the cells beside it);
+    *special* a scheme's own diagnosis (a missed turn, a zone boundary), which
+    wins when given.  ``unexplained`` when no signature fits.
+
+    >>> classify(Fraction(1801, 60), Fraction(1800, 60), places=1).kind
+    'unit-slip'
+    """
+    written, expected = Fraction(written), Fraction(expected)
+    if special is not None:
+        return special
+    diff = written - expected
+    if longitude and diff % 360 in (30, 330):
+        sign = "+" if diff % 360 == 30 else "-"
+        return Diagnosis("sign-error", f"off by {sign}30°: the sign was not advanced or advanced wrongly")
+    places = max(places, _needed_places(expected) or 0, _needed_places(written) or 0)
+    w = _aligned(written, places, floating)
+    e = _aligned(expected, places, floating)
+    if w is not None and e is not None and not floating or (floating and w and e and len(w) == len(e)):
+        one = _one_place(w, e)
+        if one is not None:
+            k, dw = one
+            what = _place_label(k, floating)
+            if prev is not None and abs(dw) == 1 and not floating:
+                carry = _carry_kind(prev, expected, written, k)
+                if carry is not None:
+                    return carry
+            if abs(dw) == 1:
+                return Diagnosis("unit-slip", f"one unit wedge {'too many' if dw > 0 else 'too few'} in {what}")
+            if abs(dw) == 10:
+                return Diagnosis("ten-slip", f"one ten-corner {'too many' if dw > 0 else 'too few'} in {what}")
+            if notation not in ("sexagesimal", "cuneiform"):
+                alt = _letter(notation, w[k], e[k])
+                if alt is not None:
+                    return alt
+        elif prev is not None and not floating:
+            carry = _carry_kind(prev, expected, written, None)
+            if carry is not None:
+                return carry
+    if not floating and expected != 0 and written in (expected * _BASE, expected / _BASE):
+        return Diagnosis("place-shift", "the value is written one place off (×60 or ÷60)")
+    ws = written_digits if written_digits is not None else _sequence(written, places, floating)
+    for es in _expected_sequences(expected, places, floating):
+        if ws is None or es is None:
+            continue
+        shape = _shape(ws, es)
+        if shape is not None:
+            return shape
+    for n in neighbours:
+        if n is not None and n == written:
+            return Diagnosis("copied-neighbour", "the value of a neighbouring cell was copied")
+    if notation not in ("sexagesimal", "cuneiform"):
+        alt = _letter(notation, written, expected)
+        if alt is not None:
+            return alt
+    if expected != 0 and written in (2 * expected, expected / 2, expected * expected):
+        what = {2 * expected: "the double", expected / 2: "the half",
+                expected * expected: "the square"}[written]
+        return Diagnosis("intermediate-value", f"{what} of the value due (a worksheet value copied)")
+    return Diagnosis("unexplained", "no known slip turns the value due into the one written")
+
+
+def _place_label(k: int, floating: bool) -> str:
+    if floating:
+        return f"place {k}" if k else "the last place"
+    if k == 0:
+        return "the units place"
+    if k > 0:
+        return f"the place 60^{k}"
+    return {-1: "the first fractional place", -2: "the second fractional place",
+            -3: "the third fractional place"}.get(k, f"the place 60^{k}")
+
+
+def _one_place(w: dict[int, int], e: dict[int, int]) -> tuple[int, int] | None:
+    keys = set(w) | set(e)
+    differ = [k for k in keys if w.get(k, 0) != e.get(k, 0)]
+    if len(differ) != 1:
+        return None
+    k = differ[0]
+    return k, w.get(k, 0) - e.get(k, 0)
+
+
+def _carry_kind(prev: Fraction, expected: Fraction, written: Fraction, k: int | None) -> Diagnosis | None:
+    """A carry dropped or doubled: ±1 in one place where the sum carried into it."""
+    diff = written - expected
+    step = expected - prev
+    for place in ([k] if k is not None else range(-8, 4)):
+        unit = Fraction(_BASE) ** place
+        if abs(diff) != unit:
+            continue
+        if step > 0:
+            carried = (prev % unit) + (step % unit) >= unit
+            if carried and diff < 0:
+                return Diagnosis("carry", f"the carry into {_place_label(place, False)} was dropped")
+            if carried and diff > 0:
+                return Diagnosis("carry", f"the carry into {_place_label(place, False)} was added twice")
+        elif step < 0:
+            borrowed = (prev % unit) < ((-step) % unit)
+            if borrowed and diff > 0:
+                return Diagnosis("carry", f"the borrow from {_place_label(place, False)} was dropped")
+            if borrowed and diff < 0:
+                return Diagnosis("carry", f"the borrow from {_place_label(place, False)} was taken twice")
+    return None
+
+
+def _expected_sequences(expected, places, floating):
+    seen = []
+    for p in ([places] if floating else [_needed_places(expected) or places, places]):
+        s = _sequence(expected, p, floating)
+        if s is not None and s not in seen:
+            seen.append(s)
+    return seen
+
+
+def _shape(ws: list[int], es: list[int]) -> Diagnosis | None:
+    """Merged, split or dropped/inserted empty places, from the digit strings."""
+    if len(ws) == len(es) - 1:
+        for i in range(len(es) - 1):
+            if ws == es[:i] + [es[i] + es[i + 1]] + es[i + 2:] and es[i] and es[i + 1]:
+                return Diagnosis("merged-places", f"the places {es[i]} and {es[i + 1]} were written "
+                                                  f"as one place {es[i] + es[i + 1]}")
+        for i in range(1, len(es) - 1):
+            if es[i] == 0 and ws == es[:i] + es[i + 1:]:
+                return Diagnosis("dropped-zero", "an empty (zero) place inside the number was left out")
+    if len(ws) == len(es) + 1:
+        for i in range(len(ws) - 1):
+            if es == ws[:i] + [ws[i] + ws[i + 1]] + ws[i + 2:] and ws[i] and ws[i + 1]:
+                return Diagnosis("split-place", f"the place {es[i]} was split into two places "
+                                                f"{ws[i]} and {ws[i + 1]}")
+        for i in range(1, len(ws) - 1):
+            if ws[i] == 0 and es == ws[:i] + ws[i + 1:]:
+                return Diagnosis("dropped-zero", "an empty (zero) place was inserted inside the number")
+    return None
+
+
+def _letter(notation: str, written, expected) -> Diagnosis | None:
+    try:
+        from .confusions import letter_confusion
+    except ImportError:
+        return None
+    try:
+        alt = letter_confusion(notation, written, expected)
+    except Exception:
+        return None
+    if alt is None:
+        return None
+    return Diagnosis("letter-confusion", alt.reason)
