@@ -1,0 +1,312 @@
+"""What is this number?  Compare a reading with every number of the catalogue.
+
+For each power of 60 a floating reading may stand at (only the written
+scale for a fixed one), every catalogue item times a simple factor, and
+every period times a whole multiple, that lies near the reading is checked
+exactly and classed:
+
+* ``exact``      the reading equals it;
+* ``truncated``  the reading is it cut at the last written place (texts truncate);
+* ``rounded``    the reading is it rounded at the last written place;
+* ``damage``     it lies within what the damaged reading allows;
+* ``near``       within one unit of the last written place, or (for the
+  catalogue number itself, factor 1) within 1e-5 relative: how close good
+  ancient periods come to modern ones.
+
+Ranking follows the historian's order of preference: exact before near,
+simpler factor before complex, smaller residual first.  The residual is in
+units of the last written place.  Matches are suggestions for the editor's
+judgement, not readings.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass, field
+from fractions import Fraction
+
+from ..errors import NumcheckError
+from ..reading import Reading, decimal_text, exact_text, sexagesimal_text
+from ..units import canonical_unit
+from . import targets as _t
+
+__all__ = ["Match", "IdentifyResult", "identify", "CLASSES", "NEAR_ULPS", "NEAR_RELATIVE", "SCALES"]
+
+#: The classes of a match, best first, with the score band each occupies.
+CLASSES = {"exact": (0.9, 1.0), "truncated": (0.6, 0.9), "rounded": (0.6, 0.9),
+           "damage": (0.6, 0.9), "near": (0.0, 0.6)}
+_RANK = {"exact": 0, "truncated": 1, "rounded": 1, "damage": 1, "near": 2}
+#: A near match lies within this many units of the last written place ...
+NEAR_ULPS = 1
+#: ... or within this relative distance (good ancient periods are within ~1e-5 of modern ones).
+NEAR_RELATIVE = Fraction(1, 100_000)
+#: Powers of 60 tried for a floating reading.
+SCALES = range(-6, 7)
+
+
+@dataclass(frozen=True)
+class Match:
+    """One way the reading fits the catalogue."""
+
+    id: str
+    statement: str
+    factor: Fraction
+    scale: int
+    unit: str | None
+    residual: Fraction          # reading minus target, in units of the last written place
+    score: float
+    how: str                    # a key of CLASSES
+    target: Fraction            # the catalogue number times the factor, in ``unit``, at the reading's scale
+    label: str
+    convention: str | None
+    tradition: str
+    body: str
+    confidence: str
+    source: str
+    explanation: str
+
+    def to_dict(self) -> dict:
+        return {
+            "id": self.id,
+            "statement": self.statement,
+            "factor": exact_text(self.factor),
+            "scale": self.scale,
+            "unit": self.unit,
+            "residual": exact_text(self.residual),
+            "residual_decimal": float(self.residual),
+            "score": round(self.score, 6),
+            "match": self.how,
+            "target": exact_text(self.target),
+            "target_sexagesimal": sexagesimal_text(self.target, max_places=8),
+            "side": self.label,
+            "convention": self.convention,
+            "tradition": self.tradition,
+            "body": self.body,
+            "confidence": self.confidence,
+            "source": self.source,
+            "explanation": self.explanation,
+        }
+
+
+@dataclass(frozen=True)
+class IdentifyResult:
+    """The ranked matches of one reading, or the nearest entries when none fits."""
+
+    reading: Reading
+    unit: str | None
+    matches: tuple[Match, ...]
+    nearest: tuple[dict, ...] = field(default=())
+    considered: int = 0
+
+    @property
+    def found(self) -> bool:
+        return bool(self.matches)
+
+    @property
+    def summary(self) -> str:
+        if self.matches:
+            best = self.matches[0]
+            return (f"{len(self.matches)} match(es); best: {best.explanation} "
+                    "(a suggestion for the editor's judgement, not a reading)")
+        if self.nearest:
+            n = self.nearest[0]
+            return (f"No catalogue number fits {self.reading.text!r} within the tolerance; the nearest is "
+                    f"{n['id']} ({n['statement']}), {n['relative']} away.")
+        return f"No catalogue number fits {self.reading.text!r}."
+
+    def to_dict(self) -> dict:
+        r = self.reading
+        return {
+            "text": r.text,
+            "notation": r.notation,
+            "value": exact_text(r.value),
+            "sexagesimal": sexagesimal_text(r.value, fixed=not r.floating),
+            "floating": r.floating,
+            "unit": self.unit,
+            "last_place": r.last_place,
+            "matches": [m.to_dict() for m in self.matches],
+            "nearest": list(self.nearest),
+            "considered": self.considered,
+            "summary": self.summary,
+        }
+
+
+def _classify(reading: Reading, v: Fraction, target: Fraction, ulp: Fraction, tol: Fraction) -> str | None:
+    diff = v - target
+    if diff == 0:
+        return "exact"
+    if -ulp < diff < 0:
+        return "truncated"
+    if 2 * abs(diff) <= ulp:
+        return "rounded"
+    if reading.damaged and reading.min <= target <= reading.max:
+        return "damage"
+    if abs(diff) <= tol:
+        return "near"
+    return None
+
+
+def _score(how: str, complexity: int, closeness: float) -> float:
+    """A score that sorts like the rank: class band, then factor, then residual.
+
+    Within the band, 1/c for complexity c, less a residual term smaller than
+    the gap to 1/(c + 1), so a simpler factor always scores higher.
+    """
+    lo, hi = CLASSES[how]
+    c = complexity
+    s = 1.0 / c - min(max(closeness, 0.0), 0.999) / (c * (c + 1))
+    return lo + (hi - lo) * s
+
+
+def _factor_text(factor: Fraction) -> str:
+    if factor == 1:
+        return ""
+    if factor.numerator == 1:
+        return f"1/{factor.denominator} of "
+    return f"{exact_text(factor)} × "
+
+
+def _explain(reading: Reading, m_how: str, factor: Fraction, item: _t.Item, scale: int,
+             residual: Fraction, rel: float, convention: str | None, unit_shown: str) -> str:
+    shown = sexagesimal_text(reading.value * Fraction(60) ** scale,
+                             fixed=True, max_places=8) if reading.floating else reading.text
+    what = f"{_factor_text(factor)}{_t.number_text(item.value)} {item.unit}"
+    where = (f"{item.label} of {item.entry.id}" if item.label != "the value"
+             else f"{item.entry.id}")
+    how = {
+        "exact": "exact",
+        "truncated": "the catalogue value cut at the last written place (texts truncate)",
+        "rounded": "the catalogue value rounded at the last written place",
+        "damage": "within what the damage allows",
+        "near": f"off by {float(residual):+.3g} in the last written place ({rel:.1e} relative)",
+    }[m_how]
+    scale_text = f" read at 60^{scale}" if scale else ""
+    conv = f", converted to {unit_shown} with the {convention} convention" if convention else ""
+    return f"{shown}{scale_text} = {what} ({where}{conv}): {how}"
+
+
+def _scales(reading: Reading) -> range:
+    return SCALES if reading.floating else range(0, 1)
+
+
+def identify(reading_or_text, *, notation: str | None = None, unit: str | None = None,
+             top: int = 10) -> IdentifyResult:
+    """Which period, parameter or relation (or simple multiple or part of one) is this number?
+
+    *reading_or_text* is a :class:`~numcheck.reading.Reading` or a text read
+    with :func:`numcheck.read` (``notation`` as there).  With *unit* (or a
+    unit the text itself carries) only catalogue numbers convertible to it
+    are compared; without one, every number in its own unit.
+
+    >>> identify("1,49,45;20", unit="days").matches[0].id
+    'saros_almagest'
+    """
+    from ..reader import read
+
+    if top < 1:
+        raise NumcheckError(f"--top must be at least 1, got {top}.")
+    reading = reading_or_text if isinstance(reading_or_text, Reading) else read(
+        reading_or_text, notation=notation, unit=unit)
+    unit = unit if unit is not None else reading.unit
+    unit = canonical_unit(unit) if unit is not None else None
+    tab = _t.table(unit)
+    value = reading.value
+    if value <= 0:
+        return IdentifyResult(reading, unit, (), (), 0)
+    lo_r, hi_r = (reading.min, reading.max) if reading.damaged else (value, value)
+    found: dict[tuple, tuple] = {}
+    considered = 0
+    for scale in _scales(reading):
+        p = Fraction(60) ** scale
+        v, ulp = value * p, reading.ulp * p
+        tol = max(NEAR_ULPS * ulp, NEAR_RELATIVE * v)
+        lo = float(min(v - tol, lo_r * p)) * (1 - 1e-12)
+        hi = float(max(v + tol, hi_r * p + ulp)) * (1 + 1e-12)
+        for idx, factor in _t.candidates(tab, lo, hi):
+            considered += 1
+            item = tab.items[idx]
+            target = item.value * tab.factors[idx] * factor
+            # The relative tolerance compares values of different traditions;
+            # with a factor it would let almost any long number "match".
+            how = _classify(_scaled(reading, p), v, target, ulp, tol if factor == 1 else NEAR_ULPS * ulp)
+            if how is None:
+                continue
+            key = (item.entry.id, item.value, item.unit, factor, scale)
+            residual = (v - target) / ulp
+            rank = (_RANK[how], _t.factor_complexity(factor), abs(residual),
+                    -_t.CONFIDENCE_WEIGHT.get(item.entry.confidence, 0.5), abs(scale))
+            if key not in found or rank < found[key][0]:
+                found[key] = (rank, how, item, idx, factor, scale, target, residual, v)
+    ranked = sorted(found.values(), key=lambda t: t[0])[:top]
+    matches = tuple(_match(reading, tab, *row[1:]) for row in ranked)
+    nearest = () if matches else _nearest(reading, tab)
+    return IdentifyResult(reading, unit, matches, nearest, considered)
+
+
+def _scaled(reading: Reading, p: Fraction) -> "_Scaled":
+    return _Scaled(reading.damaged, reading.min * p, reading.max * p)
+
+
+@dataclass(frozen=True)
+class _Scaled:
+    damaged: bool
+    min: Fraction
+    max: Fraction
+
+
+def _match(reading, tab, how, item, idx, factor, scale, target, residual, v) -> Match:
+    unit_shown = tab.unit if tab.unit is not None else item.unit
+    if tab.unit is not None:
+        unit_shown = tab.unit + item.per
+    rel = float(abs(v - target) / target) if target else 0.0
+    closeness = float(abs(residual)) if how != "near" else float(abs(v - target) /
+                                                                  max(NEAR_ULPS * reading.ulp * Fraction(60) ** scale,
+                                                                      NEAR_RELATIVE * v))
+    score = _score(how, _t.factor_complexity(factor), closeness)
+    convention = tab.conventions[idx]
+    e = item.entry
+    return Match(
+        id=e.id, statement=e.statement, factor=factor, scale=scale, unit=unit_shown,
+        residual=residual, score=score, how=how, target=target / Fraction(60) ** scale, label=item.label,
+        convention=convention, tradition=e.tradition, body=e.body, confidence=e.confidence,
+        source=e.source,
+        explanation=_explain(reading, how, factor, item, scale, residual, rel, convention, unit_shown),
+    )
+
+
+def _nearest(reading: Reading, tab: _t.Table, count: int = 5) -> tuple[dict, ...]:
+    """The catalogue numbers (factor 1) closest to the reading, and how far they are."""
+    import numpy as np
+
+    value = float(reading.value)
+    if not len(tab.values):
+        return ()
+    best = []
+    for scale in _scales(reading):
+        v = value * 60.0 ** scale
+        rel = np.abs(tab.values - v) / tab.values
+        for i in np.argsort(rel)[:count]:
+            best.append((float(rel[i]), int(i), scale))
+    best.sort()
+    out, seen = [], set()
+    for rel, i, scale in best:
+        item = tab.items[i]
+        if item.entry.id in seen:
+            continue
+        seen.add(item.entry.id)
+        target = item.value * tab.factors[i]
+        diff = reading.value * Fraction(60) ** scale - target
+        out.append({
+            "id": item.entry.id,
+            "statement": item.entry.statement,
+            "value": exact_text(target),
+            "decimal": decimal_text(target, 9),
+            "unit": (tab.unit + item.per) if tab.unit else item.unit,
+            "scale": scale,
+            "difference": decimal_text(diff, 9),
+            "residual": float(diff / (reading.ulp * Fraction(60) ** scale)),
+            "relative": f"{rel:.2%}" if rel >= 1e-4 else f"{rel:.1e}",
+        })
+        if len(out) == count:
+            break
+    return tuple(out)

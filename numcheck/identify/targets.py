@@ -1,0 +1,307 @@
+"""The numbers a catalogue row offers for comparison, and fast lookup among them.
+
+A row offers its value; a relation offers every side (and every term of a
+side written as a sum, like ``241 sidereal months + 10 2/3 degrees``); a
+parameter offers its other sides (``1440 minutes`` a day).  Each of these
+*items* may be met in a text as a simple multiple or part (n/m with small n,
+m) and, for periods, as a whole multiple up to a few thousand (235 months,
+4267 months).
+
+For speed, items times simple factors are kept as one sorted numpy array
+per unit (built once, cached), so a lookup is a binary search; whole
+multiples are found by rounding value/period for all periods at once.  The
+floats only select candidates: every candidate is then checked exactly.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+from fractions import Fraction
+from functools import lru_cache
+
+import numpy as np
+
+from .. import catalogue
+from .. import limits
+from ..errors import NumcheckError
+from ..statements import side_unit_key
+from ..units import UNITS, canonical_unit, convert
+
+__all__ = ["Item", "Table", "Target", "number_text", "table", "catalogue_targets", "candidates", "simple_factors",
+           "factor_complexity", "factor_weight",
+           "CONFIDENCE_WEIGHT"]
+
+#: How much a match is believed before its closeness is known, by the row's confidence.
+CONFIDENCE_WEIGHT = {"published": 1.0, "common practice": 0.9, "from memory": 0.75}
+
+
+@dataclass(frozen=True)
+class Item:
+    """One number a catalogue row offers, in its own unit."""
+
+    value: Fraction
+    unit: str                 # as displayed: "days", "anomalistic months", "degrees per day"
+    unit_key: str | None      # the numcheck.units name of the numerator, when it has one
+    per: str                  # "" or " per day" for rates
+    entry: catalogue.Entry
+    label: str                # which number of the row: "the value", "a side: 239 anomalistic months"
+    multiples: bool           # whole multiples up to a few thousand are tried (periods)
+
+
+def number_text(value: Fraction) -> str:
+    """A catalogue number as historians write it: whole part in decimal, fraction sexagesimal.
+
+    >>> number_text(Fraction(19756, 3)), number_text(Fraction(223))
+    ('6585;20', '223')
+    """
+    from ..reading import sexagesimal_text
+
+    whole = value.numerator // value.denominator
+    if value == whole:
+        return str(whole)
+    frac = sexagesimal_text(value - whole, max_places=8)
+    return f"{whole};{frac.split(';', 1)[1]}"
+
+
+def simple_factors() -> tuple[Fraction, ...]:
+    """n/m with 1 <= n, m <= IDENTIFY_MAX_SIMPLE, reduced, ascending."""
+    top = limits.IDENTIFY_MAX_SIMPLE
+    return tuple(sorted({Fraction(n, m) for n in range(1, top + 1) for m in range(1, top + 1)}))
+
+
+def factor_complexity(factor: Fraction) -> int:
+    """How complex a factor is: n + m - 1 for n/m (1 for the value itself).
+
+    >>> factor_complexity(Fraction(1)), factor_complexity(Fraction(2)), factor_complexity(Fraction(3, 2))
+    (1, 2, 4)
+    """
+    return factor.numerator + factor.denominator - 1
+
+
+def factor_weight(factor: Fraction) -> float:
+    """Prior weight of a factor in (0, 1]: 1 for the value itself, less for complex factors."""
+    return 1.0 / (1.0 + math.log(factor.numerator * factor.denominator))
+
+
+def _split_unit(unit: str) -> tuple[str, str]:
+    head, sep, tail = unit.partition(" per ")
+    return head, (f" per {tail}" if sep else "")
+
+
+def _unit_key(unit: str) -> str | None:
+    head, _ = _split_unit(unit)
+    if head.startswith("degrees of "):
+        head = "degrees"
+    key = side_unit_key(head)
+    if key is not None:
+        return key
+    try:
+        return canonical_unit(head)
+    except NumcheckError:
+        return None
+
+
+def _items_of(entry: catalogue.Entry) -> list[Item]:
+    items: list[Item] = []
+    seen: set[tuple[Fraction, str]] = set()
+
+    def add(value: Fraction, unit: str, label: str, multiples: bool = False) -> None:
+        if value <= 0 or value == 1 or (value, unit) in seen:
+            return
+        seen.add((value, unit))
+        head, per = _split_unit(unit)
+        items.append(Item(value, unit, _unit_key(unit), per, entry, label, multiples))
+
+    # Whole multiples of a period make sense for a measured length (29;31,50,8,20
+    # days, 365 days), not for a small schematic count (Eudoxus' 2 years).
+    measured = entry.value.denominator != 1 or (entry.unit == "days" and entry.value >= 360)
+    add(entry.value, entry.unit, "the value", multiples=entry.kind == "period" and measured)
+    if entry.kind == "period":
+        return items
+    for side in entry.sides:
+        if entry.kind == "parameter" and side.single and side.single.number == 1:
+            continue
+        if side.single is not None:
+            term = side.single
+            unit = term.unit
+            if entry.kind == "parameter":
+                unit = entry.unit.split(" per ")[0] if term.unit.startswith("degrees of") else term.unit
+                unit += _split_unit(entry.unit)[1]
+            add(term.number, unit, f"a side: {side.text}")
+            continue
+        for term in side.terms:
+            add(term.number, term.unit, f"a term of the side '{side.text}'")
+        total = _side_total(side)
+        if total is not None:
+            add(total, "days", f"the side '{side.text}' in days")
+    return items
+
+
+def _side_total(side) -> Fraction | None:
+    """A side written as a sum of units of time, in days (None when it mixes kinds)."""
+    total = Fraction(0)
+    for term in side.terms:
+        key = side_unit_key(term.unit)
+        if key is None or UNITS[key].dimension != "time":
+            return None
+        total += term.sign * convert(term.number, key, "days").value
+    return total
+
+
+@lru_cache(maxsize=1)
+def all_items() -> tuple[Item, ...]:
+    """Every item of every catalogue row."""
+    return tuple(item for entry in catalogue.entries() for item in _items_of(entry))
+
+
+@dataclass(frozen=True)
+class Table:
+    """Items expressed in one unit, with sorted float arrays for lookup.
+
+    ``factors[i]`` converts item ``items[i]`` into the table's unit exactly
+    (1 when the table has no unit); ``conventions[i]`` names the convention
+    that conversion needed, if any.
+    """
+
+    unit: str | None
+    items: tuple[Item, ...]
+    factors: tuple[Fraction, ...]
+    conventions: tuple[str | None, ...]
+    values: np.ndarray          # float value of each item in the unit
+    simple: tuple[Fraction, ...]
+    sorted_values: np.ndarray   # item value x simple factor, ascending
+    sorted_item: np.ndarray     # item index of each sorted value
+    sorted_factor: np.ndarray   # simple-factor index of each sorted value
+    period_index: np.ndarray    # items that take whole multiples
+    period_values: np.ndarray
+
+
+def _convertible(item: Item, unit: str) -> tuple[Fraction, str | None] | None:
+    if item.unit_key is None:
+        return None
+    src, dst = UNITS[item.unit_key], UNITS[unit]
+    if src.dimension != dst.dimension:
+        # A count of years or months is a length of time only through a
+        # convention; allow it for periods and sides, never for rates.
+        if item.per or "arc" in (src.dimension, dst.dimension):
+            return None
+    try:
+        out = convert(1, item.unit_key, unit)
+    except NumcheckError:
+        return None
+    return out.value, out.convention
+
+
+@lru_cache(maxsize=64)
+def table(unit: str | None) -> Table:
+    """The lookup table for one unit (``None``: each item in its own unit)."""
+    if unit is not None:
+        unit = canonical_unit(unit)
+    items, factors, conventions = [], [], []
+    for item in all_items():
+        if unit is None:
+            items.append(item)
+            factors.append(Fraction(1))
+            conventions.append(None)
+            continue
+        conv = _convertible(item, unit)
+        if conv is not None:
+            items.append(item)
+            factors.append(conv[0])
+            conventions.append(conv[1])
+    values = np.array([float(i.value * f) for i, f in zip(items, factors)], dtype=float)
+    simple = simple_factors()
+    fvals = np.array([float(f) for f in simple], dtype=float)
+    grid = np.outer(values, fvals).ravel()
+    order = np.argsort(grid, kind="stable")
+    n_f = len(simple)
+    period_index = np.array([k for k, i in enumerate(items) if i.multiples], dtype=np.int64)
+    return Table(
+        unit=unit, items=tuple(items), factors=tuple(factors), conventions=tuple(conventions),
+        values=values, simple=simple, sorted_values=grid[order],
+        sorted_item=(order // n_f).astype(np.int64), sorted_factor=(order % n_f).astype(np.int64),
+        period_index=period_index, period_values=values[period_index] if len(period_index) else values[:0],
+    )
+
+
+def candidates(tab: Table, lo: float, hi: float) -> list[tuple[int, Fraction]]:
+    """(item index, factor) for every item x factor whose float lies in [lo, hi].
+
+    Simple factors by binary search; whole multiples (13 .. IDENTIFY_MAX_MULTIPLE)
+    of periods by rounding, all periods at once.
+    """
+    out: list[tuple[int, Fraction]] = []
+    a = int(np.searchsorted(tab.sorted_values, lo, side="left"))
+    b = int(np.searchsorted(tab.sorted_values, hi, side="right"))
+    for k in range(a, b):
+        out.append((int(tab.sorted_item[k]), tab.simple[int(tab.sorted_factor[k])]))
+    if len(tab.period_values) and hi > 0:
+        pv = tab.period_values
+        first = np.maximum(np.ceil(lo / pv), limits.IDENTIFY_MAX_SIMPLE + 1)
+        last = np.minimum(np.floor(hi / pv), limits.IDENTIFY_MAX_MULTIPLE)
+        for j in np.nonzero(last >= first)[0]:
+            for n in range(int(first[j]), int(last[j]) + 1):
+                out.append((int(tab.period_index[j]), Fraction(n)))
+    return out
+
+
+@dataclass(frozen=True)
+class Target:
+    """A number the catalogue expects: a catalogue value times a simple factor.
+
+    ``value`` is in ``unit`` and, for a floating reading, already divided by
+    ``60 ** scale`` so that it compares directly with the reading as written.
+    ``weight`` is the prior belief in this target, in (0, 1]: higher for a
+    simpler factor and a published source.
+    """
+
+    value: Fraction
+    unit: str | None
+    id: str
+    statement: str
+    factor: Fraction
+    scale: int
+    weight: float
+
+
+def catalogue_targets(lo, hi, unit: str | None = None, *, floating: bool = False) -> list[Target]:
+    """Every catalogue value x simple factor (or period x whole multiple) in [lo, hi].
+
+    With *unit*, catalogue numbers convertible to it are converted exactly
+    (months and years with the default conventions); without, each number
+    counts in its own unit.  With ``floating=True`` the magnitude is free:
+    a target ``t`` is returned as ``t / 60**scale`` for every scale that
+    brings it into [lo, hi].  Sorted by value; at most
+    ``limits.IDENTIFY_MAX_TARGETS`` (the highest weights are kept).
+
+    >>> [t.id for t in catalogue_targets(6585, 6586, "days") if t.factor == 1][:1]
+    ['saros_almagest']
+    """
+    lo, hi = Fraction(lo), Fraction(hi)
+    if hi < lo:
+        lo, hi = hi, lo
+    tab = table(unit)
+    out: list[Target] = []
+    scales = range(-6, 7) if floating else range(0, 1)
+    for scale in scales:
+        p = Fraction(60) ** scale
+        if hi * p <= 0:
+            continue
+        flo, fhi = float(lo * p) * (1 - 1e-12), float(hi * p) * (1 + 1e-12)
+        for idx, factor in candidates(tab, flo, fhi):
+            item = tab.items[idx]
+            value = item.value * tab.factors[idx] * factor / p
+            if not lo <= value <= hi:
+                continue
+            out.append(Target(
+                value=value,
+                unit=(tab.unit + item.per) if tab.unit else item.unit,
+                id=item.entry.id, statement=item.entry.statement, factor=factor, scale=scale,
+                weight=factor_weight(factor) * CONFIDENCE_WEIGHT.get(item.entry.confidence, 0.5),
+            ))
+    if len(out) > limits.IDENTIFY_MAX_TARGETS:
+        out.sort(key=lambda t: -t.weight)
+        out = out[: limits.IDENTIFY_MAX_TARGETS]
+    out.sort(key=lambda t: (t.value, -t.weight))
+    return out
