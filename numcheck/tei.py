@@ -314,23 +314,42 @@ def _decide(res: NumResult, edit: Edit, existing: dict, reading: Reading,
                 _check_bound(res, edit, existing, k, exact, fix)
         return
     wanted = {"atLeast": exact_text(lo), "atMost": exact_text(hi)}
-    res.status = "range-added"
-    bad = []
-    for k, v in wanted.items():
-        if k in existing:
-            try:
-                same = Fraction(existing[k].strip()) == Fraction(v)
-            except (ValueError, ZeroDivisionError):
-                same = False
-            if not same:
-                bad.append(f"@{k}={existing[k]!r} (the letters give {v})")
-        if k not in existing or fix:
-            edit.set_attrs[k] = v
-    if bad:
-        res.message = f"the letters {res.text!r} contradict " + ", ".join(bad)
-        res.status = "fixed" if fix else "contradiction"
-    elif all(k in existing for k in wanted):
+    if not any(k in existing for k in wanted):
+        edit.set_attrs.update(wanted)
+        res.status = "range-added"
+        return
+    # The editor gave a range already.  A range narrower than the letters
+    # allow is the editor's knowledge (EpiDoc's L[.] = 51-55 leaves out LX),
+    # not a contradiction; a range reaching outside them, or holding no
+    # reading at all, is.
+    try:
+        a = Fraction(existing["atLeast"].strip()) if "atLeast" in existing else lo
+        b = Fraction(existing["atMost"].strip()) if "atMost" in existing else hi
+        ok = lo <= a <= b <= hi and _any_between(reading, a, b, res.unit_fraction)
+    except (ValueError, ZeroDivisionError):
+        ok = False
+    if ok:
         res.status = "kept"
+        if (a, b) != (lo, hi):
+            res.message = (f"the edition's range {exact_text(a)} to {exact_text(b)} is narrower than "
+                           f"the letters {res.text!r} allow ({exact_text(lo)} to {exact_text(hi)})")
+        return
+    shown = ", ".join(f"@{k}={existing[k]!r}" for k in wanted if k in existing)
+    res.message = (f"the letters {res.text!r} allow {exact_text(lo)} to {exact_text(hi)}, "
+                   f"which contradicts {shown}")
+    res.status = "fixed" if fix else "contradiction"
+    if fix:
+        edit.set_attrs.update(wanted)
+
+
+def _any_between(reading: Reading, a: Fraction, b: Fraction, unit_fraction: bool) -> bool:
+    if reading.count > _ENUMERATE_READINGS:
+        return True
+    for v in reading.readings():
+        v = 1 / v if unit_fraction and v else v
+        if a <= v <= b:
+            return True
+    return False
 
 
 def _check_bound(res, edit, existing, key, exact, fix) -> None:
