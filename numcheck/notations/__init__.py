@@ -18,6 +18,11 @@ __all__ = ["NOTATIONS", "notation_module", "format_reading", "render_choice"]
 #: Notation name -> module that implements it.
 NOTATIONS: dict[str, str] = {
     "sexagesimal": "numcheck.notations.sexagesimal",
+    "cuneiform": "numcheck.notations.cuneiform",
+    "roman": "numcheck.notations.roman",
+    "abjad": "numcheck.notations.abjad",
+    "abjad-maghribi": "numcheck.notations.abjad_maghribi",
+    "quantity": "numcheck.notations.quantity",
 }
 
 
