@@ -222,8 +222,10 @@ def identify(reading_or_text, *, notation: str | None = None, unit: str | None =
         tol = max(NEAR_ULPS * ulp, NEAR_RELATIVE * v)
         lo = float(min(v - tol, lo_r * p)) * (1 - 1e-12)
         hi = float(max(v + tol, hi_r * p + ulp)) * (1 + 1e-12)
-        for idx, factor in _t.candidates(tab, lo, hi):
-            considered += 1
+        items, nums, dens = _t.candidates(tab, lo, hi)
+        considered += len(items)
+        for k in range(len(items)):
+            idx, factor = int(items[k]), Fraction(int(nums[k]), int(dens[k]))
             item = tab.items[idx]
             target = item.value * tab.factors[idx] * factor
             # The relative tolerance compares values of different traditions;

@@ -170,6 +170,9 @@ class Table:
     conventions: tuple[str | None, ...]
     values: np.ndarray          # float value of each item in the unit
     simple: tuple[Fraction, ...]
+    simple_num: np.ndarray
+    simple_den: np.ndarray
+    confidence: np.ndarray      # CONFIDENCE_WEIGHT of each item's row
     sorted_values: np.ndarray   # item value x simple factor, ascending
     sorted_item: np.ndarray     # item index of each sorted value
     sorted_factor: np.ndarray   # simple-factor index of each sorted value
@@ -219,31 +222,42 @@ def table(unit: str | None) -> Table:
     period_index = np.array([k for k, i in enumerate(items) if i.multiples], dtype=np.int64)
     return Table(
         unit=unit, items=tuple(items), factors=tuple(factors), conventions=tuple(conventions),
-        values=values, simple=simple, sorted_values=grid[order],
+        values=values, simple=simple,
+        simple_num=np.array([f.numerator for f in simple], dtype=np.int64),
+        simple_den=np.array([f.denominator for f in simple], dtype=np.int64),
+        confidence=np.array([CONFIDENCE_WEIGHT.get(i.entry.confidence, 0.5) for i in items], dtype=float),
+        sorted_values=grid[order],
         sorted_item=(order // n_f).astype(np.int64), sorted_factor=(order % n_f).astype(np.int64),
         period_index=period_index, period_values=values[period_index] if len(period_index) else values[:0],
     )
 
 
-def candidates(tab: Table, lo: float, hi: float) -> list[tuple[int, Fraction]]:
-    """(item index, factor) for every item x factor whose float lies in [lo, hi].
+def candidates(tab: Table, lo: float, hi: float) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+    """Arrays (item index, factor numerator, factor denominator) of every
+    item x factor whose float lies in [lo, hi].
 
-    Simple factors by binary search; whole multiples (13 .. IDENTIFY_MAX_MULTIPLE)
-    of periods by rounding, all periods at once.
+    Simple factors by binary search; whole multiples (past the simple ones,
+    up to IDENTIFY_MAX_MULTIPLE) of periods by rounding, all periods at once.
     """
-    out: list[tuple[int, Fraction]] = []
     a = int(np.searchsorted(tab.sorted_values, lo, side="left"))
     b = int(np.searchsorted(tab.sorted_values, hi, side="right"))
-    for k in range(a, b):
-        out.append((int(tab.sorted_item[k]), tab.simple[int(tab.sorted_factor[k])]))
+    items = [tab.sorted_item[a:b]]
+    fidx = tab.sorted_factor[a:b]
+    nums = [tab.simple_num[fidx]]
+    dens = [tab.simple_den[fidx]]
     if len(tab.period_values) and hi > 0:
         pv = tab.period_values
-        first = np.maximum(np.ceil(lo / pv), limits.IDENTIFY_MAX_SIMPLE + 1)
-        last = np.minimum(np.floor(hi / pv), limits.IDENTIFY_MAX_MULTIPLE)
-        for j in np.nonzero(last >= first)[0]:
-            for n in range(int(first[j]), int(last[j]) + 1):
-                out.append((int(tab.period_index[j]), Fraction(n)))
-    return out
+        first = np.maximum(np.ceil(lo / pv), limits.IDENTIFY_MAX_SIMPLE + 1).astype(np.int64)
+        last = np.minimum(np.floor(hi / pv), limits.IDENTIFY_MAX_MULTIPLE).astype(np.int64)
+        counts = np.maximum(last - first + 1, 0)
+        total = int(counts.sum())
+        if total:
+            which = np.repeat(np.arange(len(pv)), counts)
+            offsets = np.arange(total) - np.repeat(np.cumsum(counts) - counts, counts)
+            items.append(tab.period_index[which])
+            nums.append(first[which] + offsets)
+            dens.append(np.ones(total, dtype=np.int64))
+    return np.concatenate(items), np.concatenate(nums), np.concatenate(dens)
 
 
 @dataclass(frozen=True)
@@ -282,26 +296,37 @@ def catalogue_targets(lo, hi, unit: str | None = None, *, floating: bool = False
     if hi < lo:
         lo, hi = hi, lo
     tab = table(unit)
-    out: list[Target] = []
     scales = range(-6, 7) if floating else range(0, 1)
+    found = []   # arrays per scale: item, num, den, weight, scale
     for scale in scales:
         p = Fraction(60) ** scale
         if hi * p <= 0:
             continue
         flo, fhi = float(lo * p) * (1 - 1e-12), float(hi * p) * (1 + 1e-12)
-        for idx, factor in candidates(tab, flo, fhi):
-            item = tab.items[idx]
-            value = item.value * tab.factors[idx] * factor / p
-            if not lo <= value <= hi:
-                continue
-            out.append(Target(
-                value=value,
-                unit=(tab.unit + item.per) if tab.unit else item.unit,
-                id=item.entry.id, statement=item.entry.statement, factor=factor, scale=scale,
-                weight=factor_weight(factor) * CONFIDENCE_WEIGHT.get(item.entry.confidence, 0.5),
-            ))
-    if len(out) > limits.IDENTIFY_MAX_TARGETS:
-        out.sort(key=lambda t: -t.weight)
-        out = out[: limits.IDENTIFY_MAX_TARGETS]
+        items, nums, dens = candidates(tab, flo, fhi)
+        if not len(items):
+            continue
+        weight = tab.confidence[items] / (1.0 + np.log(nums.astype(float) * dens))
+        found.append((items, nums, dens, weight, np.full(len(items), scale)))
+    if not found:
+        return []
+    items, nums, dens, weight, scale_arr = (np.concatenate(parts) for parts in zip(*found))
+    if len(items) > limits.IDENTIFY_MAX_TARGETS:
+        keep = np.argsort(-weight, kind="stable")[: limits.IDENTIFY_MAX_TARGETS]
+        items, nums, dens, weight, scale_arr = items[keep], nums[keep], dens[keep], weight[keep], scale_arr[keep]
+    out: list[Target] = []
+    for k in range(len(items)):
+        idx, scale = int(items[k]), int(scale_arr[k])
+        item = tab.items[idx]
+        factor = Fraction(int(nums[k]), int(dens[k]))
+        value = item.value * tab.factors[idx] * factor / Fraction(60) ** scale
+        if not lo <= value <= hi:
+            continue
+        out.append(Target(
+            value=value,
+            unit=(tab.unit + item.per) if tab.unit else item.unit,
+            id=item.entry.id, statement=item.entry.statement, factor=factor, scale=scale,
+            weight=float(weight[k]),
+        ))
     out.sort(key=lambda t: (t.value, -t.weight))
     return out
