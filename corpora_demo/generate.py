@@ -135,13 +135,14 @@ def ephemeris() -> tuple[list[dict], list[dict], list[dict], list[dict]]:
     deg, sign = b_txt[7].split(" ")
     wrong = SIGNS[(SIGNS.index(sign) + 1) % 12]
     slip(8, "B", "sign-error", f"{deg} {wrong}", "the next sign's name")
-    # A slip in the running sum that the scribe carried on: line 28 of B one
-    # minute too many, and every later line computed from it.
-    offset = Fraction(1, 60)
+    # A slip in the running sum that the scribe carried on: line 28 of B ten
+    # seconds too many (a place that neither gave nor took a carry there, so
+    # the slip cannot be a carry), and every later line computed from it.
+    offset = Fraction(10, 3600)
     for row in range(28, LINES + 1):
         written = longitude_text(true_b[row - 1] + offset)
         if row == 28:
-            slip(row, "B", "unit-slip", written, "minutes one too many in the running sum")
+            slip(row, "B", "ten-slip", written, "seconds ten too many in the running sum")
         else:
             slip(row, "B", "carried-forward", written, "inherits the slip of line 28")
     # Lost digits (Leiden: [x] a lost digit).
