@@ -189,8 +189,8 @@ def period(body: str, cycle: str, tradition: str = "modern") -> Fraction:
     Hipparchus' month before Geminus'), the first row of the file, its
     standard value, is returned; :func:`periods` gives them all.
 
-    >>> float(period("moon", "synodic", "babylonian"))
-    29.530594135802468
+    >>> period("moon", "synodic", "babylonian")    # 29;31,50,8,20 days
+    Fraction(765433, 25920)
     """
     found = periods(body, cycle, tradition)
     if not found:

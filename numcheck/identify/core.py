@@ -58,6 +58,7 @@ class Match:
     how: str                    # a key of CLASSES
     target: Fraction            # the catalogue number times the factor, in ``unit``, at the reading's scale
     label: str
+    what: str                   # the catalogue number as matched: "2 × 223 synodic months"
     convention: str | None
     tradition: str
     body: str
@@ -79,6 +80,7 @@ class Match:
             "target": exact_text(self.target),
             "target_sexagesimal": sexagesimal_text(self.target, max_places=8),
             "side": self.label,
+            "what": self.what,
             "convention": self.convention,
             "tradition": self.tradition,
             "body": self.body,
@@ -270,6 +272,7 @@ def _match(reading, tab, how, item, idx, factor, scale, target, residual, v) -> 
     return Match(
         id=e.id, statement=e.statement, factor=factor, scale=scale, unit=unit_shown,
         residual=residual, score=score, how=how, target=target / Fraction(60) ** scale, label=item.label,
+        what=f"{_factor_text(factor)}{_t.number_text(item.value)} {item.unit}",
         convention=convention, tradition=e.tradition, body=e.body, confidence=e.confidence,
         source=e.source,
         explanation=_explain(reading, how, factor, item, scale, residual, rel, convention, unit_shown),
