@@ -148,24 +148,21 @@ def _half(x):
 
 
 def _period_relation(period: Fraction) -> dict | None:
-    """The catalogue's period relation that gives this period, when the catalogue is there."""
+    """The catalogue entry whose value, or the ratio of two sides of a period
+    relation, is this period (when the catalogue is installed)."""
     try:
         from .. import catalogue
-    except ImportError:
+        entries = catalogue.entries()
+    except Exception:   # the catalogue is optional for the audit
         return None
-    finder = getattr(catalogue, "period_relations", None) or getattr(catalogue, "relations", None)
-    if finder is None:
-        return None
-    try:
-        rows = finder()
-    except Exception:
-        return None
-    for row in rows:
-        value = row.get("period") if isinstance(row, dict) else getattr(row, "period", None)
-        try:
-            if value is not None and Fraction(value) == period:
-                label = row.get("relation") if isinstance(row, dict) else getattr(row, "relation", "")
-                return {"relation": str(label), "period": exact_text(period)}
-        except (TypeError, ValueError):
-            continue
+    for entry in entries:
+        ratios = {entry.value}
+        singles = [side.terms[0].number for side in entry.sides if len(side.terms) == 1]
+        for a in singles:
+            for b in singles:
+                if a and b and a != b:
+                    ratios.add(Fraction(a) / Fraction(b))
+        if period in ratios:
+            return {"id": entry.id, "statement": entry.statement, "source": entry.source,
+                    "period": exact_text(period)}
     return None

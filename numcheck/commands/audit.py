@@ -1,0 +1,70 @@
+"""``numcheck audit FILE``: the scheme of each column, the slips that break it, the fixes."""
+
+from __future__ import annotations
+
+from pathlib import Path
+
+from ..errors import NumcheckError
+
+NAME = "audit"
+HELP = "find the computing scheme of each column of a table, flag the cells that break it, diagnose the slip and restore damaged cells"
+ORDER = 40
+
+
+def add_arguments(parser) -> None:
+    parser.add_argument("file", metavar="FILE",
+                        help="a table (TSV, CSV with quoted cells, or whitespace-aligned text) with a "
+                             "header row; a folder audits every table in it")
+    parser.add_argument("--notation", "-n", help="the notation of the cells (detected when left out)")
+    parser.add_argument("--relation", "-r",
+                        help="a relation between columns to check, e.g. 'C = A + B' or "
+                             "'B = prev(B) + A mod 360'")
+    parser.add_argument("--columns", "-c", help="the columns to audit, comma-separated (others are left out)")
+    parser.add_argument("--plot", metavar="OUT.png|svg", help="write a plot of each checked column")
+    parser.add_argument("--report", metavar="OUT.html", help="write a self-contained HTML report "
+                        "(for a folder: the folder to write the reports to)")
+    parser.add_argument("--csv", metavar="OUT.csv", help="write the flags as CSV")
+
+
+def run(args, console) -> dict:
+    path = Path(args.file)
+    if path.is_dir():
+        return _folder(args, path, console)
+    from ..audit import audit
+
+    outputs = [p for p in (args.plot, args.report, args.csv) if p]
+    from ..files import check_distinct
+    for out in outputs:
+        check_distinct(path, out)
+    columns = [c.strip() for c in args.columns.split(",")] if args.columns else None
+    result = audit(path, notation=args.notation, relation=args.relation, columns=columns)
+    from .. import report
+
+    written = {}
+    if args.plot:
+        written["plot"] = str(report.write_plot(result, args.plot))
+    if args.report:
+        written["report"] = str(report.write_html(result, args.report))
+    if args.csv:
+        written["csv"] = str(report.write_flags_csv(result, args.csv))
+    out = result.to_dict()
+    if written:
+        out["written"] = written
+    if console is not None:
+        report.show(result, console)
+        for what, where in written.items():
+            console.print(f"{what} written to {where}")
+    return out
+
+
+def _folder(args, path: Path, console) -> dict:
+    try:
+        from ..batch import audit_folder
+    except ImportError as err:
+        raise NumcheckError(f"{str(path)!r} is a folder: auditing folders needs numcheck.batch, "
+                            "which is not installed.") from err
+    out = audit_folder(path, report_dir=args.report, notation=args.notation, relation=args.relation)
+    if console is not None:
+        summary = out.get("summary", {})
+        console.print(f"audited folder {path}: {summary}")
+    return out

@@ -1,0 +1,79 @@
+"""One self-contained HTML report of an audit: schemes, flags, restorations, the plot.
+
+The plot is embedded as a base64 PNG, so the file can be mailed or archived
+alone.  Every text from the table is escaped.
+"""
+
+from __future__ import annotations
+
+import base64
+from html import escape
+
+from ._common import write_output
+
+__all__ = ["html_text", "write_html"]
+
+_CSS = """
+body{font-family:Georgia,serif;margin:2em;max-width:70em;color:#222}
+h1{font-size:1.4em}h2{font-size:1.15em;margin-top:1.6em}
+table{border-collapse:collapse;font-size:.9em}td,th{border:1px solid #bbb;padding:.2em .5em;text-align:left}
+th{background:#eee}.num{font-family:monospace}.slip{background:#fdd}.carried{background:#ffd}
+.restored{background:#dff}.note{font-style:italic;color:#555}
+"""
+
+
+def html_text(result, *, plot: bool = True) -> str:
+    """The report as HTML text."""
+    d = result.to_dict()
+    parts = [f"<!DOCTYPE html><html lang='en'><head><meta charset='utf-8'>"
+             f"<title>numcheck audit: {escape(d['source'])}</title><style>{_CSS}</style></head><body>",
+             f"<h1>numcheck audit of {escape(d['source'])}</h1>",
+             f"<p>{d['rows']} rows; columns {escape(', '.join(d['columns']))}.</p>",
+             f"<p class='note'>{escape(d['note'])}</p>", "<h2>Schemes</h2>"]
+    if d["schemes"]:
+        parts.append("<table><tr><th>column</th><th>kind</th><th>scheme</th><th>lines that fit</th></tr>")
+        for s in d["schemes"]:
+            parts.append(f"<tr><td>{escape(s['column'])}</td><td>{escape(s['kind'])}</td>"
+                         f"<td>{escape(s['description'])}</td><td>{s['support']:.1%}</td></tr>")
+        parts.append("</table>")
+    else:
+        parts.append("<p>No column follows a scheme numcheck knows.</p>")
+    if d["unchecked"]:
+        parts.append(f"<p>Not checked (no scheme found): {escape(', '.join(d['unchecked']))}.</p>")
+    parts.append("<h2>Flags</h2>")
+    if d["flags"]:
+        parts.append("<table><tr><th>row</th><th>column</th><th>written</th><th>expected</th>"
+                     "<th>kind</th><th>reason</th></tr>")
+        for f in d["flags"]:
+            cls = "carried" if f["kind"] == "carried-forward" else "slip"
+            parts.append(f"<tr class='{cls}'><td>{f['row']}</td><td>{escape(f['column'])}</td>"
+                         f"<td class='num'>{escape(f['written'])}</td>"
+                         f"<td class='num'>{escape(f['expected'])}</td><td>{escape(f['kind'])}</td>"
+                         f"<td>{escape(f['reason'])}</td></tr>")
+        parts.append("</table>")
+    else:
+        parts.append("<p>No cell breaks its scheme.</p>")
+    parts.append("<h2>Restorations of damaged cells</h2>")
+    if d["restorations"]:
+        parts.append("<table><tr><th>row</th><th>column</th><th>restored</th><th>probability</th>"
+                     "<th>reasons</th></tr>")
+        for r in d["restorations"]:
+            parts.append(f"<tr class='restored'><td>{r['row']}</td><td>{escape(r['column'])}</td>"
+                         f"<td class='num'>{escape(r['text'])}</td><td>{r['probability']:.3f}</td>"
+                         f"<td>{escape('; '.join(r['reasons']))}</td></tr>")
+        parts.append("</table>")
+    else:
+        parts.append("<p>No damaged cell to restore.</p>")
+    if plot:
+        from .plot import plot_bytes
+        png = base64.b64encode(plot_bytes(result, "png")).decode("ascii")
+        parts.append("<h2>Plot</h2>")
+        parts.append(f"<img alt='each checked column, its scheme and the flagged lines' "
+                     f"src='data:image/png;base64,{png}'>")
+    parts.append("<p class='note'>Written by numcheck audit.</p></body></html>")
+    return "\n".join(parts)
+
+
+def write_html(result, path):
+    """Write the report to *path* (``.html``) atomically; returns the path."""
+    return write_output(result, path, html_text(result), (".html", ".htm"), "report file")

@@ -1,0 +1,114 @@
+"""The audit on the terminal: schemes, the table with flagged cells highlighted, one reason each."""
+
+from __future__ import annotations
+
+from rich.markup import escape
+from rich.table import Table
+
+from ._common import RESTORED_STYLE, style_for
+
+__all__ = ["show"]
+
+#: A table this short is shown whole; a longer one only around its flags.
+SHOW_ALL_ROWS = 40
+
+
+def show(result, console) -> None:
+    """Print the audit to a rich console."""
+    d = result.to_dict()
+    console.print(f"[bold]numcheck audit[/bold] {escape(d['source'])}: {d['rows']} rows, "
+                  f"columns {escape(', '.join(d['columns']))}")
+    schemes = Table(title="schemes", show_edge=False, header_style="bold")
+    for col in ("column", "kind", "scheme", "fit"):
+        schemes.add_column(col)
+    for s in d["schemes"]:
+        schemes.add_row(escape(s["column"]), s["kind"], escape(s["description"]), f"{s['support']:.1%}")
+    for name in d["unchecked"]:
+        schemes.add_row(escape(name), "-", "no scheme found: not checked", "")
+    console.print(schemes)
+    _cells(result, d, console)
+    if d["flags"]:
+        flags = Table(title="flags", show_edge=False, header_style="bold")
+        for col in ("row", "column", "written", "expected", "kind", "reason"):
+            flags.add_column(col)
+        for f in d["flags"]:
+            # A line that only inherits a slip is coloured in the table above
+            # and named on its origin's line: one slip, one line here.
+            if f["kind"] == "carried-forward" and f.get("carried_from", {}).get("column") == f["column"]:
+                continue
+            style = style_for(f["kind"])
+            reason = f["reason"]
+            if f.get("carried_into"):
+                reason += f"; carried into rows {_ranges(f['carried_into'])}"
+            flags.add_row(str(f["row"]), escape(f["column"]), f"[{style}]{escape(f['written'])}[/]",
+                          escape(f["expected"]), f"[{style}]{f['kind']}[/]", escape(reason))
+        console.print(flags)
+    else:
+        console.print("[green]No cell breaks its scheme.[/green]")
+    if d["restorations"]:
+        rest = Table(title="restorations of damaged cells", show_edge=False, header_style="bold")
+        for col in ("row", "column", "restored", "probability", "why"):
+            rest.add_column(col)
+        for r in d["restorations"]:
+            rest.add_row(str(r["row"]), escape(r["column"]), f"[{RESTORED_STYLE}]{escape(r['text'])}[/]",
+                         f"{r['probability']:.3f}", escape("; ".join(r["reasons"])))
+        console.print(rest)
+    console.print(f"[dim]{escape(d['note'])}[/dim]")
+
+
+def _cells(result, d, console) -> None:
+    """The table itself, flagged cells coloured (only the rows around flags in a long table)."""
+    marks = {}
+    for f in d["flags"]:
+        marks[(f["row"], f["column"])] = style_for(f["kind"])
+    for r in d["restorations"]:
+        marks.setdefault((r["row"], r["column"]), RESTORED_STYLE)
+    n = result.table.nrows
+    if n <= SHOW_ALL_ROWS:
+        rows = list(range(1, n + 1))
+    else:
+        wanted = set()
+        for row, _ in marks:
+            wanted.update(k for k in (row - 1, row, row + 1) if 1 <= k <= n)
+        rows = sorted(wanted)
+        if len(rows) > 3 * SHOW_ALL_ROWS:
+            rows = rows[:3 * SHOW_ALL_ROWS]
+    if not rows:
+        return
+    t = Table(title="table (flagged cells coloured)", show_edge=False, header_style="bold")
+    t.add_column("row", justify="right")
+    names = list(result.table.columns)
+    for name in names:
+        t.add_column(escape(name))
+    last = 0
+    for row in rows:
+        if last and row != last + 1:
+            t.add_row("…", *["" for _ in names])
+        cells = []
+        for name in names:
+            text = escape(result.table.columns[name].cells[row - 1].text)
+            style = marks.get((row, name))
+            cells.append(f"[{style}]{text}[/]" if style else text)
+        t.add_row(str(row), *cells)
+        last = row
+    console.print(t)
+
+
+def _ranges(rows: list[int]) -> str:
+    """Rows as ranges: 32-40, 45.
+
+    >>> _ranges([32, 33, 34, 40])
+    '32-34, 40'
+    """
+    out, start, prev = [], None, None
+    for r in rows:
+        if start is None:
+            start = prev = r
+        elif r == prev + 1:
+            prev = r
+        else:
+            out.append(f"{start}-{prev}" if prev != start else str(start))
+            start = prev = r
+    if start is not None:
+        out.append(f"{start}-{prev}" if prev != start else str(start))
+    return ", ".join(out)
