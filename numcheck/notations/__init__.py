@@ -23,6 +23,8 @@ NOTATIONS: dict[str, str] = {
     "abjad": "numcheck.notations.abjad",
     "abjad-maghribi": "numcheck.notations.abjad_maghribi",
     "quantity": "numcheck.notations.quantity",
+    "greek": "numcheck.notations.greek",
+    "greek-ascending": "numcheck.notations.greek_ascending",
 }
 
 
