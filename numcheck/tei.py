@@ -164,8 +164,8 @@ def annotate_bytes(data: bytes, name: str | os.PathLike = "<input>", *, alternat
         if edit is not None:
             edits[index_of[id(el)]] = edit
     if problems:
-        shown = "\n".join(problems[:10])
-        more = f"\n... and {len(problems) - 10} more" if len(problems) > 10 else ""
+        shown = "\n".join(problems[:5])
+        more = f"\n... and {len(problems) - 5} more" if len(problems) > 5 else ""
         raise TeiError(name, None, f"{len(problems)} <num> element(s) cannot be read; nothing was "
                                    f"written:\n{shown}{more}")
     out = _write(data, root, elements, edits, notes)
@@ -195,21 +195,7 @@ def _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of):
     if not plain and not any(p.kind in ("lost", "illegible") for p in pieces):
         raise TeiError(name, line, "a <num> with no text (nothing to read; an empty <num> "
                                    "should hold the numeral as written, or be removed)")
-    chosen = notation
-    if chosen is None:
-        if plain:
-            from .notations.detect import detect_notation
-            chosen = detect_notation(plain)[0]
-        else:
-            chosen = notation_hint(el)
-        if chosen is None:
-            raise TeiError(name, line, "a <num> with no legible letter and no xml:lang to tell "
-                                       "its notation; give the notation (--notation)")
-    text = leiden_text(pieces, chosen)
-    try:
-        reading = read(text, notation=chosen)
-    except NumcheckError as err:
-        raise TeiError(name, line, f"<num> read as {text!r} in {chosen} notation: {err}") from None
+    reading, text = _read_num(el, name, line, pieces, plain, notation)
     res = NumResult(line, text, reading.notation, "kept", damaged=reading.damaged)
     unresolved = _unresolved(reading)
     lo, hi = reading.min, reading.max
@@ -238,6 +224,40 @@ def _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of):
                 "assertedValue": alt["value"], "degree": alt["degree"]}))
     has_edit = edit.set_attrs or edit.drop_attrs or edit.add_children or edit.drop_children
     return res, (edit if has_edit else None)
+
+
+def _read_num(el, name, line, pieces, plain: str, notation: str | None):
+    """Read a ``<num>``: in the notation given, else the one its letters suggest.
+
+    Without a notation, the letters choose it (:func:`detect_notation`); when
+    they cannot be read that way, the ``xml:lang`` in force (``grc`` ->
+    greek, ``la`` -> roman ...) is tried before giving up.
+    """
+    if notation is not None:
+        candidates = [notation]
+    else:
+        candidates = []
+        if plain:
+            from .notations.detect import detect_notation
+            candidates.append(detect_notation(plain)[0])
+        hint = notation_hint(el)
+        if hint is not None and hint not in candidates:
+            candidates.append(hint)
+        if not candidates:
+            raise TeiError(name, line, "a <num> with no legible letter and no xml:lang to tell "
+                                       "its notation; give the notation (--notation)")
+    first_error = None
+    for chosen in candidates:
+        text = leiden_text(pieces, chosen)
+        try:
+            return read(text, notation=chosen), text
+        except NumcheckError as err:
+            if first_error is None:
+                first_error = (chosen, text, err)
+    chosen, text, err = first_error
+    reason = str(err).split("\n", 1)[0]
+    tried = f" (also tried: {', '.join(candidates[1:])})" if len(candidates) > 1 else ""
+    raise TeiError(name, line, f"<num> read as {text!r} in {chosen} notation{tried}: {reason}")
 
 
 def _unresolved(reading: Reading) -> bool:

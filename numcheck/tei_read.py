@@ -33,6 +33,7 @@ __all__ = [
     "plain_text",
     "notation_hint",
     "table_to_dataframe",
+    "choose_notation",
 ]
 
 TEI_NS = "http://www.tei-c.org/ns/1.0"
@@ -312,8 +313,6 @@ def table_to_dataframe(path: str | os.PathLike, *, table: int | str = 0,
     """
     import pandas as pd
 
-    from .notations.detect import detect_notation
-
     root = parse_tei(path)
     tables = list(tei_elements(root, "table"))
     if isinstance(table, str):
@@ -329,6 +328,7 @@ def table_to_dataframe(path: str | os.PathLike, *, table: int | str = 0,
             raise TeiError(path, None, f"asked for table {table + 1}, but the file has {len(tables)}")
         el = tables[table]
     header: list[str] | None = None
+    used: set[str] = set()
     rows: list[list[str]] = []
     lines: list[int] = []
     for row in el.iter(f"{{{TEI_NS}}}row"):
@@ -342,8 +342,8 @@ def table_to_dataframe(path: str | os.PathLike, *, table: int | str = 0,
         texts = []
         for c in cells:
             pieces = num_pieces(c)
-            plain = plain_text(pieces)
-            cell_notation = notation or (detect_notation(plain)[0] if plain else notation_hint(c)) or "sexagesimal"
+            cell_notation = notation or choose_notation(plain_text(pieces), c)
+            used.add(cell_notation)
             texts.append(leiden_text(pieces, cell_notation))
         rows.append(texts)
         lines.append(row.sourceline)
@@ -363,4 +363,34 @@ def table_to_dataframe(path: str | os.PathLike, *, table: int | str = 0,
     frame.attrs["source"] = str(path)
     frame.attrs["table_line"] = el.sourceline
     frame.attrs["row_lines"] = lines
+    if len(used) == 1:
+        frame.attrs["notation"] = used.pop()
     return frame
+
+
+def choose_notation(plain: str, el) -> str:
+    """The notation of a number whose letters are *plain*, at element *el*.
+
+    The letters choose it (:func:`detect_notation`); when they cannot be
+    read that way and the ``xml:lang`` in force suggests another notation
+    that reads them, that one is taken.
+    """
+    from .notations.detect import detect_notation
+    from .reader import read
+
+    hint = notation_hint(el)
+    if not plain:
+        return hint or "sexagesimal"
+    detected = detect_notation(plain)[0]
+    if hint is None or hint == detected:
+        return detected
+    try:
+        read(plain, notation=detected)
+        return detected
+    except NumcheckError:
+        pass
+    try:
+        read(plain, notation=hint)
+        return hint
+    except NumcheckError:
+        return detected
