@@ -25,6 +25,7 @@ NOTATIONS: dict[str, str] = {
     "quantity": "numcheck.notations.quantity",
     "greek": "numcheck.notations.greek",
     "greek-ascending": "numcheck.notations.greek_ascending",
+    "attic": "numcheck.notations.attic",
 }
 
 
