@@ -81,11 +81,35 @@ def longitude_text(value: F) -> str:
     return f"{sexagesimal_text(value - 30 * sign)} {ZODIAC[sign]}"
 
 
-def lunar_b(n: int = 40, start_a="29;31,20", start_b="14;11,57,4 Libra" and F(206) + sx("14;11,57,4") - 30):
-    """Rows (A text, B text) of a lunar System B ephemeris: column A and its longitude."""
+def lunar_b(n: int = 40, start_a: str = "29;31,20", start_b: F = 180 + sx("14;11,57,4")):
+    """Exact columns (A, B) of a lunar System B ephemeris: column A and its running sum.
+
+    The first longitude is 14;11,57,4 Libra (an invented starting point).
+    """
     a = zigzag(n, start=sx(start_a), **LUNAR_B_A)
     b = running_sum(a, start_b)
     return a, b
+
+
+def jupiter_a(n: int = 40, start: F = F(10)) -> list[F]:
+    """Longitudes of a Jupiter System A ephemeris (step function)."""
+    return step_function(n, start=start, **JUPITER_A)
+
+
+def jupiter_b(n: int = 40, start: str = "33;8,45") -> list[F]:
+    """Synodic arcs of Jupiter System B (zigzag)."""
+    return zigzag(n, start=sx(start), **JUPITER_B)
+
+
+def carry_into(prev: F, step: F, place: int) -> bool:
+    """Whether prev + step carries into the place 60**place (a positive step)."""
+    unit = F(60) ** place
+    return (prev % unit) + (step % unit) >= unit
+
+
+def write_tsv(path, header, columns) -> None:
+    with open(path, "w", encoding="utf-8") as fh:
+        fh.write(to_tsv(header, columns))
 
 
 def to_tsv(header: list[str], columns: list[list[str]]) -> str:

@@ -162,6 +162,8 @@ def fit_cross(frame, taken: set[str]) -> list[Scheme]:
             if s.support > 0.5:
                 found.append(s)
                 break
+        if names.index(a) > names.index(b):
+            continue  # n × igi is symmetric: the igi is the column to the right
         r = ReciprocalScheme(b, frame, a)
         r.support = support_row(r, frame.written[b], frame.written, _SAMPLE)
         if r.support > 0.5 and _is_reciprocal_pair(frame, a, b):

@@ -16,7 +16,7 @@ from .columns import fit_cross
 from .relation import RelationScheme, parse_relation
 from .schemes import (ConstantScheme, Frame, LinearScheme, Scheme, lcm_all, support_chained,
                       support_row)
-from .steps import StepScheme
+from .steps import StepDifferenceScheme, StepScheme
 from .table import Table
 from .zigzag import ZigzagScheme
 
@@ -85,7 +85,23 @@ def detect_schemes(frame: Frame, relation: str | None = None) -> list[Scheme]:
         current = chosen.get(scheme.column)
         if current is None or scheme.support > current.support:
             chosen[scheme.column] = scheme
+    _step_differences(frame, chosen)
     return _ordered(chosen)
+
+
+def _step_differences(frame: Frame, chosen: dict[str, Scheme]) -> None:
+    """A column whose running sum is a step-function longitude holds its steps."""
+    from .columns import RunningSumScheme
+    for lon in [s for s in chosen.values() if isinstance(s, StepScheme)]:
+        for name in frame.names:
+            if name == lon.column or (name in chosen and chosen[name].support == 1.0):
+                continue
+            probe = RunningSumScheme(lon.column, frame, name, frame.modulus.get(lon.column))
+            if support_chained(probe, frame.written[lon.column], frame.written) > 0.5:
+                s = StepDifferenceScheme(name, frame, lon)
+                s.support = support_row(s, frame.written[name], frame.written)
+                if s.support > 0.5 and (name not in chosen or s.support > chosen[name].support):
+                    chosen[name] = s
 
 
 def _ordered(chosen: dict[str, Scheme]) -> list[Scheme]:

@@ -17,7 +17,19 @@ from fractions import Fraction
 from ..reading import sexagesimal_text
 from .schemes import Scheme, diffs, value_text
 
-__all__ = ["StepScheme"]
+__all__ = ["StepScheme", "StepDifferenceScheme", "degrees_text"]
+
+
+def degrees_text(v) -> str:
+    """A longitude for display: whole degrees in decimal, fractions in sexagesimal.
+
+    >>> degrees_text(Fraction(171, 2))
+    '85;30°'
+    """
+    v = Fraction(v)
+    whole = v.numerator // v.denominator
+    frac = sexagesimal_text(v - whole)
+    return f"{whole}{frac[1:] if frac != '0' else ''}°"
 
 #: Lines used to choose the boundaries among the candidates (enough for a
 #: few revolutions; the full table is then checked line by line).
@@ -102,9 +114,9 @@ class StepScheme(Scheme):
 
     def describe(self):
         f = self.frame.fraction
-        return (f"step function: {sexagesimal_text(f(self.fast))} per line from "
-                f"{sexagesimal_text(f(self.b_fast))}° to {sexagesimal_text(f(self.b_slow))}°, "
-                f"{sexagesimal_text(f(self.slow))} beyond")
+        return (f"step function: {degrees_text(f(self.fast))} per line from "
+                f"{degrees_text(f(self.b_fast))} to {degrees_text(f(self.b_slow))}, "
+                f"{degrees_text(f(self.slow))} beyond")
 
     @classmethod
     def fit(cls, column, frame):
@@ -144,3 +156,36 @@ class StepScheme(Scheme):
                 if s > best_support:
                     best, best_support = scheme, s
         return best if best_support > 0.5 else None
+
+
+class StepDifferenceScheme(Scheme):
+    """The steps of a step-function longitude (e.g. the synodic arcs beside it)."""
+
+    kind = "step"
+    chained = False
+
+    def __init__(self, column, frame, longitude: StepScheme):
+        super().__init__(column, frame)
+        self.longitude = longitude
+        self.inputs = (longitude.column,)
+
+    def expect(self, i, src):
+        if i == 0:
+            return None
+        prev = src[self.longitude.column][i - 1]
+        if prev is None:
+            return None
+        return self._clean(self.longitude.advance(prev))
+
+    _clean = staticmethod(StepScheme._clean)
+
+    def special(self, prev, i, src, written):
+        return None
+
+    def params(self):
+        out = dict(self.longitude.params())
+        out["of"] = self.longitude.column
+        return out
+
+    def describe(self):
+        return f"steps of the step function of column {self.longitude.column}"
