@@ -27,7 +27,7 @@ from .errors import LimitError, NumcheckRangeError, UnknownNameError
 from .limits import RELATE_MAX_SEARCH_YEARS
 from .reading import decimal_text, exact_text
 from .relations_cycles import BODIES, CYCLES, UNITS, PeriodSet, unit_named
-from .relations_known import KnownRelation, matching
+from .relations_known import KnownRelation, matching, matching_spans
 from .relations_search import best_ratios, record_spans
 
 __all__ = ["relate", "search", "RelateResult", "SearchResult", "CycleCount", "SpanRecord",
@@ -307,13 +307,24 @@ def _targets(bodies, cycles, periods: PeriodSet) -> list[tuple[str, str]]:
     return [t for t in chosen if periods.entry(*t) is not None]
 
 
+def _day_ratios(year: Fraction, max_years: int) -> list[Ratio]:
+    """Whole days in whole years: the calendar question (1461 days in 4 years ...)."""
+    out = []
+    for p, q, kind in best_ratios(year, max_years):
+        known = matching_spans("years", Fraction(q), "days", Fraction(p))
+        counted = CycleCount("day", "civil", Fraction(1), "", q * year, p, tuple(known))
+        out.append(Ratio(kind, q, counted))
+    return out
+
+
 def search(bodies, *, max_years: int = DEFAULT_SEARCH_YEARS, values: str = "modern",
            tradition: str | None = None, cycles=None) -> SearchResult:
     """The best period relations of *bodies* (a name, or several) up to *max_years*.
 
     Two parts: for each cycle of each body, the convergents and
     semiconvergents of (year / period), i.e. p cycles in q years with no
-    better fraction of fewer years; and the record spans that close the
+    better fraction of fewer years (for the sun also whole days in whole
+    years, the calendar question); and the record spans that close the
     chosen *cycles* of all the bodies at once (the moon alone: whole synodic
     months closing the anomalistic and draconitic months, as the Saros does;
     otherwise whole years).  Relations the catalogue attests are marked.
@@ -339,6 +350,8 @@ def search(bodies, *, max_years: int = DEFAULT_SEARCH_YEARS, values: str = "mode
                 known = matching("years", Fraction(q), b, cycle, p)
                 counted = _count(b, cycle, periods, q * year, nearest=p, known=known)
                 ratios.append(Ratio(kind, q, counted))
+        if body == "sun":
+            ratios.extend(_day_ratios(year, max_years))
     targets = _targets(bodies, cycles, periods)
     if bodies == ("moon",) and not cycles:
         unit, ref_days, reference = "months", periods.unit_days("months")[0], "moon synodic"

@@ -16,7 +16,7 @@ from fractions import Fraction
 
 from .relations_cycles import statement_cycle
 
-__all__ = ["KnownRelation", "known_relations", "matching"]
+__all__ = ["KnownRelation", "known_relations", "matching", "matching_spans"]
 
 # Statement units that measure a span (the left column of relate's question).
 _SPAN_UNITS = {"tropical years": "years", "sidereal years": "years", "julian years": "years",
@@ -88,3 +88,9 @@ def matching(unit: str, span: Fraction, body: str, cycle: str, count: int) -> li
         if span in rel.span(unit) and Fraction(count) in rel.count(body, cycle):
             found.append(rel)
     return found
+
+
+def matching_spans(unit_a: str, a: Fraction, unit_b: str, b: Fraction) -> list[KnownRelation]:
+    """The catalogue relations that state *a* *unit_a* = *b* *unit_b* (e.g. years and days)."""
+    a, b = Fraction(a), Fraction(b)
+    return [rel for rel in known_relations() if a in rel.span(unit_a) and b in rel.span(unit_b)]

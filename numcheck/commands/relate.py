@@ -127,7 +127,7 @@ def _show_search(result, console, top) -> None:
     for s in result.spans:
         counts = ", ".join(f"{c.nearest} {c.body} {c.cycle} ({float(c.residual_degrees):+.2f}°)"
                            for c in s.counts)
-        spans.add_row(f"{s.span} {s.unit}", f"{float(s.span_days):.3f}", counts,
+        spans.add_row(f"{s.span} {s.unit if s.span != 1 else s.unit[:-1]}", f"{float(s.span_days):.3f}", counts,
                       f"{float(s.worst_degrees):.2f}", _known_text(s.known),
                       style="bold" if s.known else "")
     console.print(spans)
