@@ -120,6 +120,15 @@ def test_thirteen_months_of_the_egyptian_year():
     assert all(m.source for m in months("egyptian"))
 
 
+def test_every_era_and_month_row_has_a_source():
+    from numcheck.calendars_names import eras
+
+    assert {e.name for e in eras()} == {"Nabonassar", "Philip", "Diocletian"}
+    assert all(e.source for e in eras())
+    assert all(m.source for m in months("julian"))
+    assert "from memory" in next(e for e in eras() if e.name == "Nabonassar").source
+
+
 @pytest.mark.parametrize("calendar", ["julian", "egyptian", "alexandrian", "jd"])
 @given(jdn=st.integers(1_900_000, 2_600_000))
 def test_label_reads_back_to_the_same_day(calendar, jdn):

@@ -161,6 +161,13 @@ def test_search_mars_records_include_both_goal_years():
     assert 47 in spans and 79 in spans    # goalyear_mars_47 and goalyear_mars_79
 
 
+def test_search_sun_gives_days_in_years():
+    ratios = [r for r in search("sun", max_years=40).ratios if r.counted.body == "day"]
+    found = {(r.counted.nearest, r.years): r.kind for r in ratios}
+    assert found[(1461, 4)] == "convergent"     # the Julian year of 365 1/4 days (common practice)
+    assert found[(365, 1)] == "convergent"
+
+
 def test_search_several_bodies_and_limits():
     result = search("venus, mars", max_years=50)
     assert result.targets == ("venus synodic", "mars synodic")
