@@ -1,0 +1,145 @@
+"""identify: classes, ranking, scales, units, bad input, JSON and the commands."""
+
+import json
+from dataclasses import replace
+from fractions import Fraction
+
+import pytest
+
+import numcheck
+from numcheck import read
+from numcheck.cli import main
+from numcheck.errors import NumcheckError, UnknownNameError
+from numcheck.identify import Target, catalogue_targets, identify
+from numcheck.identify.targets import factor_complexity, number_text, simple_factors
+
+DESIGN_FIELDS = {"id", "statement", "factor", "scale", "unit", "residual", "score"}
+
+
+def test_front_door_calls_identify_both_ways():
+    assert numcheck.identify("7,26").matches[0].factor == 2
+    import numcheck.identify as mod  # the package; calling it still identifies
+    assert mod("7,26").matches[0].factor == 2
+
+
+def test_json_fields_of_design():
+    d = identify("1,49,45;20", unit="days").to_dict()
+    assert d["matches"]
+    for m in d["matches"]:
+        assert DESIGN_FIELDS <= set(m)
+        assert isinstance(m["factor"], str) and isinstance(m["residual"], str)
+        Fraction(m["factor"]), Fraction(m["residual"])
+        assert m["explanation"]
+    scores = [m["score"] for m in d["matches"]]
+    assert scores == sorted(scores, reverse=True)
+
+
+def test_ranking_exact_then_simple_then_residual():
+    ms = identify("1,49,45;20", unit="days", top=20).matches
+    order = {"exact": 0, "truncated": 1, "rounded": 1, "damage": 1, "near": 2}
+    keys = [(order[m.how], factor_complexity(m.factor)) for m in ms]
+    assert keys == sorted(keys)
+    assert ms[0].how == "exact" and ms[0].factor == 1
+
+
+@pytest.mark.parametrize("text,how", [
+    ("29;31,50,8,20", "exact"),
+    ("29;31,50,8", "truncated"),     # the month cut after the third place
+    ("29;31", "truncated"),          # cut after the first place
+    ("29;32", "rounded"),            # rounded there (31,50 -> 32)
+    ("29;31,50,9", "near"),          # 40/60 of a unit off in the last place
+    ("29;31,50,10", "near"),         # more than one unit off: still within 1e-5 relative
+])
+def test_classes_at_the_last_place(text, how):
+    m = [x for x in identify(text, unit="days", top=30).matches if x.id == "bab_month_sysB" and x.factor == 1]
+    assert m and m[0].how == how
+
+
+def test_residual_is_in_units_of_the_last_written_place():
+    m = [x for x in identify("29;31,50,10", unit="days", top=30).matches if x.id == "bab_month_sysB"][0]
+    assert m.residual == (Fraction(10) - Fraction(8) - Fraction(20, 60))   # 29;31,50,10 - 29;31,50,8,20
+
+
+def test_floating_reading_reports_its_scale():
+    r = replace(read("1,49,45,20"), floating=True)
+    m = identify(r, unit="days").matches[0]
+    assert (m.id, m.scale, m.target) == ("saros_almagest", -1, Fraction(395120))
+
+
+def test_fixed_reading_tries_only_its_own_scale():
+    assert all(m.scale == 0 for m in identify("1,49,45,20").matches)
+
+
+def test_unit_conversion_is_named():
+    # 223 months in days with the default (Babylonian) month: a near match, convention named
+    ms = identify("6585;19,21", unit="days", top=30).matches
+    conv = [m for m in ms if m.id == "saros_almagest" and m.convention]
+    assert conv and "babylonian" in conv[0].convention
+
+
+def test_unknown_unit_lists_units():
+    with pytest.raises(UnknownNameError, match="days"):
+        identify("12", unit="dayz")
+
+
+def test_top_must_be_positive():
+    with pytest.raises(NumcheckError):
+        identify("12", top=0)
+    assert len(identify("1,49,45;20", top=3).matches) == 3
+
+
+def test_nothing_matches_says_so_with_nearest():
+    res = identify("1234;17,11,5")
+    assert not res.matches
+    assert res.nearest and "No catalogue number fits" in res.summary
+    d = res.to_dict()
+    assert d["matches"] == [] and d["nearest"][0]["relative"]
+
+
+def test_damaged_reading_matches_within_its_range():
+    res = identify("29;31,5[x],8,20", unit="days", top=30)
+    ids = {(m.id, m.how) for m in res.matches}
+    assert ("bab_month_sysB", "damage") in ids or ("bab_month_sysB", "exact") in ids
+
+
+def test_simple_factors_and_text():
+    fs = simple_factors()
+    assert Fraction(1) in fs and Fraction(12) in fs and Fraction(1, 12) in fs and Fraction(7, 5) in fs
+    assert len(fs) == len(set(fs))
+    assert number_text(Fraction(19756, 3)) == "6585;20"
+
+
+def test_catalogue_targets_window():
+    ts = catalogue_targets(220, 230, "months")
+    assert all(isinstance(t, Target) and 220 <= t.value <= 230 for t in ts)
+    assert any(t.id == "saros_almagest" and t.value == 223 and t.factor == 1 for t in ts)
+    assert all(0 < t.weight <= 1 for t in ts)
+    assert [t.value for t in ts] == sorted(t.value for t in ts)
+
+
+def test_catalogue_targets_floating():
+    ts = catalogue_targets(Fraction(6585), Fraction(6586), "days", floating=True)
+    assert any(t.id == "saros_almagest" and t.scale == 0 for t in ts)
+    small = catalogue_targets(Fraction(49, 100), Fraction(1, 2), "days", floating=True)
+    # a reading 0;29,31,50,8,20 times 60^1 is the month: scale 1, as identify reports it
+    sar = [t for t in small if t.id == "bab_month_sysB" and t.factor == 1]
+    assert sar and sar[0].scale == 1 and sar[0].value == Fraction(765433, 25920) / 60
+
+
+def test_cli_json_and_exit_codes(capsys):
+    assert main(["identify", "1,49,45;20", "--unit", "days", "--json"]) == 0
+    out = json.loads(capsys.readouterr().out)
+    assert out["matches"][0]["id"] == "saros_almagest"
+    assert main(["identify", "12", "--unit", "dayz", "--json"]) == 2
+    capsys.readouterr()
+    assert main(["catalogue", "--body", "venus", "--json"]) == 0
+    cat = json.loads(capsys.readouterr().out)
+    assert cat["count"] >= 10 and all(e["body"] == "venus" for e in cat["entries"])
+    assert main(["catalogue", "--body", "mon"]) == 2
+    assert "moon" in capsys.readouterr().err
+
+
+def test_cli_table_text(capsys):
+    assert main(["identify", "0;59,8,17", "--unit", "degrees"]) == 0
+    out = capsys.readouterr().out
+    assert "ptol_sun_motion" in out and "truncated" in out and "not readings" in out
