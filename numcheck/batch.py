@@ -46,10 +46,11 @@ class BatchResult:
 
     @property
     def summary(self) -> dict:
-        ok = [f for f in self.files if "error" not in f]
+        ok = [f for f in self.files if "error" not in f and "skipped" not in f]
         return {
             "files": len(self.files),
-            "failed": len(self.files) - len(ok),
+            "failed": sum(1 for f in self.files if "error" in f),
+            "skipped": sum(1 for f in self.files if "skipped" in f),
             "numbers": sum(f.get("numbers", 0) for f in ok),
             "damaged": sum(f.get("damaged", 0) for f in ok),
             "flagged": sum(f.get("flagged", 0) for f in ok),
@@ -172,20 +173,31 @@ def _audit_one(job: tuple) -> dict:
     src, rel, report_dir, notation, relation = job
     from .audit import audit
 
+    from .tei_read import NoTableError
+
     entry: dict = {"file": rel}
     try:
         table = _load_table(Path(src), notation)
-        result = audit(table, notation=notation, relation=relation)
+    except NoTableError as err:
+        entry["skipped"] = str(err)
+        return entry
+    except NumcheckError as err:
+        entry["error"] = str(err)
+        return entry
+    try:
+        attrs = getattr(table, "attrs", {})
+        result = audit(table, notation=notation or attrs.get("notation"), relation=relation)
     except NumcheckError as err:
         entry["error"] = str(err)
         return entry
     d = result.to_dict()
     flags, restorations = d.get("flags", []), d.get("restorations", [])
+    numbers, damaged = _cell_counts(result)
     entry.update({
-        "numbers": _count_numbers(result, table),
-        "damaged": len({(r.get("row"), r.get("column")) for r in restorations}),
+        "numbers": numbers,
+        "damaged": damaged,
         "flagged": len(flags),
-        "restored": len(restorations),
+        "restored": len({(r.get("row"), r.get("column")) for r in restorations}),
         "schemes": d.get("schemes", []),
         "flags": flags,
         "restorations": restorations,
@@ -195,25 +207,27 @@ def _audit_one(job: tuple) -> dict:
     return entry
 
 
-def _count_numbers(result, table) -> int:
-    """How many numbers the audit read: its own count if it gives one, else the non-empty cells."""
-    for name in ("numbers", "cells"):
-        value = getattr(result, name, None)
-        if isinstance(value, int):
-            return value
-    frame = getattr(result, "table", None)
-    if frame is None and not isinstance(table, str):
-        frame = table
-    if frame is None:
-        return 0
-    try:
-        return int((frame.astype(str).apply(lambda col: col.str.strip() != "")).to_numpy().sum())
-    except (AttributeError, TypeError, ValueError):
-        return 0
+def _cell_counts(result) -> tuple[int, int]:
+    """(numbers read, damaged cells) of an audited table, from the audit's own cells."""
+    table = getattr(result, "table", None)
+    columns = getattr(table, "columns", None)
+    if not isinstance(columns, dict):
+        return 0, 0
+    numbers = damaged = 0
+    for column in columns.values():
+        for cell in column.cells:
+            if not str(cell.text).strip():
+                continue
+            numbers += 1
+            reading = getattr(cell, "reading", None)
+            if getattr(cell, "damaged", False) or (reading is not None and reading.damaged):
+                damaged += 1
+    return numbers, damaged
 
 
 def _report_stem(rel: str) -> str:
-    return rel.replace("/", "__").rsplit(".", 1)[0]
+    """A flat, unique name for a file's reports (``sub/a.tsv`` -> ``sub__a.tsv``)."""
+    return rel.replace("/", "__")
 
 
 def _write_reports(result, report_dir: Path, rel: str) -> dict:
@@ -274,8 +288,9 @@ def write_index(result: BatchResult, path: str | os.PathLike) -> None:
                 if "html" in reports else esc(f["file"]))
         plot = f'<a href="{esc(reports["plot"])}">plot</a>' if "plot" in reports else ""
         flags = f'<a href="{esc(reports["flags"])}">flags</a>' if "flags" in reports else ""
-        if "error" in f:
-            rows.append(f"<tr class=\"err\"><td>{link}</td><td colspan=\"5\">{esc(f['error'])}</td></tr>")
+        if "error" in f or "skipped" in f:
+            why = f.get("error") or "skipped: " + f["skipped"]
+            rows.append(f"<tr class=\"err\"><td>{link}</td><td colspan=\"6\">{esc(why)}</td></tr>")
             continue
         kinds = ", ".join(sorted({s.get("kind", "?") for s in f.get("schemes", [])}))
         rows.append(f"<tr><td>{link}</td><td>{f.get('numbers', 0)}</td><td>{f.get('damaged', 0)}</td>"
@@ -286,7 +301,8 @@ def write_index(result: BatchResult, path: str | os.PathLike) -> None:
 <style>body{{font-family:sans-serif;margin:2em}}table{{border-collapse:collapse}}
 td,th{{border:1px solid #bbb;padding:.3em .6em;text-align:left}}tr.err td{{color:#a00}}</style></head>
 <body><h1>numcheck audit of {esc(result.folder)}</h1>
-<p>{s['files']} files ({s['failed']} could not be read), {s['numbers']} numbers read,
+<p>{s['files']} files ({s['failed']} could not be read, {s['skipped']} without a table),
+{s['numbers']} numbers read,
 {s['damaged']} damaged, {s['flagged']} flagged, {s['restored']} restorations proposed.</p>
 <p>Flags and restorations are suggestions for the editor's judgement, not readings.</p>
 <table><tr><th>file</th><th>numbers</th><th>damaged</th><th>flagged</th><th>restored</th>

@@ -27,6 +27,7 @@ from .errors import LimitError, NumcheckError
 __all__ = [
     "TEI_NS",
     "TeiError",
+    "NoTableError",
     "parse_tei",
     "num_pieces",
     "leiden_text",
@@ -69,6 +70,10 @@ class TeiError(NumcheckError):
         self.line = line
         where = f"{self.path}, line {line}" if line else self.path
         super().__init__(f"{where}: {message}")
+
+
+class NoTableError(TeiError):
+    """A TEI file holds no ``<table>`` (a batch audit passes over it)."""
 
 
 def _parser() -> etree.XMLParser:
@@ -323,7 +328,7 @@ def table_to_dataframe(path: str | os.PathLike, *, table: int | str = 0,
         el = chosen[0]
     else:
         if not tables:
-            raise TeiError(path, None, "no TEI <table> in this file (a table to audit needs <table>, <row>, <cell>)")
+            raise NoTableError(path, None, "no TEI <table> in this file (a table to audit needs <table>, <row>, <cell>)")
         if not 0 <= table < len(tables):
             raise TeiError(path, None, f"asked for table {table + 1}, but the file has {len(tables)}")
         el = tables[table]

@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+from contextlib import contextmanager
 from pathlib import Path
 
 NAME = "annotate"
@@ -47,26 +48,36 @@ def run(args, console) -> dict:
 def _run_folder(args, console) -> dict:
     from ..batch import annotate_folder
 
-    if console is None:
+    with progress_bar(console, "annotating") as progress:
         result = annotate_folder(args.input, args.output, alternatives=args.alternatives,
-                                 fix=args.fix, notation=args.notation, workers=args.workers)
-    else:
-        from rich.progress import BarColumn, MofNCompleteColumn, Progress, TextColumn
-
-        with Progress(TextColumn("annotating"), BarColumn(), MofNCompleteColumn(),
-                      TextColumn("{task.description}"), console=console, transient=True) as bar:
-            task = bar.add_task("", total=None)
-
-            def progress(done, total, name):
-                bar.update(task, completed=done, total=total, description=name)
-
-            result = annotate_folder(args.input, args.output, alternatives=args.alternatives,
-                                     fix=args.fix, notation=args.notation, workers=args.workers,
-                                     progress=progress)
+                                 fix=args.fix, notation=args.notation, workers=args.workers,
+                                 progress=progress)
     out = result.to_dict()
     if console is not None:
         show_batch(out, console, "annotate")
     return out
+
+
+@contextmanager
+def progress_bar(console, label: str):
+    """A rich progress bar for a batch run; yields the ``progress(done, total, name)`` callback.
+
+    With ``console=None`` (``--json``) it yields ``None``: nothing is drawn.
+    Also used by ``numcheck audit DIR``.
+    """
+    if console is None:
+        yield None
+        return
+    from rich.progress import BarColumn, MofNCompleteColumn, Progress, TextColumn
+
+    with Progress(TextColumn(label), BarColumn(), MofNCompleteColumn(),
+                  TextColumn("{task.description}"), console=console, transient=True) as bar:
+        task = bar.add_task("", total=None)
+
+        def progress(done, total, name):
+            bar.update(task, completed=done, total=total, description=name)
+
+        yield progress
 
 
 def _show_file(out: dict, console) -> None:
@@ -108,17 +119,21 @@ def show_batch(out: dict, console, kind: str) -> None:
     for f in out["files"]:
         if "error" in f:
             table.add_row(escape(f["file"]), "", "", "", "", "[red]not read (see below)[/red]")
+        elif "skipped" in f:
+            table.add_row(escape(f["file"]), "", "", "", "", "skipped (see below)")
         else:
             table.add_row(escape(f["file"]), str(f.get("numbers", 0)), str(f.get("damaged", 0)),
                           str(f.get("flagged", 0)), str(f.get("restored", 0)), "")
     s = out["summary"]
     table.add_section()
-    table.add_row(f"{s['files']} files ({s['failed']} failed)", str(s["numbers"]), str(s["damaged"]),
+    table.add_row(f"{s['files']} files ({s['failed']} failed, {s.get('skipped', 0)} skipped)", str(s["numbers"]), str(s["damaged"]),
                   str(s["flagged"]), str(s["restored"]), "", style="bold")
     console.print(table)
     for f in out["files"]:
         if "error" in f:
             console.print(f"[red]{escape(f['file'])}:[/red] {escape(f['error'])}")
+        elif "skipped" in f:
+            console.print(f"{escape(f['file'])}: skipped: {escape(f['skipped'])}")
     if out.get("out"):
         console.print(f"output: {escape(out['out'])}")
     if out.get("index"):
