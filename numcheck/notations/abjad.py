@@ -112,6 +112,7 @@ class _Mark:
     half: bool                     # doubt written with half brackets
     start: int
     end: int
+    written: int = 0               # the value of the letter as written (restored letters too)
 
 
 def _error(text: str, pos: int, what: str, expected: str) -> NumcheckSyntaxError:
@@ -203,8 +204,10 @@ def _marks(text: str, tokens: list[Token], state: dict, values: dict, all_values
             info = _table()[ch]
             status = _status(state, False)
             doubtful = state["half"] is not None or info.kind == "dotless"
-            marks.append(_Mark(ch, values[ch], "letter", status, doubtful, state["half"] is not None,
-                               start, end))
+            # A restored letter is the editor's: the traces allow any letter there.
+            options = all_values if status is Status.RESTORED else values[ch]
+            marks.append(_Mark(ch, options, "letter", status, doubtful, state["half"] is not None,
+                               start, end, written=values[ch][0]))
         elif t == "ZERO":
             marks.append(_Mark(str(tok), (0,), "zero", _status(state, False), False, False, start, end))
         elif t == "UNREAD":
@@ -236,21 +239,24 @@ def _group_slot(text: str, marks: list[_Mark], place: int, fractional: bool,
     if zeros and len(counted) > 1:
         raise _error(text, zeros[0].start, "the zero sign shares its place with letters",
                      "the zero sign alone in its place")
-    _check_order(text, [m for m in counted if len(m.options) == 1 and m.kind != "zero"])
+    _check_order(text, [m for m in counted if m.kind == "letter" and m.status not in _OPEN])
+    _check_order(text, [m for m in counted if m.kind == "letter"], as_written=True)
     totals = _totals(text, counted, fractional)
     editor = None
     opened = [m for m in counted if m.status in _OPEN]
-    if opened and all(m.kind == "letter" and len(m.options) == 1 for m in opened):
-        editor = Fraction(sum(m.options[0] for m in counted))
+    if opened and all(m.kind == "letter" for m in opened):
+        editor = Fraction(sum(m.written for m in counted))
     kinds = [m.status for m in counted] + [Status.DOUBTFUL for m in counted if m.doubtful]
     status = max(kinds, key=_KIND_RANK.__getitem__)
     return Slot(values=totals, place=place, status=status, text=written, span=(start, end),
                 editor=editor, form=tuple(marks))
 
 
-def _check_order(text: str, known: list[_Mark]) -> None:
+def _check_order(text: str, known: list[_Mark], as_written: bool = False) -> None:
+    """Letters must fall in order; *as_written* checks the editor's restorations too."""
+    known = [m for m in known if len(m.options) == 1 or as_written and m.status is Status.RESTORED]
     for a, b in zip(known, known[1:]):
-        oa, ob = _order(a.options[0]), _order(b.options[0])
+        oa, ob = _order(a.written), _order(b.written)
         if ob == oa:
             raise _error(text, b.start, f"two letters of the same order ({_ORDER_NAMES[ob]}) in one group",
                          "at most one letter each for thousands, hundreds, tens and units")

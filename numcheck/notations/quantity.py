@@ -37,10 +37,10 @@ NAME = "quantity"
 BAD_EXAMPLES: list[tuple[str, int, str]] = [
     ("3 signs 12", 9, "a number with no unit after it"),
     ("days 3", 1, "a unit with no number before it"),
-    ("3 days 4 degrees", 10, "units that measure different things in one quantity"),
-    ("40 Taurus", 1, "a position within a sign of 30 degrees or more"),
+    ("3 days 4 degrees", 10, "units that measure different things"),
+    ("40 Taurus", 1, "is not a position within the sign"),
     ("12 Taurus Gemini", 11, "a second zodiacal sign"),
-    ("3 days 1,6a hours", 12, "a number that cannot be read"),
+    ("3 days 1,6a hours", 11, "a number that cannot be read"),
 ]
 
 #: Vulgar fraction characters and their exact values (checked against
@@ -141,7 +141,7 @@ def _pieces(text: str, words: list[_Word]) -> list[_Piece]:
     i = 0
     while i < len(words):
         w = words[i]
-        found = _unit_name(words, i) if i else (_unit_name(words, i) if w.kind == "mark" else None)
+        found = _unit_name(words, i)
         if found is not None:
             name, n = found
             last = words[i + n - 1]
@@ -182,7 +182,7 @@ def parse(text: str, *, notation: str | None = None) -> Reading:
     reasons: list[str] = []
     readings = [_read_number(text, p, notation, reasons) for p, _ in components]
     unit_names = [u for _, u in components]
-    result_unit = _finest(text, components)
+    result_unit = _finest(text, components, pieces)
     slots: list[Slot] = []
     layout = tuple(pieces)
     for k, ((piece, name), reading) in enumerate(zip(components, readings)):
@@ -231,7 +231,7 @@ def _components(text: str, pieces: list[_Piece]) -> tuple[list[tuple[_Piece, str
         if zodiac is not None and pieces[0] is zodiac:
             components.append((pending, "degrees"))
         else:
-            raise _syntax(text, pending.end, "a number with no unit after it",
+            raise _syntax(text, pending.start, "a number with no unit after it",
                           "a unit word (days, degrees, signs, UŠ, bēru, cubits, fingers ...)")
     if not components:
         raise _syntax(text, 0, "no number", "a number and a unit")
@@ -242,17 +242,15 @@ def _syntax(text: str, pos: int, what: str, expected: str) -> NumcheckSyntaxErro
     return NumcheckSyntaxError(f"Cannot read {text!r} as a quantity: {what}", text, pos, expected=expected)
 
 
-def _finest(text: str, components: list[tuple[_Piece, str]]) -> str:
+def _finest(text: str, components: list[tuple[_Piece, str]], pieces: list[_Piece]) -> str:
     names = [u for _, u in components]
-    dims = {units.dimension(u) for u in names}
-    if len(dims) > 1:
-        first = units.dimension(names[0])
-        bad = next(p for p, u in components if units.dimension(u) != first)
-        unit_start = text.find(" ", bad.end) + 1 if text[bad.end:bad.end + 1] == " " else bad.end
-        raise units.IncompatibleUnitsError(
-            f"Cannot read {text!r} as one quantity: units that measure different things in one "
-            f"quantity ({', '.join(f'{u} ({units.dimension(u)})' for u in dict.fromkeys(names))}) "
-            f"at column {unit_start + 1}.")
+    first = units.dimension(names[0])
+    if any(units.dimension(u) != first for u in names):
+        bad = next(p for p in pieces if p.kind == "unit" and units.dimension(p.unit) != first)
+        listed = ", ".join(f"{u} ({units.dimension(u)})" for u in dict.fromkeys(names))
+        raise _syntax(text, bad.start, f"units that measure different things ({listed})",
+                      f"units of {first} only: "
+                      f"{', '.join(u.name for u in units.UNITS.values() if u.dimension == first)}")
     finest = min(names, key=lambda u: (units.unit(u).factor, names.index(u)))
     # Minutes and seconds of arc written after degrees (12°30′) are the
     # degree's sexagesimal fractions: the quantity stays in degrees.
@@ -291,7 +289,8 @@ def _read_number(text: str, piece: _Piece, notation: str | None, reasons: list[s
             inner = notation_module(name).parse(main)
         except (NumcheckSyntaxError, NumcheckRangeError) as err:
             where = piece.start + (getattr(err, "position", 0) or 0)
-            raise _syntax(text, where, f"a number that cannot be read ({str(err).splitlines()[0]})",
+            why = getattr(err, "reason", str(err).splitlines()[0])
+            raise _syntax(text, where, f"a number that cannot be read ({why})",
                           f"a number in the {name} notation") from None
         slots.extend(inner.slots)
         base, floating, warnings, notation_used = inner.base, inner.floating, inner.warnings, name

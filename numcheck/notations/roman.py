@@ -71,6 +71,7 @@ class _Letter:
     doubtful: bool
     start: int           # positions in the NFC text
     end: int
+    mark: str = "?"      # how the doubt was written: "?" or an underdot (U+0323)
 
 
 class _OrderError(Exception):
@@ -165,7 +166,8 @@ def _letters(text: str, nfd: str, where: list[int], tokens) -> list[_Letter]:
         elif t in ("DOUBT", "UNDERDOT"):
             if not letters or letters[-1].kind != "letter":
                 raise _error(text, start, "a doubt mark with no letter before it", "a letter before it")
-            letters[-1] = replace(letters[-1], doubtful=True, end=max(letters[-1].end, end))
+            letters[-1] = replace(letters[-1], doubtful=True, end=max(letters[-1].end, end),
+                                  mark="?" if t == "DOUBT" else "\u0323")
         elif t == "OVERLINE":
             if not letters or letters[-1].kind != "letter" or letters[-1].value >= 1000 and \
                     letters[-1].text.endswith("\u0305"):
@@ -411,7 +413,7 @@ def _piece(x: _Letter) -> tuple[str, str | None]:
         return ("[.]", None)
     if x.kind == "gap":
         return (x.text, None)
-    return (x.text + ("?" if x.doubtful else ""), _OPEN.get(x.status))
+    return (x.text + (x.mark if x.doubtful else ""), _OPEN.get(x.status))
 
 
 def _join(pieces: list[tuple[str, str | None]]) -> str:
