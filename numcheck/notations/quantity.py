@@ -125,15 +125,13 @@ def _zodiac(word: _Word) -> int | None:
 
 
 def has_units(text: str) -> bool:
-    """Whether *text* has a unit word, degree mark or zodiacal sign after a number."""
+    """Whether *text* has a unit word, a degree mark or a zodiacal sign (a quantity)."""
     try:
         words = _words(text)
     except UnexpectedInput:
         return False
-    for i in range(1, len(words)):
-        if _unit_name(words, i) is not None or _zodiac(words[i]) is not None:
-            return True
-    return bool(words) and _zodiac(words[0]) is not None and len(words) > 1
+    return any(_unit_name(words, i) is not None or _zodiac(words[i]) is not None
+               for i in range(len(words)))
 
 
 def _pieces(text: str, words: list[_Word]) -> list[_Piece]:
