@@ -187,14 +187,16 @@ def _sequence(value: Fraction, places: int, floating: bool) -> list[int] | None:
 def classify(written: Fraction, expected: Fraction, *, places: int = 0, floating: bool = False,
              notation: str = "sexagesimal", longitude: bool = False,
              prev: Fraction | None = None, neighbours: tuple[Fraction | None, ...] = (),
-             special: Diagnosis | None = None, written_digits: list[int] | None = None) -> Diagnosis:
+             special: Diagnosis | None = None, written_digits: list[int] | None = None,
+             modulus: Fraction | None = None) -> Diagnosis:
     """Name the slip that turns *expected* into *written*, by its signature.
 
     *places* is the number of fractional places of the cell; *prev* the value
     the scribe computed from (the line before, for a carry); *neighbours* the
     values around the cell (the lines above and below, the cells beside it);
     *special* a scheme's own diagnosis (a missed turn, a zone boundary), which
-    wins when given.  ``unexplained`` when no signature fits.
+    wins when given; *modulus* the cycle of a longitude (360), so that a step
+    past the end of the circle still counts as an addition.  ``unexplained`` when no signature fits.
 
     >>> classify(Fraction(1801, 60), Fraction(1800, 60), places=1).kind
     'unit-slip'
@@ -215,7 +217,7 @@ def classify(written: Fraction, expected: Fraction, *, places: int = 0, floating
             k, dw = one
             what = _place_label(k, floating)
             if prev is not None and abs(dw) == 1 and not floating:
-                carry = _carry_kind(prev, expected, written, k)
+                carry = _carry_kind(prev, expected, written, k, modulus)
                 if carry is not None:
                     return carry
             if abs(dw) == 1:
@@ -227,7 +229,7 @@ def classify(written: Fraction, expected: Fraction, *, places: int = 0, floating
                 if alt is not None:
                     return alt
         elif prev is not None and not floating:
-            carry = _carry_kind(prev, expected, written, None)
+            carry = _carry_kind(prev, expected, written, None, modulus)
             if carry is not None:
                 return carry
     if not floating and expected != 0 and written in (expected * _BASE, expected / _BASE):
@@ -273,10 +275,15 @@ def _one_place(w: dict[int, int], e: dict[int, int]) -> tuple[int, int] | None:
     return k, w.get(k, 0) - e.get(k, 0)
 
 
-def _carry_kind(prev: Fraction, expected: Fraction, written: Fraction, k: int | None) -> Diagnosis | None:
+def _carry_kind(prev: Fraction, expected: Fraction, written: Fraction, k: int | None,
+                modulus: Fraction | None = None) -> Diagnosis | None:
     """A carry dropped or doubled: ±1 in one place where the sum carried into it."""
     diff = written - expected
     step = expected - prev
+    if modulus:
+        step %= modulus
+        if step > modulus / 2:
+            step -= modulus
     for place in ([k] if k is not None else range(-8, 4)):
         unit = Fraction(_BASE) ** place
         if abs(diff) != unit:

@@ -42,7 +42,7 @@ def audit(table, *, notation: str | None = None, relation: str | None = None,
     restorations, misfits = restore_cells(tab, frame, pending)
     for p, _ in misfits:
         findings.append(Finding(p.index, p.column, "unexplained",
-                                "no reading of the traces fits the scheme here", p.expected, p.expected))
+                                "no reading of the traces fits the scheme here", None, p.expected))
     findings.sort(key=lambda f: (f.index, frame.names.index(f.column)))
     found = {s.column for s in schemes}
     unchecked = [n for n in frame.names if n not in found]

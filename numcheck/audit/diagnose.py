@@ -105,7 +105,7 @@ def _context(table, frame, column, i, written, expected, prev, special) -> Diagn
     return classify(f(written), f(expected), places=cell.places, floating=cell.floating,
                     notation=cell.notation, longitude=bool(frame.modulus.get(column)),
                     prev=None if prev is None else f(prev), neighbours=tuple(neighbours),
-                    special=special,
+                    special=special, modulus=f(frame.modulus.get(column)),
                     written_digits=list(cell.digits) if cell.digits is not None else None)
 
 

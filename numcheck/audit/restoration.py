@@ -15,7 +15,6 @@ from dataclasses import dataclass, field
 from fractions import Fraction
 
 from ..reading import exact_text
-from ..slips import write_value
 from .diagnose import Pending
 from .schemes import Frame
 from .table import Table, sign_index
@@ -55,9 +54,7 @@ def restore_cells(table: Table, frame: Frame, pending: list[Pending], top: int =
         offset = 30 * sign_index(cell.sign_name) if cell.sign_name else 0
         if cell.sign_name:
             due = (due - offset) % 360
-        expected_text = write_value(frame.fraction(p.expected), notation=cell.notation,
-                                    places=cell.places, floating=cell.floating,
-                                    sign_name=cell.sign_name, longitude=bool(cell.sign_name))
+        expected_text = table.columns[p.column].write(p.index, frame.fraction(p.expected))
         reason = f"the {p.scheme.kind} scheme of column {p.column} gives {expected_text} here"
         if p.scheme.kind == "zigzag":
             reason += " (its trailing places agree with the lines of the same run)"

@@ -5,7 +5,6 @@ from __future__ import annotations
 from dataclasses import dataclass, field
 
 from ..reading import exact_text
-from ..slips import write_value
 from .diagnose import Finding
 from .restoration import Restoration
 from .schemes import Frame, Scheme
@@ -51,12 +50,10 @@ class AuditResult:
             "row": f.index + 1,
             "column": f.column,
             "written": cell.text,
-            "expected": write_value(expected, notation=cell.notation, places=cell.places,
-                                    floating=cell.floating, sign_name=cell.sign_name,
-                                    longitude=bool(cell.sign_name)),
+            "expected": self.table.columns[f.column].write(f.index, expected),
             "kind": f.kind,
             "reason": f.reason,
-            "written_value": exact_text(fr(f.written)),
+            "written_value": exact_text(fr(f.written)) if f.written is not None else "",
             "expected_value": exact_text(expected),
         }
         if f.carried_into:

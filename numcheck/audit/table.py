@@ -77,10 +77,24 @@ class Column:
     notation: str = "sexagesimal"
     longitude: bool = False       # written as degrees within a named sign
     floating: bool = False
+    final_zeros: bool = False     # the scribe writes final empty places (29;30,0)
 
     @property
     def values(self) -> list[Fraction | None]:
         return [c.value for c in self.cells]
+
+    def write(self, index: int, value: Fraction) -> str:
+        """*value* as the scribe of this column would write it in row *index* (0-based).
+
+        In the cell's notation; final empty places only where the column
+        writes them (to the cell's own number of places).
+        """
+        from ..slips import write_value
+        cell = self.cells[index]
+        return write_value(value, notation=cell.notation,
+                           places=cell.places if self.final_zeros else 0,
+                           floating=cell.floating, sign_name=cell.sign_name,
+                           longitude=self.longitude)
 
 
 @dataclass
@@ -288,5 +302,6 @@ def _column(name: str, cells: list[Cell], source: str) -> Column:
         raise NumcheckError(
             f"Column {name!r} of {source} writes longitudes within named signs, but row "
             f"{odd.row} ({odd.text!r}) names no sign.")
+    final_zeros = any(c.places and c.digits and c.digits[-1] == 0 for c in cells)
     return Column(name=name, cells=cells, notation=main, longitude=bool(signs),
-                  floating=any(c.floating for c in cells))
+                  floating=any(c.floating for c in cells), final_zeros=final_zeros)

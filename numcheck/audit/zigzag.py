@@ -40,7 +40,12 @@ class ZigzagScheme(Scheme):
             return (2 * self.m - nv, 1)
         return (nv, direction)
 
+    def _inside(self, v) -> bool:
+        return (self.M is None or v <= self.M) and (self.m is None or v >= self.m)
+
     def start(self, value, i, nxt, src):
+        if not self._inside(value):
+            return None
         for direction in (1, -1):
             got = self.step((value, direction), i + 1, src)
             if got[0] == nxt:
@@ -56,6 +61,8 @@ class ZigzagScheme(Scheme):
         if self.m is not None:
             guesses.append(2 * self.m - v + d)
         for p in guesses:
+            if not self._inside(p):
+                continue
             for pd in (direction, -direction):
                 if self.step((p, pd), i, src) == (v, direction):
                     return (p, pd)

@@ -46,7 +46,7 @@ def plot_bytes(result, fmt: str = "png") -> bytes:
             if pts:
                 ax.plot([p[0] for p in pts], [p[1] for p in pts], "-", lw=0.8, color="#1f77b4",
                         label=f"scheme: {scheme.kind}")
-        flagged = by_col.get(name, [])
+        flagged = [f for f in by_col.get(name, []) if f.written is not None]
         slips = [f for f in flagged if f.kind != "carried-forward"]
         carried = [f for f in flagged if f.kind == "carried-forward"]
         if carried:

@@ -1,0 +1,283 @@
+"""Audit of generated ephemerides: every injected slip is located, classed and corrected.
+
+The tables come from published parameters (tests/tablegen.py names the
+sources: lunar System B column A and its longitude, Neugebauer ACT 1955 vol. 1;
+Jupiter Systems A and B, ACT vol. 2).  Each test injects one slip of a known
+kind and checks the row, the column, the kind and the expected text (which
+must be the cell as the scheme gives it, in the cell's own notation).
+"""
+
+from __future__ import annotations
+
+from fractions import Fraction as F
+
+import pandas as pd
+import pytest
+
+from numcheck.audit import audit
+from numcheck.reading import sexagesimal_text as sxt
+
+from tablegen import (LUNAR_B_A, carry_into, jupiter_a, jupiter_b, longitude_text, lunar_b, sx,
+                      write_tsv)
+
+N = 40
+
+
+@pytest.fixture(scope="module")
+def lunar():
+    a, b = lunar_b(N)
+    return a, b, [sxt(x) for x in a], [longitude_text(x) for x in b]
+
+
+def _slips(result):
+    return [f for f in result.flags if f["kind"] != "carried-forward"]
+
+
+def _audit_ab(A, B, **kw):
+    return audit(pd.DataFrame({"A": A, "B": B}), **kw)
+
+
+def test_clean_lunar_table_has_no_flags(lunar):
+    a, b, A, B = lunar
+    r = _audit_ab(A, B)
+    assert r.flags == []
+    kinds = {s.column: s.kind for s in r.schemes}
+    assert kinds == {"A": "zigzag", "B": "running-sum"}
+
+
+def test_clean_lunar_table_from_a_tsv_file(lunar, tmp_path):
+    a, b, A, B = lunar
+    path = tmp_path / "ephemeris.tsv"
+    write_tsv(path, ["A", "B"], [A, B])
+    d = audit(path).to_dict()
+    assert d["flags"] == [] and d["restorations"] == []
+    assert d["schemes"][1]["params"]["of"] == "A"
+    assert d["schemes"][1]["params"]["modulus"]["value"] == "360"
+
+
+def _inject_a(lunar, row, text):
+    a, b, A, B = lunar
+    A2 = list(A)
+    A2[row - 1] = text
+    return _audit_ab(A2, B)
+
+
+@pytest.mark.parametrize("row, mutate, kind", [
+    # (1-based row, written value from the true one, kind)
+    (11, lambda v: v + F(1, 60), "unit-slip"),          # one wedge more in the minutes
+    (12, lambda v: v - F(10, 3600), "ten-slip"),        # one ten-corner fewer in the seconds
+    (13, lambda v: v * 60, "place-shift"),              # written one place too high
+    (20, lambda v: 2 * v, "intermediate-value"),        # the double copied from a worksheet
+])
+def test_isolated_slip_in_progress_column(lunar, row, mutate, kind):
+    a, b, A, B = lunar
+    r = _inject_a(lunar, row, sxt(mutate(a[row - 1])))
+    slips = _slips(r)
+    assert len(slips) == 1, r.flags
+    f = slips[0]
+    assert (f["row"], f["column"], f["kind"]) == (row, "A", kind)
+    assert f["expected"] == A[row - 1]
+    # B was computed with the right value: no flag in B at all.
+    assert not [g for g in r.flags if g["column"] == "B"]
+
+
+def test_copied_neighbour(lunar):
+    a, b, A, B = lunar
+    r = _inject_a(lunar, 6, A[4])
+    (f,) = _slips(r)
+    assert (f["row"], f["kind"], f["expected"]) == (6, "copied-neighbour", A[5])
+
+
+def test_merged_and_split_places(lunar):
+    a, b, A, B = lunar
+    # Row 9 is 28;12,41,20: 12 and 41 merged give 28;53,20.
+    assert A[8] == "28;12,41,20"
+    (f,) = _slips(_inject_a(lunar, 9, "28;53,20"))
+    assert (f["kind"], f["expected"]) == ("merged-places", "28;12,41,20")
+    # Row 2 is 29;49,20: 49 split into 40 and 9.
+    assert A[1] == "29;49,20"
+    (f,) = _slips(_inject_a(lunar, 2, "29;40,9,20"))
+    assert (f["kind"], f["expected"]) == ("split-place", "29;49,20")
+
+
+def test_dropped_zero(lunar):
+    a, b, A, B = lunar
+    assert A[23] == "29;0,2,40"
+    (f,) = _slips(_inject_a(lunar, 24, "29;2,40"))
+    assert (f["row"], f["kind"], f["expected"]) == (24, "dropped-zero", "29;0,2,40")
+
+
+def test_missed_turn_is_a_turning_point_slip(lunar):
+    a, b, A, B = lunar
+    # Row 15 is the first line after the maximum 30;1,59 is passed.
+    row = next(i for i in range(1, N) if a[i] < a[i - 1] and a[i - 1] > a[i - 2]) + 0
+    straight = a[row - 2] + LUNAR_B_A["d"]
+    assert straight > LUNAR_B_A["M"]
+    r = _inject_a(lunar, row, sxt(straight))
+    (f,) = _slips(r)
+    assert (f["row"], f["kind"], f["expected"]) == (row, "turning-point", A[row - 1])
+
+
+def test_isolated_slip_in_longitude(lunar):
+    a, b, A, B = lunar
+    B2 = list(B)
+    B2[20] = longitude_text(b[20] + F(10, 3600))
+    r = _audit_ab(A, B2)
+    assert [(f["row"], f["column"], f["kind"], f["expected"]) for f in r.flags] == \
+        [(21, "B", "ten-slip", B[20])]
+
+
+def test_sign_not_advanced(lunar):
+    a, b, A, B = lunar
+    B2 = list(B)
+    B2[16] = longitude_text(b[16] - 30)
+    (f,) = _audit_ab(A, B2).flags
+    assert (f["row"], f["kind"], f["expected"]) == (17, "sign-error", B[16])
+
+
+def test_dropped_carry_in_the_running_sum(lunar):
+    a, b, A, B = lunar
+    # Find a line whose sum carried into the degrees (units place) and drop the carry.
+    row = next(i for i in range(5, N) if carry_into(b[i - 1] % 30, a[i], 0) and b[i] % 30 >= 1)
+    B2 = list(B)
+    B2[row] = longitude_text(b[row] - 1)
+    (f,) = _audit_ab(A, B2).flags
+    assert (f["row"], f["kind"], f["expected"]) == (row + 1, "carry", B[row])
+
+
+def test_carried_slip_is_reported_once(lunar):
+    a, b, A, B = lunar
+    B2 = list(B[:25]) + [longitude_text(x + F(1, 60)) for x in b[25:]]
+    r = _audit_ab(A, B2)
+    slips = _slips(r)
+    assert len(slips) == 1
+    assert slips[0]["row"] == 26 and slips[0]["expected"] == B[25]
+    assert slips[0]["carried_into"] == list(range(27, N + 1))
+    carried = [f for f in r.flags if f["kind"] == "carried-forward"]
+    assert [f["row"] for f in carried] == list(range(27, N + 1))
+    assert all(f["expected"] == B[f["row"] - 1] for f in carried)
+    assert all(f["carried_from"] == {"column": "B", "row": 26} for f in carried)
+
+
+def test_longitude_computed_with_the_wrong_progress_carries_it(lunar):
+    """A slip in A that the scribe used for B: one slip (in A); B inherits it."""
+    a, b, A, B = lunar
+    A2 = list(A)
+    A2[10] = sxt(a[10] + F(1, 60))
+    B2 = list(B[:10]) + [longitude_text(x + F(1, 60)) for x in b[10:]]
+    r = _audit_ab(A2, B2)
+    slips = _slips(r)
+    assert [(f["row"], f["column"], f["kind"]) for f in slips] == [(11, "A", "unit-slip")]
+    carried = [f for f in r.flags if f["kind"] == "carried-forward"]
+    assert {f["column"] for f in carried} == {"B"}
+    assert [f["row"] for f in carried] == list(range(11, N + 1))
+    assert carried[0]["carried_from"] == {"column": "A", "row": 11}
+
+
+def test_slip_in_the_first_line(lunar):
+    a, b, A, B = lunar
+    (f,) = _slips(_inject_a(lunar, 1, sxt(a[0] + F(1, 60))))
+    assert (f["row"], f["expected"]) == (1, A[0])
+
+
+def test_two_slips_in_one_table(lunar):
+    a, b, A, B = lunar
+    A2, B2 = list(A), list(B)
+    A2[5] = sxt(a[5] + F(1, 60))
+    B2[30] = longitude_text(b[30] - F(1, 3600))
+    r = _audit_ab(A2, B2)
+    assert [(f["row"], f["column"]) for f in r.flags] == [(6, "A"), (31, "B")]
+
+
+def test_damaged_cells_are_restored_from_the_scheme(lunar):
+    a, b, A, B = lunar
+    A2, B2 = list(A), list(B)
+    assert A[7] == "28;26,38"
+    A2[7] = "28;2[x],38"
+    B2[12] = B[12].replace(B[12].split(";")[0], "[x]", 1)
+    r = _audit_ab(A2, B2)
+    assert r.flags == []
+    best = {}
+    for x in r.restorations:
+        best.setdefault((x.index + 1, x.column), x)
+    ra = best[(8, "A")]
+    assert ra.value == a[7] and ra.text == "28;2[6],38" and ra.probability > 0.5
+    rb = best[(13, "B")]
+    assert rb.value == b[12] and rb.probability > 0.5
+    assert rb.text.endswith(B[12].split()[-1])
+
+
+def test_a_damaged_cell_no_reading_fits_is_flagged(lunar):
+    a, b, A, B = lunar
+    A2 = list(A)
+    A2[7] = "29;2[x],38"   # the value due is 28;26,38: the traces cannot give it
+    r = _audit_ab(A2, B)
+    (f,) = r.flags
+    assert (f["row"], f["kind"], f["expected"]) == (8, "unexplained", "28;26,38")
+
+
+def test_jupiter_system_a_zone_boundary_slip():
+    lam = jupiter_a(N)
+    L = [longitude_text(x) for x in lam]
+    clean = audit(pd.DataFrame({"L": L}))
+    assert clean.flags == []
+    # a line that crosses a boundary, written with the old zone's full rate
+    span_fast = (F(85) - F(240)) % 360
+    row = next(i for i in range(3, N) if (lam[i] - lam[i - 1]) % 360 not in (30, 36))
+    in_fast = (lam[row - 1] - 240) % 360 < span_fast
+    L2 = list(L)
+    L2[row] = longitude_text(lam[row - 1] + (36 if in_fast else 30))
+    r = audit(pd.DataFrame({"L": L2}))
+    (f,) = _slips(r)
+    assert (f["row"], f["kind"], f["expected"]) == (row + 1, "zone-boundary", L[row])
+
+
+def test_jupiter_system_a_arcs_beside_longitudes():
+    lam = jupiter_a(N + 1)
+    arcs = [(lam[i] - lam[i - 1]) % 360 for i in range(1, N + 1)]
+    A = [sxt(x) for x in arcs]
+    L = [longitude_text(x) for x in lam[1:]]
+    A2 = list(A)
+    A2[10] = sxt(arcs[10] + 1)   # the longitude beside it used the right arc
+    r = audit(pd.DataFrame({"arc": A2, "L": L}))
+    assert {s.column: s.kind for s in r.schemes} == {"L": "step", "arc": "step"}
+    (f,) = r.flags
+    assert (f["row"], f["column"], f["kind"], f["expected"]) == (11, "arc", "unit-slip", A[10])
+
+
+def test_jupiter_system_b_zigzag_slip():
+    arcs = jupiter_b(N)
+    A = [sxt(x) for x in arcs]
+    A2 = list(A)
+    A2[17] = sxt(arcs[17] - F(10, 60))   # 31;52,15 written 31;42,15
+    (f,) = audit(pd.DataFrame({"arc": A2})).flags
+    assert (f["row"], f["kind"], f["expected"]) == (18, "ten-slip", A[17])
+
+
+def test_stated_relation_sum():
+    df = pd.DataFrame({"A": ["1;30", "2", "3;15", "4"], "B": ["2", "2;30", "1", "0;45"],
+                       "C": ["3;30", "4;30", "4;25", "4;45"]})
+    r = audit(df, relation="C = A + B")
+    (scheme,) = [s for s in r.schemes if s.column == "C"]
+    assert scheme.kind == "relation"
+    (f,) = r.flags
+    assert (f["row"], f["column"], f["kind"], f["expected"]) == (3, "C", "ten-slip", "4;15")
+
+
+def test_stated_running_sum_relation():
+    df = pd.DataFrame({"A": ["10", "10", "10", "10", "10", "10"],
+                       "B": ["5,50", "0", "10", "21", "31", "41"]})
+    r = audit(df, relation="B = prev(B) + A mod 360", columns=["A", "B"])
+    slips = _slips(r)
+    assert [(f["row"], f["column"], f["kind"]) for f in slips] == [(4, "B", "unit-slip")]
+    assert [f["row"] for f in r.flags if f["kind"] == "carried-forward"] == [5, 6]
+
+
+def test_product_column_found():
+    xs = [F(k, 2) for k in range(3, 15)]
+    ys = [F(k) for k in range(20, 32)]
+    df = pd.DataFrame({"a": [sxt(x) for x in xs], "b": [sxt(y) for y in ys],
+                       "c": [sxt(x * y) for x, y in zip(xs, ys)]})
+    r = audit(df)
+    assert {s.column: s.kind for s in r.schemes}["c"] == "product"
+    assert r.flags == []
