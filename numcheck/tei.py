@@ -59,6 +59,7 @@ class NumResult:
     existing: dict[str, str] = field(default_factory=dict)
     message: str = ""
     alternatives: list[dict] = field(default_factory=list)
+    warnings: list[str] = field(default_factory=list)   # how the notation read odd letters
 
     def to_dict(self) -> dict:
         out = {"line": self.line, "text": self.text, "notation": self.notation,
@@ -76,6 +77,8 @@ class NumResult:
             out["message"] = self.message
         if self.alternatives:
             out["alternatives"] = self.alternatives
+        if self.warnings:
+            out["warnings"] = list(self.warnings)
         return out
 
 
@@ -196,7 +199,8 @@ def _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of):
         raise TeiError(name, line, "a <num> with no text (nothing to read; an empty <num> "
                                    "should hold the numeral as written, or be removed)")
     reading, text = _read_num(el, name, line, pieces, plain, notation)
-    res = NumResult(line, text, reading.notation, "kept", damaged=reading.damaged)
+    res = NumResult(line, text, reading.notation, "kept", damaged=reading.damaged,
+                    warnings=list(reading.warnings))
     unresolved = _unresolved(reading)
     lo, hi = reading.min, reading.max
     exact = None if unresolved else reading.value
