@@ -208,7 +208,8 @@ def classify(written: Fraction, expected: Fraction, *, places: int = 0, floating
     if longitude and diff % 360 in (30, 330):
         sign = "+" if diff % 360 == 30 else "-"
         return Diagnosis("sign-error", f"off by {sign}30°: the sign was not advanced or advanced wrongly")
-    places = max(places, _needed_places(expected) or 0, _needed_places(written) or 0)
+    own_places = max(places, _needed_places(written) or 0)
+    places = max(own_places, _needed_places(expected) or 0)
     w = _aligned(written, places, floating)
     e = _aligned(expected, places, floating)
     if w is not None and e is not None and not floating or (floating and w and e and len(w) == len(e)):
@@ -228,13 +229,17 @@ def classify(written: Fraction, expected: Fraction, *, places: int = 0, floating
                 alt = _letter(notation, w[k], e[k])
                 if alt is not None:
                     return alt
-        elif prev is not None and not floating:
-            carry = _carry_kind(prev, expected, written, None, modulus)
-            if carry is not None:
-                return carry
+        else:
+            if prev is not None and not floating:
+                carry = _carry_kind(prev, expected, written, None, modulus)
+                if carry is not None:
+                    return carry
+            ripple = _rippled(diff, floating)
+            if ripple is not None:
+                return ripple
     if not floating and expected != 0 and written in (expected * _BASE, expected / _BASE):
         return Diagnosis("place-shift", "the value is written one place off (×60 or ÷60)")
-    ws = written_digits if written_digits is not None else _sequence(written, places, floating)
+    ws = written_digits if written_digits is not None else _sequence(written, own_places, floating)
     for es in _expected_sequences(expected, places, floating):
         if ws is None or es is None:
             continue
@@ -255,9 +260,23 @@ def classify(written: Fraction, expected: Fraction, *, places: int = 0, floating
     return Diagnosis("unexplained", "no known slip turns the value due into the one written")
 
 
+def _rippled(diff: Fraction, floating: bool) -> Diagnosis | None:
+    """±1 or ±10 units of one place whose carry ran on into the places above."""
+    if floating or diff == 0:
+        return None
+    for k in range(-10, 6):
+        unit = Fraction(_BASE) ** k
+        for size, kind, what in ((1, "unit-slip", "unit"), (10, "ten-slip", "ten")):
+            if abs(diff) == size * unit:
+                more = "too many" if diff > 0 else "too few"
+                return Diagnosis(kind, f"one {what} {more} in {_place_label(k, False)} "
+                                       "(the carry ran on into the place above)")
+    return None
+
+
 def _place_label(k: int, floating: bool) -> str:
     if floating:
-        return f"place {k}" if k else "the last place"
+        return f"the place {k + 1} from the end" if k else "the last place"
     if k == 0:
         return "the units place"
     if k > 0:

@@ -243,7 +243,9 @@ def _cell(row: int, column: str, text: str, notation, source) -> Cell:
             reading = read(number, notation=notation)
         except NumcheckError as err:
             raise NumcheckError(f"Row {row}, column {column!r} of {source}: cannot read "
-                                f"{text!r} as a number. {err}") from err
+                                f"{text!r} as a number. {err}\nIf column {column!r} holds "
+                                "no numbers (month names, notes), leave it out with --columns "
+                                "(columns= in Python).") from err
         cell = _from_reading(row, column, text, reading)
     if sign_name is not None:
         if cell.value is not None and not 0 <= cell.value < 30:

@@ -1,0 +1,127 @@
+"""Reading tables for the audit: formats, longitudes within signs, and bad input.
+
+Bad input must give a NumcheckError that names the row and the column; the
+input file is never modified (its hash is the same before and after).
+"""
+
+from __future__ import annotations
+
+import hashlib
+from fractions import Fraction as F
+
+import pandas as pd
+import pytest
+
+from numcheck import NumcheckError, read
+from numcheck.audit import audit
+from numcheck.audit.table import read_table, split_text
+
+
+def _write(tmp_path, name, text):
+    p = tmp_path / name
+    p.write_text(text, encoding="utf-8")
+    return p
+
+
+def _hash(path):
+    return hashlib.sha256(path.read_bytes()).hexdigest()
+
+
+TSV = "A\tB\n29;31,20\t14;11,57,4 Libra\n29;49,20\t14;1,17,4 Scorpius\n"
+CSV = 'A,B\n"29;31,20","14;11,57,4 Libra"\n"29;49,20","14;1,17,4 Scorpius"\n'
+ALIGNED = "A          B\n29;31,20   14;11,57,4 Libra\n29;49,20   14;1,17,4 Scorpius\n"
+
+
+@pytest.mark.parametrize("name, text", [("t.tsv", TSV), ("t.csv", CSV), ("t.txt", ALIGNED)])
+def test_formats_read_the_same(tmp_path, name, text):
+    t = read_table(_write(tmp_path, name, text))
+    assert list(t.columns) == ["A", "B"]
+    assert [c.value for c in t.columns["A"].cells] == [F(2657, 90), F(1342, 45)]
+    # 14;11,57,4 Libra = 180° + 14;11,57,4 (units: zodiac signs of 30°, common practice)
+    b = t.columns["B"]
+    assert b.longitude and b.cells[0].value == 180 + F(14) + F(11, 60) + F(57, 3600) + F(4, 216000)
+    assert b.cells[1].value == 210 + F(14) + F(1, 60) + F(17, 3600) + F(4, 216000)
+
+
+def test_single_space_aligned_table_keeps_sign_names():
+    header, rows = split_text("A B\n29;31,20 14;11 Libra\n")
+    assert header == ["A", "B"] and rows == [["29;31,20", "14;11 Libra"]]
+
+
+@pytest.mark.parametrize("text", ["1,49,45;20", "29;31,50,8,20", "-0;30", "7", "1,4", "59;59,59"])
+def test_fast_path_gives_the_value_of_read(text):
+    df = pd.DataFrame({"X": [text]})
+    (cell,) = read_table(df).columns["X"].cells
+    assert cell.value == read(text).value
+
+
+def test_dataframe_input_and_damaged_cells():
+    t = read_table(pd.DataFrame({"X": ["1;30", "1;[x]0", "[...]"]}))
+    cells = t.columns["X"].cells
+    assert cells[0].value == F(3, 2) and cells[1].damaged and cells[2].damaged
+
+
+BAD = [
+    # (file text, words the message must contain, note)
+    ("A\tB\n1\t2\n3\n", ["Row 2", "ragged"], "ragged rows"),
+    ("", ["empty"], "an empty file"),
+    ("A\tB\n", ["no data rows"], "a header and nothing else"),
+    ("A\tB\n1\t2\nNisannu\t3\n", ["Row 2", "'A'", "Nisannu"], "a column of text"),
+    ("A\tB\n1;30\t2\n1;30 Libra\t3\n", ["Column 'A'", "row 1"], "a longitude beside plain numbers"),
+    ("29;31,20\t1\n29;49,20\t2\n", ["header"], "a header missing"),
+    ("A\tA\n1\t2\n", ["twice"], "a column named twice"),
+    ("A\tB\n1\t\n", ["Row 1", "'B'", "empty"], "an empty cell"),
+    ("A\tB\n1;30\t2\n31;0 Libra\t3\n", ["Row 2"], "more than 30 degrees within a sign"),
+]
+
+
+@pytest.mark.parametrize("text, words, note", BAD)
+def test_bad_input_is_named_and_the_file_is_untouched(tmp_path, text, words, note):
+    path = _write(tmp_path, "bad.tsv", text)
+    before = _hash(path)
+    with pytest.raises(NumcheckError) as err:
+        audit(path)
+    message = str(err.value)
+    for w in words:
+        assert w in message, (note, message)
+    assert _hash(path) == before
+
+
+def test_mixed_notations_in_a_column(tmp_path):
+    # A Roman numeral among sexagesimal numbers: named with its row and column.
+    path = _write(tmp_path, "mixed.tsv", "A\n1;30\n2;30\nXII\n")
+    with pytest.raises(NumcheckError) as err:
+        audit(path)
+    assert "Row 3" in str(err.value) or "row 3" in str(err.value)
+    assert "'A'" in str(err.value)
+
+
+def test_audit_never_modifies_its_input(tmp_path):
+    from tablegen import longitude_text, lunar_b, write_tsv
+    from numcheck.reading import sexagesimal_text as sxt
+    a, b = lunar_b(30)
+    A = [sxt(x) for x in a]
+    A[5] = "29;[x]"
+    path = tmp_path / "t.tsv"
+    write_tsv(path, ["A", "B"], [A, [longitude_text(x) for x in b]])
+    before = _hash(path)
+    audit(path)
+    assert _hash(path) == before
+
+
+def test_columns_option_leaves_text_columns_out():
+    df = pd.DataFrame({"month": ["Nisannu", "Ayyaru", "Simanu", "Duzu"], "A": ["1", "2", "3", "4"]})
+    r = audit(df, columns=["A"])
+    assert [s.kind for s in r.schemes] == ["linear"]
+    with pytest.raises(NumcheckError, match="month"):
+        audit(df)
+
+
+def test_unknown_column_in_relation_or_columns():
+    df = pd.DataFrame({"A": ["1", "2", "3"], "B": ["2", "4", "6"]})
+    with pytest.raises(NumcheckError, match="Did you mean"):
+        audit(df, relation="B = AA * 2")
+    with pytest.raises(NumcheckError):
+        audit(df, columns=["C"])
+    with pytest.raises(NumcheckError):
+        audit(df, relation="B = A +")
