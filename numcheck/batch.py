@@ -164,7 +164,7 @@ def annotate_folder(in_dir: str | os.PathLike, out_dir: str | os.PathLike, *,
 def _load_table(path: Path, notation: str | None):
     """A table to give the audit: a TEI file's first <table>, else the file itself."""
     if path.suffix.lower() == ".xml":
-        from .tei_read import table_to_dataframe
+        from .tei_table import table_to_dataframe
         return table_to_dataframe(path, notation=notation)
     return str(path)
 

@@ -272,7 +272,7 @@ def _papyrus(data: Path, out: Path, key: dict, step: Step) -> None:
     # The papyrus is a table too: audit it like a TSV.
     try:
         from .audit import audit
-        from .tei_read import table_to_dataframe
+        from .tei_table import table_to_dataframe
 
         frame = table_to_dataframe(src)
         table_result = audit(frame, notation=frame.attrs.get("notation"))

@@ -31,8 +31,9 @@ from .errors import LimitError, NumcheckError, NumcheckWarning
 from .files import check_distinct, write_atomic
 from .reader import read
 from .reading import Reading, Status, exact_text
-from .tei_read import (TEI_NS, TeiError, leiden_text, notation_hint, num_pieces, parse_tei,
-                       plain_text, read_bytes, table_to_dataframe)
+from .tei_read import (TEI_NS, TeiError, leiden_text, local_name, notation_hint, num_pieces,
+                       parse_tei, plain_text, read_bytes)
+from .tei_table import table_restorations, table_to_dataframe
 from .tei_write import Edit, apply_edits, apply_edits_tree, decode_source, scan_elements
 
 __all__ = ["annotate", "annotate_bytes", "AnnotateResult", "NumResult", "TeiError",
@@ -154,12 +155,21 @@ def annotate_bytes(data: bytes, name: str | os.PathLike = "<input>", *, alternat
         raise LimitError(f"number of <num> elements in {str(name)!r}", len(nums),
                          limits.MAX_XML_NUMS, "Set numcheck.limits.MAX_XML_NUMS higher to annotate it.")
     restore_fn, notes = _restore_function(alternatives, nums)
+    in_tables: dict[int, list] = {}
+    if restore_fn is not None:
+        # A damaged number in a table is ranked by the table's scheme (the audit).
+        damaged = [n for n in nums if any(local_name(c) in ("gap", "supplied", "unclear")
+                                          for c in n.iter())]
+        if damaged:
+            in_tables = table_restorations(root, damaged, notation=notation, top=alternatives,
+                                           notes=notes)
     edits: dict[int, Edit] = {}
     results: list[NumResult] = []
     problems: list[str] = []
     for el in nums:
         try:
-            res, edit = _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of)
+            res, edit = _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of,
+                                      in_tables.get(id(el)))
         except TeiError as err:
             problems.append(str(err))
             continue
@@ -191,7 +201,7 @@ def _line(el) -> int | None:
     return el.sourceline
 
 
-def _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of):
+def _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of, from_table=None):
     line = _line(el)
     pieces = num_pieces(el)
     plain = plain_text(pieces)
@@ -218,7 +228,10 @@ def _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of):
     edit = Edit()
     _decide(res, edit, existing, reading, exact, lo, hi, fix)
     if alternatives and restore_fn is not None and reading.count > 1:
-        res.alternatives = _alternatives(restore_fn, reading, alternatives, res.unit_fraction)
+        if from_table:
+            res.alternatives = _table_alternatives(from_table, alternatives, res.unit_fraction)
+        else:
+            res.alternatives = _alternatives(restore_fn, reading, alternatives, res.unit_fraction)
         old = [c for c in el if etree.QName(c).localname == "certainty"
                and c.get("locus") == "value" and c.get("match") == "../@value"]
         edit.drop_children.extend(index_of[id(c)] for c in old)
@@ -400,6 +413,19 @@ def _alternatives(restore_fn, reading: Reading, top: int, unit_fraction: bool) -
                     "probability": float(cand.probability),
                     "degree": _degree(cand.probability),
                     "reasons": list(getattr(cand, "reasons", ()) or ())})
+    return out
+
+
+def _table_alternatives(restorations: list[dict], top: int, unit_fraction: bool) -> list[dict]:
+    """The audit's restorations of a table cell, in the form of :func:`_alternatives`."""
+    out = []
+    for r in restorations[:top]:
+        value = Fraction(r["value"])
+        if unit_fraction and value:
+            value = 1 / value
+        out.append({"text": r["text"], "value": exact_text(value),
+                    "probability": float(r["probability"]), "degree": _degree(r["probability"]),
+                    "reasons": list(r.get("reasons", [])), "from": "table scheme"})
     return out
 
 

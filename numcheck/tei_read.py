@@ -33,8 +33,9 @@ __all__ = [
     "leiden_text",
     "plain_text",
     "notation_hint",
-    "table_to_dataframe",
     "choose_notation",
+    "tei_elements",
+    "local_name",
 ]
 
 TEI_NS = "http://www.tei-c.org/ns/1.0"
@@ -302,75 +303,6 @@ def notation_hint(el) -> str | None:
 def tei_elements(root, name: str):
     """Every element *name* in the TEI namespace under *root*, in document order."""
     return root.iter(f"{{{TEI_NS}}}{name}")
-
-
-def table_to_dataframe(path: str | os.PathLike, *, table: int | str = 0,
-                       notation: str | None = None):
-    """A TEI ``<table>`` as a pandas DataFrame of cell texts, ready for ``audit``.
-
-    Rows are ``<row>``, cells ``<cell>``.  The first row whose ``@role`` is
-    ``label`` (or whose cells all are) gives the column names; otherwise the
-    columns are named ``1``, ``2`` ...  Damage markup in a cell becomes Leiden
-    text in the cells' notation (given, or detected from the letters), so that
-    the audit reads it as it reads a TSV.  *table* picks the table by position
-    (0 = first) or by ``xml:id``.  ``df.attrs`` holds the source path, the
-    table's line and each data row's line.
-    """
-    import pandas as pd
-
-    root = parse_tei(path)
-    tables = list(tei_elements(root, "table"))
-    if isinstance(table, str):
-        chosen = [t for t in tables if t.get("{http://www.w3.org/XML/1998/namespace}id") == table]
-        if not chosen:
-            ids = [t.get("{http://www.w3.org/XML/1998/namespace}id") or "(no id)" for t in tables]
-            raise TeiError(path, None, f"no <table> with xml:id {table!r}; the tables here: {', '.join(ids) or 'none'}")
-        el = chosen[0]
-    else:
-        if not tables:
-            raise NoTableError(path, None, "no TEI <table> in this file (a table to audit needs <table>, <row>, <cell>)")
-        if not 0 <= table < len(tables):
-            raise TeiError(path, None, f"asked for table {table + 1}, but the file has {len(tables)}")
-        el = tables[table]
-    header: list[str] | None = None
-    used: set[str] = set()
-    rows: list[list[str]] = []
-    lines: list[int] = []
-    for row in el.iter(f"{{{TEI_NS}}}row"):
-        cells = [c for c in row if local_name(c) == "cell"]
-        if not cells:
-            continue
-        is_label = row.get("role") == "label" or all(c.get("role") == "label" for c in cells)
-        if header is None and not rows and is_label:
-            header = [plain_text(num_pieces(c)) or str(i + 1) for i, c in enumerate(cells)]
-            continue
-        texts = []
-        for c in cells:
-            pieces = num_pieces(c)
-            cell_notation = notation or choose_notation(plain_text(pieces), c)
-            used.add(cell_notation)
-            texts.append(leiden_text(pieces, cell_notation))
-        rows.append(texts)
-        lines.append(row.sourceline)
-    if not rows:
-        raise TeiError(path, el.sourceline, "the <table> has no data rows")
-    width = max(len(r) for r in rows)
-    if header is None:
-        header = [str(i + 1) for i in range(width)]
-    header = header + [str(i + 1) for i in range(len(header), width)]
-    # Column names must be distinct for the audit to name them.
-    seen: dict[str, int] = {}
-    names = []
-    for h in header[:width]:
-        seen[h] = seen.get(h, 0) + 1
-        names.append(h if seen[h] == 1 else f"{h} ({seen[h]})")
-    frame = pd.DataFrame([r + [""] * (width - len(r)) for r in rows], columns=names, dtype=str)
-    frame.attrs["source"] = str(path)
-    frame.attrs["table_line"] = el.sourceline
-    frame.attrs["row_lines"] = lines
-    if len(used) == 1:
-        frame.attrs["notation"] = used.pop()
-    return frame
 
 
 def choose_notation(plain: str, el) -> str:

@@ -9,7 +9,8 @@ from lxml import etree
 import numcheck
 from numcheck.errors import LimitError, NumcheckError
 from numcheck.tei import annotate, annotate_bytes, default_output
-from numcheck.tei_read import Piece, leiden_text, num_pieces, table_to_dataframe
+from numcheck.tei_read import Piece, leiden_text, num_pieces
+from numcheck.tei_table import table_to_dataframe
 from numcheck.tei_write import scan_elements
 
 NS = {"t": "http://www.tei-c.org/ns/1.0"}
@@ -347,3 +348,28 @@ def test_table_missing(tmp_path):
     src.write_bytes(doc("<p>no table</p>"))
     with pytest.raises(NumcheckError, match="no TEI <table>"):
         table_to_dataframe(src)
+
+
+def test_alternatives_in_a_table_follow_its_scheme():
+    # A column rising by 0;7,30 a line; line 4 has its units digit of minutes lost.
+    # The table's scheme gives 1;22,30, so that is ranked first.
+    rows = ["1;0", "1;7,30", "1;15", "1;2<gap reason=\"lost\" quantity=\"1\" unit=\"character\"/>,30",
+            "1;30", "1;37,30"]
+    body = "<table>" + "".join(f"<row><cell>{i + 1}</cell><cell><num>{r}</num></cell></row>"
+                               for i, r in enumerate(rows)) + "</table>"
+    out, result = run(body, alternatives=2)
+    damaged = [n for n in result.nums if n.alternatives]
+    assert len(damaged) == 1
+    alts = damaged[0].alternatives
+    assert alts[0]["value"] == "11/8" and alts[0]["from"] == "table scheme"   # 1;22,30 = 11/8
+    cert = nums_of(out)[3].findall("t:certainty", NS)
+    assert cert[0].get("assertedValue") == "11/8"
+    assert result.notes == []
+
+
+def test_table_without_header_gets_column_names(tmp_path):
+    src = tmp_path / "t.xml"
+    src.write_bytes(doc("<table><row><cell>1</cell><cell>0;30</cell></row>"
+                        "<row><cell>2</cell><cell>1;0</cell></row></table>"))
+    frame = table_to_dataframe(src)
+    assert list(frame.columns) == ["column 1", "column 2"]
