@@ -18,7 +18,9 @@ __all__ = ["grammar_dir", "parser_for"]
 def grammar_dir() -> Path:
     """The folder holding the ``.lark`` files (installed or in a checkout)."""
     try:
-        folder = Path(str(resources.files("numcheck.grammars")))
+        # numcheck.grammars is a namespace package once installed: files() gives
+        # a MultiplexedPath, whose str() is not a path; a file inside it is.
+        folder = Path(str(resources.files("numcheck.grammars") / "common.lark")).parent
         if (folder / "common.lark").is_file():
             return folder
     except ModuleNotFoundError:
