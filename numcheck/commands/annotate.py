@@ -10,6 +10,9 @@ HELP = ("give every <num> of a TEI/EpiDoc file (or of every .xml file in a folde
         "@value, or @atLeast/@atMost where damage leaves a range; report values the letters contradict")
 ORDER = 70
 
+#: List every <num> of a file up to this many; beyond, only the damaged and contradicted.
+_LIST_ALL = 40
+
 
 def add_arguments(parser) -> None:
     parser.add_argument("input", metavar="IN", help="a TEI/EpiDoc .xml file, or a folder of them")
@@ -88,12 +91,18 @@ def _show_file(out: dict, console) -> None:
     for col in ("line", "as read", "notation", "value", "status"):
         table.add_column(col)
     style = {"contradiction": "red", "fixed": "yellow", "range-added": "cyan"}
-    for n in out["nums"]:
-        value = n.get("value") or f"{n.get('atLeast')} to {n.get('atMost')}"
+    # A long file: list what needs the editor (damaged, contradicted), not every number.
+    shown = out["nums"] if len(out["nums"]) <= _LIST_ALL else [
+        n for n in out["nums"] if n["damaged"] or n["status"] in ("contradiction", "fixed")]
+    for n in shown:
+        value = _exact(n["value"]) if "value" in n else f"{_exact(n['atLeast'])} to {_exact(n['atMost'])}"
         status = n["status"]
         table.add_row(str(n["line"] or ""), escape(n["text"]), n["notation"], value,
                       f"[{style[status]}]{status}[/]" if status in style else status)
     console.print(table)
+    if len(shown) < len(out["nums"]):
+        console.print(f"{len(out['nums']) - len(shown)} undamaged numbers that agree with their "
+                      "letters are not listed (--json lists every one).")
     for n in out["nums"]:
         if n.get("message"):
             console.print(f"[red]line {n['line']}:[/red] {escape(n['message'])}")
@@ -106,6 +115,16 @@ def _show_file(out: dict, console) -> None:
     where = f"written to {escape(out['output'])}" if out["output"] else "nothing written (no -o given)"
     console.print(f"{out['numbers']} numbers, {out['damaged']} damaged, {out['flagged']} contradicted "
                   f"by their letters, {out['restored']} with restorations; {where}.")
+
+
+def _exact(text: str) -> str:
+    """An exact value for the table, with its sexagesimal form when it is not whole."""
+    from fractions import Fraction
+
+    from ..reading import sexagesimal_text
+
+    value = Fraction(text)
+    return text if value.denominator == 1 else f"{text} ({sexagesimal_text(value)})"
 
 
 def show_batch(out: dict, console, kind: str) -> None:

@@ -44,7 +44,8 @@ def _show(d: dict, console) -> None:
         for f in step.get("table_flags", []):
             console.print("  flag: " + escape(f))
         for reason in step.get("reasons", []):
-            console.print("  [yellow]skipped:[/yellow] " + escape(reason))
+            # the first line says what and why; summary.json keeps the whole message
+            console.print("  [yellow]skipped:[/yellow] " + escape(reason.splitlines()[0]))
         if step["files"]:
             console.print("  files: " + ", ".join(escape(f) for f in step["files"]))
         console.print()
