@@ -110,8 +110,7 @@ def _catalogue(reading: Reading, space, unit: str | None, notes: list[str]) -> l
     seen: dict[tuple, Target] = {}
     ranges = {}
     for sub in space.subspaces:
-        factor = Fraction(sub.expansion.base) ** sub.scale
-        lo, hi = sub.expansion.min * factor, sub.expansion.max * factor
+        lo, hi = sub.bounds
         ulp = sub.ulp
         key = (sub.scale,)
         old = ranges.get(key)
@@ -124,6 +123,9 @@ def _catalogue(reading: Reading, space, unit: str | None, notes: list[str]) -> l
                 continue
             statement = getattr(t, "statement", "") or getattr(t, "id", "")
             label = f"{statement} ({t.id})" if getattr(t, "id", "") and t.id not in statement else statement
+            factor = Fraction(getattr(t, "factor", 1))
+            if factor != 1:
+                label = f"{exact_text(factor)} x [{label}]"
             seen[k] = Target(value, None, float(getattr(t, "weight", 1.0)), label, "catalogue",
                              group="catalogue", id=str(getattr(t, "id", "")))
     return sorted(seen.values(), key=lambda t: (t.value, t.id))

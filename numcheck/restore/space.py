@@ -68,6 +68,16 @@ class SubSpace:
         return math.prod(len(p.options) for p in self.positions)
 
     @property
+    def bounds(self) -> tuple[Fraction, Fraction]:
+        """The smallest and largest value of the sub-space (doubtful alternatives included)."""
+        base = Fraction(self.expansion.base)
+        lo = sum((min(o.value for o in p.options) * base ** p.place for p in self.positions), Fraction(0))
+        hi = sum((max(o.value for o in p.options) * base ** p.place for p in self.positions), Fraction(0))
+        factor = base ** self.scale
+        lo, hi = lo * factor, hi * factor
+        return (lo, hi) if self.expansion.sign > 0 else (-hi, -lo)
+
+    @property
     def ulp(self) -> Fraction:
         """One unit of the last written place, at this magnitude."""
         return self.expansion.ulp * Fraction(self.expansion.base) ** self.scale
