@@ -61,7 +61,9 @@ def restore(reading_or_text, *, notation=None, unit=None, expect=None, context=(
                                use_catalogue=use_catalogue, unit=unit or reading.unit)
     notes = list(space.notes) + ev_notes
     grids = [grid_for(s) for s in space.subspaces]
-    windows = [windows_for(g, targets) for g in grids]
+    order = sorted(range(len(targets)), key=lambda i: targets[i].value)
+    values = [targets[i].value for i in order]
+    windows = [windows_for(g, targets, order, values) for g in grids]
     _drop_broad(targets, grids, windows, notes)
     match, norm = find_matches(space, grids, windows, len(targets))
 

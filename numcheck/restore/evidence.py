@@ -103,32 +103,54 @@ def _expect_target(reading: Reading, expect, notation: str | None) -> Target:
 
 
 def _catalogue(reading: Reading, space, unit: str | None, notes: list[str]) -> list[Target]:
+    """The catalogue values the traces could reach, one target per distinct value.
+
+    Only the values themselves and their simple parts and multiples (n/m
+    with n, m <= ``scoring.CATALOGUE_MAX_FACTOR``) count: a long whole
+    multiple of a period (4260 months) fits almost any count and says
+    nothing.  Rows that give the same value are one hypothesis, with the
+    weight of the best of them.
+    """
     source = catalogue_source()
     if source is None:
         notes.append("The catalogue of periods is not installed, so only the evidence given was used.")
         return []
-    seen: dict[tuple, Target] = {}
-    ranges = {}
-    for sub in space.subspaces:
-        lo, hi = sub.bounds
-        ulp = sub.ulp
-        key = (sub.scale,)
-        old = ranges.get(key)
-        ranges[key] = (min(lo - ulp, old[0]) if old else lo - ulp, max(hi + ulp, old[1]) if old else hi + ulp)
-    for lo, hi in ranges.values():
+    spans = sorted((sub.bounds[0] - sub.ulp, sub.bounds[1] + sub.ulp) for sub in space.subspaces)
+    ranges: list[tuple[Fraction, Fraction]] = []
+    for lo, hi in spans:            # one look-up per stretch of values (gap counts, magnitudes)
+        if ranges and lo <= ranges[-1][1]:
+            ranges[-1] = (ranges[-1][0], max(hi, ranges[-1][1]))
+        else:
+            ranges.append((lo, hi))
+    best: dict[Fraction, list] = {}   # value -> [weight, label, id, others]
+    top = scoring.CATALOGUE_MAX_FACTOR
+    for lo, hi in ranges:
         for t in source(lo, hi, unit):
-            value = Fraction(t.value)
-            k = (getattr(t, "id", ""), value)
-            if k in seen:
-                continue
-            statement = getattr(t, "statement", "") or getattr(t, "id", "")
-            label = f"{statement} ({t.id})" if getattr(t, "id", "") and t.id not in statement else statement
             factor = Fraction(getattr(t, "factor", 1))
+            if factor.numerator > top or factor.denominator > top:
+                continue
+            value = Fraction(t.value)
+            weight = float(getattr(t, "weight", 1.0))
+            ident = str(getattr(t, "id", ""))
+            old = best.get(value)
+            if old is not None:
+                if ident != old[2] and weight <= old[0]:
+                    old[3].add(ident)
+                if weight <= old[0]:
+                    continue
+            statement = getattr(t, "statement", "") or ident
+            label = f"{statement} ({ident})" if ident and ident not in statement else statement
             if factor != 1:
                 label = f"{exact_text(factor)} x [{label}]"
-            seen[k] = Target(value, None, float(getattr(t, "weight", 1.0)), label, "catalogue",
-                             group="catalogue", id=str(getattr(t, "id", "")))
-    return sorted(seen.values(), key=lambda t: (t.value, t.id))
+            others = old[3] | ({old[2]} - {ident}) if old is not None else set()
+            best[value] = [weight, label, ident, others]
+    out = []
+    for value, (weight, label, ident, others) in best.items():
+        if others:
+            label += f" and {len(others)} other row{'s' if len(others) > 1 else ''} ({', '.join(sorted(others)[:3])}" \
+                     + (", ..." if len(others) > 3 else "") + ")"
+        out.append(Target(value, None, weight, label, "catalogue", group="catalogue", id=ident))
+    return sorted(out, key=lambda t: (t.value, t.id))
 
 
 def gather(reading: Reading, space, *, expect=None, context=(), use_catalogue=True,

@@ -51,7 +51,7 @@ from fractions import Fraction
 
 __all__ = [
     "EDITOR_WEIGHT", "DOUBT_READ_MASS", "GAP_DECAY", "NONE_WEIGHT", "CATALOGUE_WEIGHT",
-    "EXPECT_WEIGHT", "KERNEL_EDGE", "simplicity", "scale_weight", "kernel", "mixture",
+    "EXPECT_WEIGHT", "CATALOGUE_MAX_FACTOR", "KERNEL_EDGE", "simplicity", "scale_weight", "kernel", "mixture",
 ]
 
 #: An editor's restored value against one unrestored value (prior odds).
@@ -64,6 +64,8 @@ GAP_DECAY = 0.5
 NONE_WEIGHT = 1.0
 #: Weight of the catalogue as a whole (shared among its possible values).
 CATALOGUE_WEIGHT = 1.0
+#: Catalogue values count with their parts and multiples n/m for n, m up to this.
+CATALOGUE_MAX_FACTOR = 12
 #: Weight of a value the user expects (``--expect``).
 EXPECT_WEIGHT = 4.0
 #: A reading at the edge of a tolerance counts this much of an exact fit.

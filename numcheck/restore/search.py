@@ -85,7 +85,8 @@ class Match:
 def grid_for(sub: SubSpace) -> Grid:
     """Turn a sub-space into integer contributions in units of its finest place."""
     base = Fraction(sub.expansion.base)
-    D = 1
+    ulp = sub.expansion.ulp
+    D = ulp.denominator            # a grid unit divides one unit of the last place
     for p in sub.positions:
         for o in p.options:
             D = math.lcm(D, (o.value * base ** p.place).denominator)
@@ -108,18 +109,38 @@ def grid_for(sub: SubSpace) -> Grid:
     return Grid(sub, D, const, open_ids, contrib, priors, lo, hi, object if big else np.int64)
 
 
-def windows_for(grid: Grid, targets: list[Target]) -> list[Window]:
-    """The window of grid integers each target accepts in this sub-space."""
+def windows_for(grid: Grid, targets: list[Target], order: list[int] | None = None,
+                values: list[Fraction] | None = None) -> list[Window]:
+    """The window of grid integers each target accepts in this sub-space.
+
+    With *order* (target indices by value) and *values* (their values in that
+    order), only the targets near the sub-space's range are looked at.
+    """
     e = grid.sub.expansion
     F = Fraction(e.base) ** grid.sub.scale
+    U = e.ulp * grid.D                     # one unit of the last place, in grid units
+    if U.denominator != 1:                 # pragma: no cover - D is a multiple of 1/ulp
+        raise ValueError("the grid is coarser than the last place")
+    U = U.numerator
+    if order is None:
+        order = list(range(len(targets)))
+    else:
+        lo, hi = grid.sub.bounds
+        reach = max([t.tolerance for t in targets if t.tolerance is not None] + [grid.sub.ulp])
+        order = order[bisect_left(values, lo - reach):bisect_right(values, hi + reach)]
     out = []
-    for ti, t in enumerate(targets):
-        centre = e.sign * t.value * grid.D / F
-        if t.tolerance is None:       # less than one unit of the last written place
-            tol = Fraction(e.ulp * grid.D)
-            lo = math.floor(centre - tol) + 1
-            hi = math.ceil(centre + tol) - 1
+    for ti in order:
+        t = targets[ti]
+        if t.tolerance is None:            # less than one unit of the last written place
+            A = e.sign * t.value.numerator * grid.D * F.denominator
+            B = t.value.denominator * F.numerator
+            lo = (A - U * B) // B + 1
+            hi = -((-(A + U * B)) // B) - 1
+            if hi < grid.lo or lo > grid.hi:
+                continue
+            centre, tol = Fraction(A, B), Fraction(U)
         else:
+            centre = e.sign * t.value * grid.D / F
             tol = t.tolerance * grid.D / F
             lo = math.ceil(centre - tol)
             hi = math.floor(centre + tol)

@@ -17,6 +17,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass
+from functools import cached_property
 from fractions import Fraction
 
 from .. import limits
@@ -63,11 +64,11 @@ class SubSpace:
     mass: float              # prior probability of this gap count and magnitude
     gap_places: tuple[int, ...]  # places each [...] stands for (empty without a gap)
 
-    @property
+    @cached_property
     def count(self) -> int:
         return math.prod(len(p.options) for p in self.positions)
 
-    @property
+    @cached_property
     def bounds(self) -> tuple[Fraction, Fraction]:
         """The smallest and largest value of the sub-space (doubtful alternatives included)."""
         base = Fraction(self.expansion.base)
@@ -77,7 +78,7 @@ class SubSpace:
         lo, hi = lo * factor, hi * factor
         return (lo, hi) if self.expansion.sign > 0 else (-hi, -lo)
 
-    @property
+    @cached_property
     def ulp(self) -> Fraction:
         """One unit of the last written place, at this magnitude."""
         return self.expansion.ulp * Fraction(self.expansion.base) ** self.scale
