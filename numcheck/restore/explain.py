@@ -50,11 +50,11 @@ def position_reasons(sub, chosen: dict[int, int]) -> list[str]:
         opt = pos.options[oi]
         v = exact_text(opt.value)
         where = f"place 60^{pos.place}" if base == 60 else f"place {pos.place}"
-        written = pos.slot.text or "?"
+        written = f"'{pos.slot.text}'" if pos.slot.text else "a place"
         if opt.kind == "doubtful-read":
-            out.append(f"doubtful {written!s} ({where}) kept as read: {v}")
+            out.append(f"doubtful {written} ({where}) kept as read: {v}")
         elif opt.kind == "doubtful-alternative":
-            out.append(f"doubtful {written!s} ({where}) read as {v}: {opt.reason}")
+            out.append(f"doubtful {written} ({where}) read as {v}: {opt.reason}")
         else:
             editor = pos.slot.editor
             if editor is not None and opt.editor:
