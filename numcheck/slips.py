@@ -145,20 +145,57 @@ def write_value(value: Fraction, *, notation: str = "sexagesimal", places: int =
 
 
 def _other_notation(value: Fraction, notation: str, places: int) -> str | None:
-    # A notation module may offer ``format_value(value, places=...)``; the
-    # ones that do write the value in their own signs.
+    """*value* in a letter notation (Greek, abjad) or Roman numerals, read back to check.
+
+    Places are groups separated by spaces (κθ λα ν = 29;31,50).  The text is
+    read back with :func:`numcheck.read`; a value the notation cannot write
+    (a zero place in abjad, a fraction in Roman numerals) gives None, and
+    the caller writes sexagesimal instead.
+    """
+    got = digits_of(value, max(places, _needed_places(value) or 0))
+    if got is None or value < 0:
+        return None
+    digits, whole = got
+    whole_value = 0
+    for d in digits[:whole]:
+        whole_value = whole_value * _BASE + d
+    groups = [whole_value] + digits[whole:]
     try:
-        from .notations import notation_module
-        mod = notation_module(notation)
-    except Exception:
+        if notation in ("greek", "greek-ascending"):
+            from .notations.greek_build import letter_text
+            text = " ".join(letter_text(g) if g else "\u014d" for g in groups)
+        elif notation in ("abjad", "abjad-maghribi"):
+            from .notations.abjad import _spell
+            if 0 in groups:
+                return None
+            text = " ".join("".join(_spell(notation, g)) for g in groups)
+        elif notation == "roman":
+            if len(groups) > 1:
+                return None
+            text = _roman(groups[0])
+        else:
+            return None
+        from .reader import read
+        if read(text, notation=notation).value != value:
+            return None
+    except Exception:   # a writer the notation does not offer: sexagesimal instead
         return None
-    fmt = getattr(mod, "format_value", None)
-    if fmt is None:
-        return None
-    try:
-        return fmt(value, places=places)
-    except Exception:
-        return None
+    return text
+
+
+def _roman(n: int) -> str:
+    """A whole number in Roman numerals (subtractive forms, common practice).
+
+    >>> _roman(1994)
+    'MCMXCIV'
+    """
+    out = []
+    for v, sym in ((1000, "M"), (900, "CM"), (500, "D"), (400, "CD"), (100, "C"), (90, "XC"),
+                   (50, "L"), (40, "XL"), (10, "X"), (9, "IX"), (5, "V"), (4, "IV"), (1, "I")):
+        while n >= v:
+            out.append(sym)
+            n -= v
+    return "".join(out)
 
 
 def _aligned(value: Fraction, places: int, floating: bool) -> dict[int, int] | None:

@@ -281,3 +281,28 @@ def test_product_column_found():
     r = audit(df)
     assert {s.column: s.kind for s in r.schemes}["c"] == "product"
     assert r.flags == []
+
+
+def test_greek_table_letter_confusion_and_expected_in_greek():
+    # A linear Greek column, 29;0,9 + k × 0;4 (invented), places as letter groups.
+    from numcheck.slips import write_value
+    vals = [29 + F(4 * k, 60) + F(9, 3600) for k in range(8)]
+    G = [write_value(v, notation="greek") for v in vals]
+    assert G[4] == "κθ ιϛ θ"
+    G[4] = "κθ ιϛ ε"   # Є (5) for Θ (9), confusion data of numcheck.confusions
+    (f,) = audit(pd.DataFrame({"G": G})).flags
+    assert (f["row"], f["kind"], f["expected"]) == (5, "letter-confusion", "κθ ιϛ θ")
+
+
+def test_quotient_is_a_product_with_its_operation():
+    xs = [F(k) for k in (3, 7, 2, 9, 4, 8, 5, 6, 12, 10, 11, 13)]
+    ys = [F(k, 4) for k in (31, 37, 30, 41, 33, 35, 39, 32, 40, 34, 38, 36)]
+    df = pd.DataFrame({"b": [sxt(x) for x in xs], "c": [sxt(y) for y in ys],
+                       "a": [sxt(x * y) for x, y in zip(xs, ys)]})
+    r = audit(df)
+    (scheme,) = [s for s in r.schemes if s.kind == "product"]
+    assert scheme.params()["operation"] in ("product", "quotient")
+    assert r.flags == []
+    df.loc[4, "c"] = "8;16"    # 33/4 = 8;15 written 8;16: the relation breaks on row 5
+    (f,) = audit(df).flags     # (which of a and c holds it, the three columns cannot tell)
+    assert f["row"] == 5

@@ -81,7 +81,7 @@ class _RowScheme(Scheme):
         return target if target.denominator != 1 else target.numerator
 
     def params(self):
-        return {"of": [self.a, self.b]}
+        return {"of": [self.a, self.b], "operation": "product"}
 
 
 class ProductScheme(_RowScheme):
@@ -99,7 +99,11 @@ class ProductScheme(_RowScheme):
 
 
 class QuotientScheme(_RowScheme):
-    kind = "quotient"
+    # DESIGN.md's kinds have no "quotient": a quotient is a product with a reciprocal.
+    kind = "product"
+
+    def params(self):
+        return {"of": [self.a, self.b], "operation": "quotient"}
 
     def expect(self, i, src):
         x, y = src[self.a][i], src[self.b][i]

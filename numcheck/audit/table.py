@@ -201,9 +201,11 @@ def _build(header, rows, *, notation, columns, source) -> Table:
         raise NumcheckError(f"The header of {source} names column {dup!r} twice.")
     for i, r in enumerate(rows, start=1):
         if len(r) != len(header):
+            hint = (" In CSV, quote the cells that hold commas (\"29;31,20\"), or use tabs."
+                    if source.lower().endswith(".csv") else "")
             raise NumcheckError(
                 f"Row {i} of {source} has {len(r)} cells but the header has {len(header)} "
-                f"({', '.join(header)}): the rows are ragged. Check the separators of row {i}.")
+                f"({', '.join(header)}): the rows are ragged. Check the separators of row {i}.{hint}")
     wanted = list(header)
     if columns is not None:
         columns = [columns] if isinstance(columns, str) else list(columns)
