@@ -77,8 +77,9 @@ def test_isolated_slip_in_progress_column(lunar, row, mutate, kind):
     f = slips[0]
     assert (f["row"], f["column"], f["kind"]) == (row, "A", kind)
     assert f["expected"] == A[row - 1]
-    # B was computed with the right value: no flag in B at all.
+    # B was computed with the right value: no flag in B at all, and A's flag says so.
     assert not [g for g in r.flags if g["column"] == "B"]
+    assert f["notes"] == ["column B was computed with the value due here: a copying slip in column A"]
 
 
 def test_copied_neighbour(lunar):
@@ -172,6 +173,8 @@ def test_longitude_computed_with_the_wrong_progress_carries_it(lunar):
     assert {f["column"] for f in carried} == {"B"}
     assert [f["row"] for f in carried] == list(range(11, N + 1))
     assert carried[0]["carried_from"] == {"column": "A", "row": 11}
+    assert slips[0]["carried_into_columns"] == {"B": list(range(11, N + 1))}
+    assert "carried the slip on" in slips[0]["notes"][0]
 
 
 def test_slip_in_the_first_line(lunar):

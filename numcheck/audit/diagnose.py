@@ -38,7 +38,7 @@ class Finding:
     reason: str
     written: object
     expected: object
-    carried_into: list[int] = field(default_factory=list)
+    carried_into: list[tuple[str, int]] = field(default_factory=list)   # (column, index)
     carried_from: tuple[str, int] | None = None
     notes: list[str] = field(default_factory=list)
 
@@ -71,8 +71,26 @@ def diagnose(table: Table, frame: Frame, schemes: list[Scheme]):
             findings.append(f)
             index[(f.column, f.index)] = f
         pending.extend(col_pending)
+    _cross_notes(findings, schemes, frame, index)
     findings.sort(key=lambda f: (f.index, frame.names.index(f.column)))
     return findings, pending, true
+
+
+def _cross_notes(findings, schemes, frame, index) -> None:
+    """Say what the columns computed from a slipped cell tell about it."""
+    for f in findings:
+        if f.kind == "carried-forward" or f.written is None:
+            continue
+        for s in schemes:
+            if f.column not in s.inputs or frame.written[s.column][f.index] is None:
+                continue
+            other = index.get((s.column, f.index))
+            if other is None:
+                f.notes.append(f"column {s.column} was computed with the value due here: "
+                               f"a copying slip in column {f.column}")
+            elif other.kind == "carried-forward" and other.carried_from == (f.column, f.index):
+                f.notes.append(f"the scribe computed column {s.column} with the value written "
+                               "here, and carried the slip on")
 
 
 def _link_inputs(f: Finding, scheme: Scheme, frame: Frame, true, index) -> None:
@@ -86,8 +104,8 @@ def _link_inputs(f: Finding, scheme: Scheme, frame: Frame, true, index) -> None:
                 f.carried_from = (name, k)
                 f.reason = (f"follows from the slip in column {name}, row {k + 1}, "
                             "which the scribe computed with")
-                if f.index not in origin.carried_into:
-                    origin.carried_into.append(f.index)
+                if (f.column, f.index) not in origin.carried_into:
+                    origin.carried_into.append((f.column, f.index))
                 return
 
 
@@ -182,7 +200,7 @@ def _chain(table, frame, scheme: Scheme, true):
             if origin is not None:
                 f.carried_from = (column, origin.index)
                 f.reason = f"inherits the slip in row {origin.index + 1} (the scribe computed on from it)"
-                origin.carried_into.append(i)
+                origin.carried_into.append((column, i))
             findings.append(f)
             S = scheme.resume(pred if wi == pred[0] else pred_w, wi)
             continue

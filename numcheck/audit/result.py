@@ -57,7 +57,14 @@ class AuditResult:
             "expected_value": exact_text(expected),
         }
         if f.carried_into:
-            out["carried_into"] = [k + 1 for k in sorted(f.carried_into)]
+            # rows of this column, and of other columns computed from it
+            out["carried_into"] = sorted(k + 1 for c, k in f.carried_into if c == f.column)
+            others: dict[str, list[int]] = {}
+            for c, k in sorted(f.carried_into):
+                if c != f.column:
+                    others.setdefault(c, []).append(k + 1)
+            if others:
+                out["carried_into_columns"] = others
         if f.carried_from is not None:
             out["carried_from"] = {"column": f.carried_from[0], "row": f.carried_from[1] + 1}
         if f.notes:

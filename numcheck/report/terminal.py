@@ -40,6 +40,8 @@ def show(result, console) -> None:
             reason = f["reason"]
             if f.get("carried_into"):
                 reason += f"; carried into rows {_ranges(f['carried_into'])}"
+            for col, rows in f.get("carried_into_columns", {}).items():
+                reason += f"; carried into column {col}, rows {_ranges(rows)}"
             flags.add_row(str(f["row"]), escape(f["column"]), f"[{style}]{escape(f['written'])}[/]",
                           escape(f["expected"]), f"[{style}]{f['kind']}[/]", escape(reason))
         console.print(flags)
