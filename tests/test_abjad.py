@@ -146,3 +146,17 @@ def test_round_trip(whole, fractions):
     assert reading.value == expected
     assert format_reading(reading) == text
     assert read(format_reading(reading), notation="abjad") == reading
+
+
+@pytest.mark.parametrize("zero", ["\u0660", "\u06f0"])
+def test_zero_signs_agree_with_unicode(zero):
+    # Unicode Character Database (unicodedata.unidata_version): ARABIC-INDIC
+    # DIGIT ZERO and EXTENDED ARABIC-INDIC DIGIT ZERO have the value 0.
+    assert unicodedata.numeric(zero) == 0
+    assert read(f"ا {zero} ل", notation="abjad").slots[1].values == (F(0),)
+
+
+def test_no_abjad_letter_has_a_unicode_numeric_value():
+    # conventions.md §3.5: the abjad letters carry no numeric value in the UCD,
+    # which is why numcheck ships its own table.
+    assert all(unicodedata.numeric(c, None) is None for c in letter_values("abjad"))

@@ -149,3 +149,16 @@ def test_round_trip_lower_case_and_one_lost_letter(n):
     reading = read(damaged, notation="roman")
     assert F(n) in set(reading.readings())
     assert format_reading(reading) == damaged
+
+
+def test_too_many_lost_letters_is_a_limit_error():
+    from numcheck import LimitError
+
+    with pytest.raises(LimitError, match="MAX_LOST_LETTERS"):
+        read("[...][...][...]", notation="roman")
+
+
+def test_no_letter_fits_is_an_error_at_the_lost_place():
+    with pytest.raises(NumcheckError) as info:
+        read("IIII[.]V", notation="roman")
+    assert info.value.column == 5
