@@ -116,7 +116,8 @@ def read_table(table, *, notation: str | None = None, columns=None) -> Table:
     source = "<DataFrame>"
     if _is_dataframe(table):
         header = [str(c) for c in table.columns]
-        rows = [["" if _isna(v) else str(v) for v in rec] for rec in table.itertuples(index=False)]
+        rows = [[_frame_text(v, i, header[j]) for j, v in enumerate(rec)]
+                for i, rec in enumerate(table.itertuples(index=False), start=1)]
     elif isinstance(table, (str, Path)):
         path = Path(table)
         source = str(path)
@@ -140,8 +141,25 @@ def _is_dataframe(obj) -> bool:
     return type(obj).__name__ == "DataFrame" and hasattr(obj, "itertuples")
 
 
+def _frame_text(v, row: int, column: str) -> str:
+    """The text of a DataFrame cell; a float that is not whole is refused (it is not exact)."""
+    if _isna(v):
+        return ""
+    if isinstance(v, float) or type(v).__name__.startswith("float"):
+        if float(v).is_integer():
+            return str(int(v))
+        raise NumcheckError(
+            f"Row {row}, column {column!r} of the DataFrame holds the float {v!r}: a float is "
+            "not the exact number the scribe wrote. Give the cells as text, as the edition "
+            "prints them (e.g. read the file with dtype=str).")
+    return str(v)
+
+
 def _isna(v) -> bool:
-    return v is None or (isinstance(v, float) and math.isnan(v))
+    try:
+        return v is None or (isinstance(v, float) or type(v).__name__.startswith("float")) and math.isnan(v)
+    except TypeError:
+        return False
 
 
 def split_text(text: str, *, suffix: str = "") -> tuple[list[str], list[list[str]]]:
