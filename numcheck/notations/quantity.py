@@ -41,6 +41,7 @@ BAD_EXAMPLES: list[tuple[str, int, str]] = [
     ("40 Taurus", 1, "is not a position within the sign"),
     ("12 Taurus Gemini", 11, "a second zodiacal sign"),
     ("3 days 1,6a hours", 11, "a number that cannot be read"),
+    ("3 signs [...];30°", 9, "lost places of unknown number ([...]) inside a quantity of several parts"),
 ]
 
 #: Vulgar fraction characters and their exact values (checked against
@@ -179,6 +180,7 @@ def parse(text: str, *, notation: str | None = None) -> Reading:
     components, zodiac = _components(text, pieces)
     reasons: list[str] = []
     readings = [_read_number(text, p, notation, reasons) for p, _ in components]
+    _check_gaps(text, components, readings, zodiac)
     unit_names = [u for _, u in components]
     result_unit = _finest(text, components, pieces)
     slots: list[Slot] = []
@@ -238,6 +240,26 @@ def _components(text: str, pieces: list[_Piece]) -> tuple[list[tuple[_Piece, str
 
 def _syntax(text: str, pos: int, what: str, expected: str) -> NumcheckSyntaxError:
     return NumcheckSyntaxError(f"Cannot read {text!r} as a quantity: {what}", text, pos, expected=expected)
+
+
+def _check_gaps(text: str, components, readings: list[Reading], zodiac: _Piece | None) -> None:
+    """Refuse a ``[...]`` whose extra places would shift the other numbers.
+
+    A gap of unknown extent in a whole part moves the places to its left up,
+    and one in a fraction moves the places to its right down (see
+    :meth:`Reading.expansions`); in a quantity those may belong to another
+    number, so only a gap at the outer edge of the quantity is allowed.
+    """
+    last = len(readings) - 1
+    for k, ((piece, _), reading) in enumerate(zip(components, readings)):
+        for slot in reading.slots:
+            if slot.gap is None:
+                continue
+            whole = slot.place >= 0
+            if zodiac is not None or (whole and k > 0) or (not whole and k < last):
+                raise _syntax(text, piece.start + slot.span[0],
+                              "lost places of unknown number ([...]) inside a quantity of several parts",
+                              "[x] for each lost place, or the quantity split into its parts")
 
 
 def _finest(text: str, components: list[tuple[_Piece, str]], pieces: list[_Piece]) -> str:
