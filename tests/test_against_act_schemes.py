@@ -116,3 +116,20 @@ def test_no_false_flags_on_clean_zigzag_tables(start, n):
     r = audit(pd.DataFrame({"A": [sxt(x) for x in a]}))
     assert r.flags == []
     assert r.schemes[0].kind == "zigzag"
+
+
+def test_parameters_survive_a_minority_of_slips():
+    """Estimated from the majority: slips at a turn and elsewhere do not move M, m, d."""
+    a, b = lunar_b(40)
+    A = [sxt(x) for x in a]
+    turn = next(i for i in range(1, 39) if a[i] < a[i - 1] and a[i - 1] > a[i - 2])
+    bad = {turn - 1: a[turn - 1] + F(1, 60), turn: a[turn] + F(10, 3600), 20: a[20] + 1,
+           30: a[30] - F(1, 3600)}
+    for i, v in bad.items():
+        A[i] = sxt(v)
+    r = audit(pd.DataFrame({"A": A}))
+    kind, p = _params(r, "A")
+    assert (p["M"]["sexagesimal"], p["m"]["sexagesimal"], p["d"]["sexagesimal"]) == \
+        ("30;1,59", "28;10,39,40", "0;18")
+    assert sorted(f["row"] for f in r.flags) == sorted(i + 1 for i in bad)
+    assert all(f["expected"] == sxt(a[f["row"] - 1]) for f in r.flags)

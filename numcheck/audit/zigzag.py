@@ -141,13 +141,34 @@ class ZigzagScheme(Scheme):
                 maxima.append(_half(total + d))
             elif before == -d and after == d:
                 minima.append(_half(total - d))
-        M = mode(maxima)[0] if maxima else None
-        m = mode(minima)[0] if minima else None
-        if M is None and m is None:
+        if not maxima and not minima:
             return None
-        if M is not None and m is not None and not m < M:
-            return None
-        return cls(column, frame, d, M, m)
+        # The commonest turn values; where turns disagree (a slip at a turn),
+        # the pair that explains the most lines wins.
+        best, best_support = None, -1.0
+        sample = values[:_SAMPLE]
+        from .schemes import support_chained
+        for M in _commonest(maxima):
+            for m in _commonest(minima):
+                if M is not None and m is not None and not m < M:
+                    continue
+                scheme = cls(column, frame, d, M, m)
+                support = support_chained(scheme, sample, None)
+                if support > best_support:
+                    best, best_support = scheme, support
+        return best
+
+
+#: Lines used to choose between turn values that disagree.
+_SAMPLE = 2000
+
+
+def _commonest(values: list, k: int = 3) -> list:
+    """Up to *k* commonest values, commonest first ([None] when there are none)."""
+    if not values:
+        return [None]
+    from collections import Counter
+    return [v for v, _ in Counter(values).most_common(k)]
 
 
 def _half(x):
