@@ -153,7 +153,8 @@ def parse(text: str, *, notation: str = NAME) -> Reading:
     for k, tokens in enumerate(groups):
         marks = _marks(text, tokens, state, values, all_values)
         if not marks:
-            raise _error(text, tokens[0].start_pos, "a place with no letter", "a letter, x or [.] in every place")
+            raise _error(text, tokens[0].start_pos, "a place with no letter",
+                         "a letter, x or [.] in every place")
         span = (tokens[0].start_pos, tokens[-1].end_pos)
         slots.append(_group_slot(text, marks, place=-k, fractional=k > 0, span=span))
     for name, opened in state.items():
