@@ -79,7 +79,7 @@ BAD_EXAMPLES: list[tuple[str, int, str]] = [
     ("Η[Δ", 2, "a bracket opened and never closed"),
     ("ΗΔ]", 3, "a closing bracket with no opening bracket"),
     ("?Δ", 1, "a doubt mark with no sign before it"),
-    ("ΙΙΙΙ[.]", 5, "more lost signs than can stand here"),
+    ("ΙΙΙΙ[.]", 6, "more lost signs than can stand here"),
 ]
 
 
@@ -135,11 +135,13 @@ def parse(text: str) -> Reading:
     if len(signs) > MAX_PLACES:
         raise LimitError("number of signs", len(signs), MAX_PLACES,
                          "Set numcheck.limits.MAX_PLACES higher to read it.")
-    notes: list[str] = []
-    slots = _slots(text, signs, notes)
-    for note in notes:
+    notes: list[str] = []     # plain notes (how '[...]' was bounded)
+    oddities: list[str] = []  # tolerable oddities, also given as a NumcheckWarning
+    slots = _slots(text, signs, notes, oddities)
+    for note in oddities:
         _warnings.warn(note, NumcheckWarning, stacklevel=2)
-    return Reading(text=text, notation=NAME, slots=tuple(slots), base=60, warnings=tuple(notes))
+    return Reading(text=text, notation=NAME, slots=tuple(slots), base=60,
+                   warnings=tuple(oddities + notes))
 
 
 def _signs(text: str, tokens: list[Token]) -> list[_Sign]:
@@ -202,7 +204,7 @@ def _well_formed(values: list[Fraction]) -> bool:
     return all(c <= (1 if five else 4) for (_, five), c in counts.items())
 
 
-def _slots(text: str, signs: list[_Sign], notes: list[str]) -> list[Slot]:
+def _slots(text: str, signs: list[_Sign], notes: list[str], oddities: list[str]) -> list[Slot]:
     counted = [s for s in signs if s.status is not Status.SUPERFLUOUS]
     known = [s for s in counted if s.value is not None]
     for a, b in zip(known, known[1:]):
@@ -210,7 +212,7 @@ def _slots(text: str, signs: list[_Sign], notes: list[str]) -> list[Slot]:
             _fail(text, "a sign larger than the one before it", b.start,
                   "the signs largest first (Attic numerals are written in descending order)")
     if known and not _well_formed([s.value for s in known]):
-        notes.append(f"{text!r} repeats a sign more often than a well-formed Attic numeral does "
+        oddities.append(f"{text!r} repeats a sign more often than a well-formed Attic numeral does "
                      "(four unit-signs and one five-sign per decade); read additively")
     slots: list[Slot] = []
     k = 0
