@@ -149,14 +149,17 @@ def parse(text: str, *, notation: str = NAME) -> Reading:
     values = letter_values(notation)
     all_values = tuple(sorted({v for vs in values.values() for v in vs}))
     state: dict[str, int | None] = {"lost": None, "added": None, "superfluous": None, "half": None}
-    slots = []
-    for k, tokens in enumerate(groups):
+    slots: list[Slot] = []
+    k = 0          # places counted so far: a superfluous group takes none
+    for tokens in groups:
         marks = _marks(text, tokens, state, values, all_values)
         if not marks:
             raise _error(text, tokens[0].start_pos, "a place with no letter",
                          "a letter, x or [.] in every place")
         span = (tokens[0].start_pos, tokens[-1].end_pos)
         slots.append(_group_slot(text, marks, place=-k, fractional=k > 0, span=span))
+        if slots[-1].status is not Status.SUPERFLUOUS:
+            k += 1
     for name, opened in state.items():
         if opened is not None:
             raise _error(text, opened, "a bracket opened and never closed",
