@@ -166,7 +166,9 @@ def _signs(text: str, tokens: list[Token]) -> list[_Sign]:
             last = out[-1]
             out[-1] = _Sign(last.char, last.value, last.status, last.start, tok.end_pos, True, last.gap)
         else:
-            if state["superfluous"] is not None:
+            if t == "GAP":
+                status = Status.LOST
+            elif state["superfluous"] is not None:
                 status = Status.SUPERFLUOUS
             elif state["lost"] is not None:
                 status = Status.LOST if t in ("DOT", "GAP") else Status.RESTORED
