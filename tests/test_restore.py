@@ -155,8 +155,9 @@ def test_wide_space_without_evidence_lists_the_prior_favourites_and_says_what_wo
     assert len(result.candidates) == 5
     assert result.unmatched_mass == pytest.approx(1.0)
     assert any("would narrow it" in n for n in result.notes)
-    # Round values first (the simplicity prior), all zeros the likeliest.
-    assert result.best.value == 0
+    # Round values first (the simplicity prior): empty places, but not an empty last place.
+    assert result.best.value == 10
+    assert result.best.text == "[0,0,0,0,0,0,0,10]"
 
 
 def test_huge_space_with_catalogue_evidence_finds_the_matches(catalogue):

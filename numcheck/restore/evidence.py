@@ -102,13 +102,24 @@ def _expect_target(reading: Reading, expect, notation: str | None) -> Target:
     return Target(value, None, scoring.EXPECT_WEIGHT, label, "expect", id="expect")
 
 
+def _modern(ident: str) -> bool:
+    """Whether a catalogue row is a modern value (no ancient scribe could have written it)."""
+    from .. import catalogue
+
+    try:
+        return catalogue.by_id(ident).tradition.startswith("modern")
+    except Exception:   # a row the catalogue does not know (a stand-in): keep it
+        return False
+
+
 def _catalogue(reading: Reading, space, unit: str | None, notes: list[str]) -> list[Target]:
     """The catalogue values the traces could reach, one target per distinct value.
 
     Only the values themselves and their simple parts and multiples (n/m
     with n, m <= ``scoring.CATALOGUE_MAX_FACTOR``) count: a long whole
     multiple of a period (4260 months) fits almost any count and says
-    nothing.  Rows that give the same value are one hypothesis, with the
+    nothing.  Modern values (the catalogue's ``modern`` traditions) are left
+    out: they serve to judge an ancient value, not to restore one.  Rows that give the same value are one hypothesis, with the
     weight of the best of them.
     """
     source = catalogue_source()
@@ -129,9 +140,11 @@ def _catalogue(reading: Reading, space, unit: str | None, notes: list[str]) -> l
             factor = Fraction(getattr(t, "factor", 1))
             if factor.numerator > top or factor.denominator > top:
                 continue
+            ident = str(getattr(t, "id", ""))
+            if _modern(ident):
+                continue
             value = Fraction(t.value)
             weight = float(getattr(t, "weight", 1.0))
-            ident = str(getattr(t, "id", ""))
             old = best.get(value)
             if old is not None:
                 if ident != old[2] and weight <= old[0]:

@@ -9,6 +9,7 @@ floating number.
 from __future__ import annotations
 
 from fractions import Fraction
+from functools import lru_cache
 
 from ..reading import exact_text, sexagesimal_text
 from .evidence import Target
@@ -18,11 +19,12 @@ __all__ = ["evidence_reason", "position_reasons", "NO_EVIDENCE"]
 NO_EVIDENCE = "no evidence points to it: ranked by the traces alone"
 
 
+@lru_cache(maxsize=1024)
 def _num(value: Fraction, base: int) -> str:
+    # Cached: the same catalogue values are written again for every reading near them.
     value = Fraction(value)
     if base == 60:
-        text = sexagesimal_text(value)
-        return text if text != exact_text(value) else exact_text(value)
+        return sexagesimal_text(value, max_places=8)
     return exact_text(value)
 
 

@@ -8,7 +8,8 @@ readings is known in closed form:
 * each lost or unread place (or digit) takes every value the traces allow,
   uniformly, times a mild *simplicity* factor (:func:`simplicity`: a round
   value such as 0 or 30 is a little likelier, as scribes and editors meet
-  round numbers often — common practice, not a measured frequency);
+  round numbers often, but an empty last place is unlikely, as nobody needs
+  to write it — common practice, not a measured frequency);
 * an editor's restoration counts :data:`EDITOR_WEIGHT` times an unrestored
   value: the editor saw the original and its context, but the restoration is
   one candidate among the others, and evidence can overturn it;
@@ -72,14 +73,19 @@ EXPECT_WEIGHT = 4.0
 KERNEL_EDGE = 0.5
 
 
-def simplicity(value: Fraction) -> float:
+def simplicity(value: Fraction, last: bool = False) -> float:
     """A mild preference for round values in a lost place.
+
+    An empty place at the end of a number is the exception: a scribe had no
+    reason to write it (common practice), so a lost last place is seldom 0.
 
     >>> simplicity(Fraction(0)), simplicity(Fraction(30)), simplicity(Fraction(37))
     (1.5, 1.2, 1.0)
+    >>> simplicity(Fraction(0), last=True)
+    0.5
     """
     if value == 0:
-        return 1.5
+        return 0.5 if last else 1.5
     if value.denominator == 1 and value % 10 == 0:
         return 1.2
     return 1.0

@@ -84,17 +84,26 @@ class Match:
 
 def grid_for(sub: SubSpace) -> Grid:
     """Turn a sub-space into integer contributions in units of its finest place."""
-    base = Fraction(sub.expansion.base)
+    base = sub.expansion.base
     ulp = sub.expansion.ulp
     D = ulp.denominator            # a grid unit divides one unit of the last place
     for p in sub.positions:
+        if p.place < 0:
+            D = math.lcm(D, base ** -p.place)
         for o in p.options:
-            D = math.lcm(D, (o.value * base ** p.place).denominator)
+            if o.value.denominator != 1:
+                D = math.lcm(D, (o.value * Fraction(base) ** p.place).denominator)
     const = 0
     open_ids, contrib, priors = [], [], []
     lo = hi = 0
     for i, p in enumerate(sub.positions):
-        cs = [int(o.value * base ** p.place * D) for o in p.options]
+        weight = Fraction(base) ** p.place * D           # a whole number: D clears every place
+        if weight.denominator == 1:
+            w = weight.numerator
+            cs = [o.value.numerator * w // o.value.denominator if o.value.denominator != 1
+                  else o.value.numerator * w for o in p.options]
+        else:
+            cs = [int(o.value * weight) for o in p.options]
         if len(cs) == 1:
             const += cs[0]
             continue

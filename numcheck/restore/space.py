@@ -17,7 +17,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass
-from functools import cached_property
+from functools import cached_property, lru_cache
 from fractions import Fraction
 
 from .. import limits
@@ -47,6 +47,15 @@ class Position:
     options: tuple[Option, ...]
     slot: Slot
 
+    @cached_property
+    def span(self) -> tuple[Fraction, Fraction]:
+        """The smallest and largest value the position may take (in units of its place)."""
+        if all(o.value.denominator == 1 for o in self.options):
+            nums = [o.value.numerator for o in self.options]
+            return Fraction(min(nums)), Fraction(max(nums))
+        values = [o.value for o in self.options]
+        return min(values), max(values)
+
     @property
     def open(self) -> bool:
         """Whether the traces leave this position more than one value."""
@@ -72,8 +81,8 @@ class SubSpace:
     def bounds(self) -> tuple[Fraction, Fraction]:
         """The smallest and largest value of the sub-space (doubtful alternatives included)."""
         base = Fraction(self.expansion.base)
-        lo = sum((min(o.value for o in p.options) * base ** p.place for p in self.positions), Fraction(0))
-        hi = sum((max(o.value for o in p.options) * base ** p.place for p in self.positions), Fraction(0))
+        lo = sum((p.span[0] * base ** p.place for p in self.positions), Fraction(0))
+        hi = sum((p.span[1] * base ** p.place for p in self.positions), Fraction(0))
         factor = base ** self.scale
         lo, hi = lo * factor, hi * factor
         return (lo, hi) if self.expansion.sign > 0 else (-hi, -lo)
@@ -136,7 +145,7 @@ def _place_max(reading: Reading, slot: Slot) -> int | None:
     return reading.base - 1 if leading and reading.base else None
 
 
-def _options(reading: Reading, slot: Slot) -> tuple[Option, ...]:
+def _options(reading: Reading, slot: Slot, last: bool = False) -> tuple[Option, ...]:
     status = slot.status
     if status is Status.DOUBTFUL and len(slot.values) == 1:
         read_value = slot.values[0]
@@ -157,13 +166,29 @@ def _options(reading: Reading, slot: Slot) -> tuple[Option, ...]:
         return tuple(opts)
     if len(slot.values) == 1:
         return (Option(slot.values[0], 1.0, "read", editor=slot.editor is not None),)
-    weights = [scoring.simplicity(v) * (scoring.EDITOR_WEIGHT if v == slot.editor else 1.0)
-               for v in slot.values]
-    total = sum(weights)
     kind = "lost" if status in (Status.LOST, Status.RESTORED) else (
         "unread" if status is Status.UNREAD else "doubtful-read")
-    return tuple(Option(v, w / total, kind, editor=(v == slot.editor))
-                 for v, w in zip(slot.values, weights))
+    values = slot.values
+    if all(v.denominator == 1 for v in values):   # a cheap key: the same sets recur (0-59, 50-59 ...)
+        key = tuple(v.numerator for v in values)
+        editor = slot.editor.numerator if slot.editor is not None and slot.editor.denominator == 1 \
+            else slot.editor
+        return _open_int_options(key, editor, kind, last)
+    return _open_options(values, slot.editor, kind, last)
+
+
+@lru_cache(maxsize=256)
+def _open_int_options(values: tuple[int, ...], editor, kind: str, last: bool) -> tuple[Option, ...]:
+    return _open_options(tuple(Fraction(v) for v in values),
+                         Fraction(editor) if editor is not None else None, kind, last)
+
+
+def _open_options(values: tuple[Fraction, ...], editor: Fraction | None, kind: str,
+                  last: bool) -> tuple[Option, ...]:
+    weights = [scoring.simplicity(v, last) * (scoring.EDITOR_WEIGHT if v == editor else 1.0)
+               for v in values]
+    total = sum(weights)
+    return tuple(Option(v, w / total, kind, editor=(v == editor)) for v, w in zip(values, weights))
 
 
 def _gap_counts(reading: Reading, expansion: Reading) -> tuple[int, ...]:
@@ -209,7 +234,11 @@ def build_space(reading: Reading) -> Space:
     total_gap = sum(gap_weights)
     subspaces: list[SubSpace] = []
     for e, gw, counts in zip(expansions, gap_weights, gap_lists):
-        positions = tuple(Position(i, s.place, _options(reading, s), s)
+        lowest = min((s.place for s in e.slots if s.counted), default=0)
+        # A floating number's last place is its last written place too; an
+        # additive notation (every sign at place 0) has no empty last place.
+        additive = all(s.place == 0 for s in e.slots)
+        positions = tuple(Position(i, s.place, _options(reading, s, s.place == lowest and not additive), s)
                           for i, s in enumerate(e.slots) if s.counted)
         scales = _scales(e) if reading.floating else [0]
         weights = [scoring.scale_weight(e, s) if reading.floating else 1.0 for s in scales]
