@@ -87,6 +87,46 @@ def test_unit_fraction_is_one_slot_at_place_0():
     assert r.slots[-1].values == (F(1, 3),) and r.slots[-1].place == 0
 
 
+# -- published values ---------------------------------------------------------
+
+PUBLISHED = [
+    ("κθ λα ν η κ", F(765433, 25920), "29;31,50,8,20 days, the mean synodic month: Ptolemy, "
+     "Almagest IV.3 (tr. G. J. Toomer, Ptolemy's Almagest, 1984)"),
+    ("τξε ιδ μη", 365 + F(14, 60) + F(48, 3600), "365;14,48 days, the tropical year: Ptolemy, "
+     "Almagest III.1 (tr. Toomer 1984)"),
+    ("ϛφπε γʹ", 6585 + F(1, 3), "6585 1/3 days, the period of 223 months: Ptolemy, Almagest IV.2 "
+     "(tr. Toomer 1984)"),
+    ("α 𐆊 λ", 1 + F(30, 3600), "1;0,30: the zero sign in an empty place (Cajori, A History of "
+     "Mathematical Notations I §43; constructed example)"),
+]
+
+
+@pytest.mark.parametrize("text, value, source", PUBLISHED)
+def test_published_values(text, value, source):
+    assert read(text).value == value, source
+    assert read(text).notation == "greek"
+
+
+def test_cli_read_json_gives_the_exact_month(capsys):
+    import json
+
+    from numcheck.cli import main
+    code = main(["read", "κθ λα ν η κ", "--json"])
+    data = json.loads(capsys.readouterr().out)
+    assert code == 0
+    assert data["value"] == "765433/25920"          # Almagest IV.3 (tr. Toomer 1984)
+    assert data["sexagesimal"] == "29;31,50,8,20"
+    assert data["notation"] == "greek" and data["canonical"] == "κθ λα ν η κ"
+
+
+def test_cli_bad_greek_exits_2_naming_the_code_point(capsys):
+    from numcheck.cli import main
+    code = main(["read", "κθ λo"])
+    captured = capsys.readouterr()
+    assert code == 2
+    assert "U+006F" in captured.out + captured.err and "Traceback" not in captured.err
+
+
 # -- damage -------------------------------------------------------------------
 
 DAMAGE = [
