@@ -43,7 +43,7 @@ TEI_NS = "http://www.tei-c.org/ns/1.0"
 #: Notations whose lost letters are written as dots (``ι[.]``); the others
 #: (digit strings) write a lost digit as ``x`` (``5[x]``).  Roman uses dots
 #: because ``x`` is one of its letters.
-_DOT_NOTATIONS = {"greek", "attic", "roman", "abjad", "abjad-maghribi"}
+_DOT_NOTATIONS = {"greek", "greek-ascending", "attic", "roman", "abjad", "abjad-maghribi"}
 #: Notations where an underdot is not a mark of doubt (cuneiform: ṣ, ṭ are
 #: letters; Arabic script: dots are part of the letters) and ``?`` is used.
 _QUERY_NOTATIONS = {"cuneiform", "abjad", "abjad-maghribi"}
@@ -247,11 +247,15 @@ def _lost_mark(notation: str, count: int | None) -> str:
     return "[" + letter * count + "]"
 
 
+#: How each notation writes a letter present but not read (Leiden: dots in
+#: papyrology, "+" in Latin epigraphy, "x" for a digit; conventions.md §1.2).
+_UNREAD = {"greek": ".", "greek-ascending": ".", "attic": ".", "roman": "+"}
+
+
 def _unread_mark(notation: str, count: int | None) -> str:
-    if notation in _DOT_NOTATIONS:
-        # Papyrological dots for illegible letters (one underdotted space each).
-        return "[...]" if count is None else " \u0323" * count
-    return "x" * (count or 1)
+    if count is None:
+        return "[...]"
+    return _UNREAD.get(notation, "x") * count
 
 
 def _wrap_words(text: str, left: str, right: str) -> str:

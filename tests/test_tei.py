@@ -227,6 +227,9 @@ def test_no_alternatives_for_an_undamaged_number():
     ([Piece("supplied", "κθ λα")], "greek", "[κθ] [λα]"),
     ([Piece("text", "1"), Piece("omitted", "2"), Piece("surplus", "3")], "sexagesimal", "1<2>{3}"),
     ([Piece("text", "1"), Piece("illegible", count=2)], "sexagesimal", "1xx"),
+    ([Piece("text", "ι"), Piece("illegible", count=1)], "greek", "ι."),
+    ([Piece("text", "L"), Piece("illegible", count=1)], "roman", "L+"),
+    ([Piece("text", "ي"), Piece("unclear", "ب")], "abjad", "يب?"),
 ])
 def test_leiden_text(pieces, notation, text):
     assert leiden_text(pieces, notation) == text
@@ -373,3 +376,16 @@ def test_table_without_header_gets_column_names(tmp_path):
                         "<row><cell>2</cell><cell>1;0</cell></row></table>"))
     frame = table_to_dataframe(src)
     assert list(frame.columns) == ["column 1", "column 2"]
+
+
+@pytest.mark.parametrize("inner, lang, at_least, at_most", [
+    # (markup, xml:lang, the range the letters allow): illegible letters, per notation
+    ('ι<gap reason="illegible" quantity="1" unit="character"/>', "grc", "11", "19"),
+    ('L<gap reason="illegible" quantity="1" unit="character"/>', "la", "51", "60"),
+    ('1;3<gap reason="illegible" quantity="1" unit="character"/>', "en", "3/2", "33/20"),   # 1;30 to 1;39
+])
+def test_illegible_letters(inner, lang, at_least, at_most):
+    out, result = run(f'<p xml:lang="{lang}"><num>{inner}</num></p>')
+    num = nums_of(out)[0]
+    assert (num.get("atLeast"), num.get("atMost")) == (at_least, at_most)
+    assert result.nums[0].damaged
