@@ -105,7 +105,7 @@ def restore(reading_or_text, *, notation=None, unit=None, expect=None, context=(
 
 def _rank_key(row):
     prob, prior, sub, V, g, choice, _ = row
-    return (-prob, -prior, sub, g.value_of(V), choice)
+    return (-prob, -prior, sub, g.sub.expansion.sign * V, choice)   # V orders values within a sub-space
 
 
 def _merged(wins):
