@@ -13,7 +13,6 @@ from hypothesis import given
 from hypothesis import strategies as st
 
 from numcheck.errors import NumcheckError, NumcheckRangeError, NumcheckSyntaxError, NumcheckWarning
-from numcheck.notations import greek
 from numcheck.notations.greek import BAD_EXAMPLES, format, parse
 from numcheck.reader import read
 from numcheck.reading import Status

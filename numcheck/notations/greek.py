@@ -41,7 +41,6 @@ instead (Heath, *A History of Greek Mathematics* I p. 36).
 
 from __future__ import annotations
 
-import itertools
 import unicodedata
 import warnings as _warnings
 from dataclasses import replace
@@ -50,9 +49,9 @@ from fractions import Fraction
 from lark import Token, Tree
 from lark.exceptions import UnexpectedCharacters, UnexpectedInput
 
-from ..errors import LimitError, NumcheckRangeError, NumcheckSyntaxError, NumcheckWarning
+from ..errors import LimitError, NumcheckSyntaxError, NumcheckWarning
 from ..grammar_loader import parser_for
-from ..limits import GAP_MAX_PLACES, MAX_PLACES
+from ..limits import MAX_PLACES
 from ..reading import Reading, Slot, Status
 from .greek_build import group_slots
 from .greek_format import format, render
