@@ -1,9 +1,12 @@
 """Tests for numcheck.tei: <num> in and out, on small TEI documents of our own."""
 
 import hashlib
+import re
 from fractions import Fraction
 
 import pytest
+from hypothesis import given
+from hypothesis import strategies as st
 from lxml import etree
 
 import numcheck
@@ -389,3 +392,35 @@ def test_illegible_letters(inner, lang, at_least, at_most):
     num = nums_of(out)[0]
     assert (num.get("atLeast"), num.get("atMost")) == (at_least, at_most)
     assert result.nums[0].damaged
+
+
+# -- round trips ----------------------------------------------------------------
+
+_places = st.lists(st.integers(0, 59), min_size=0, max_size=3)
+
+
+@given(st.lists(st.tuples(st.integers(0, 59), _places, st.sampled_from(["'", '"']),
+                          st.sampled_from(["", " ", "\n  "])), min_size=1, max_size=6))
+def test_round_trip_values_exact_and_rest_unchanged(items):
+    parts, expected = [], []
+    for whole, frac, quote, space in items:
+        text = str(whole) + (";" + ",".join(map(str, frac)) if frac else "")
+        parts.append(f"<num type={quote}c{quote}{space}>{text}</num>")
+        expected.append(Fraction(whole) + sum(Fraction(d, 60 ** (i + 1)) for i, d in enumerate(frac)))
+    src = doc("<p>" + " &amp; ".join(parts) + "</p>")
+    out, _ = annotate_bytes(src, "t.xml", notation="sexagesimal")
+    assert [Fraction(n.get("value")) for n in nums_of(out)] == expected
+    # taking the added attributes out again gives the input, byte for byte
+    assert re.sub(rb' value="[0-9/]+"', b"", out) == src
+    again, _ = annotate_bytes(out, "t.xml", notation="sexagesimal")
+    assert again == out
+
+
+@pytest.mark.parametrize("encoding, bom", [("utf-8", b"\xef\xbb\xbf"), ("utf-16-le", b"\xff\xfe"),
+                                           ("utf-16-be", b"\xfe\xff")])
+def test_byte_order_marks_kept(encoding, bom):
+    text = ('<?xml version="1.0" encoding="UTF-16"?>\n' if encoding != "utf-8" else "") + \
+        '<TEI xmlns="http://www.tei-c.org/ns/1.0"><p>λ <num>0;30</num></p></TEI>\n'
+    src = bom + text.encode(encoding)
+    out, _ = annotate_bytes(src, "t.xml")
+    assert out == bom + text.replace("<num>", '<num value="1/2">').encode(encoding)
