@@ -335,3 +335,12 @@ def test_round_trip_with_a_lost_letter(n, which):
     assert r.min <= n <= r.max
     assert F(n) in set(r.readings())
     assert format(r) == damaged
+
+
+@given(st.integers(10000, 99999999))
+def test_round_trip_myriads(n):
+    # Myriads: the count before the myriad sign Μ, the rest after it (Heath I p. 39, from memory).
+    text = _letters(n // 10000) + "Μ" + _letters(n % 10000)
+    r = parse(text)
+    assert r.value == n
+    assert format(r) == text

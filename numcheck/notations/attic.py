@@ -222,8 +222,9 @@ def _slots(text: str, signs: list[_Sign], notes: list[str], oddities: list[str])
         s = signs[k]
         if s.value is not None and s.status is not Status.RESTORED:
             status = Status.DOUBTFUL if s.doubtful and s.status is Status.READ else s.status
-            slots.append(Slot(values=(s.value,), place=0, status=status, text=text[s.start:s.end],
-                              span=(s.start, s.end), form=(((_canon(s.value) + (_UNDERDOT if s.doubtful else "")),
+            start, end = _widen(text, s.start, s.end)
+            slots.append(Slot(values=(s.value,), place=0, status=status, text=text[start:end],
+                              span=(start, end), form=(((_canon(s.value) + (_UNDERDOT if s.doubtful else "")),
                                                             _BRACKET.get(s.status)),)))
             k += 1
             continue
@@ -267,8 +268,17 @@ def _run_slot(text, signs, counted, run, notes) -> Slot:
         Status.LOST if any(s.status is Status.LOST for s in run) else Status.UNREAD)
     pieces = ((_canon(editor), "[") if restored else
               ("[...]" if s.gap else ".", "gap" if s.gap else _BRACKET.get(s.status)) for s in run)
-    return Slot(values=tuple(sorted(sums)), place=0, status=status, text=text[run[0].start:run[-1].end],
-                span=(run[0].start, run[-1].end), editor=editor, form=tuple(pieces))
+    start, end = _widen(text, run[0].start, run[-1].end)
+    return Slot(values=tuple(sorted(sums)), place=0, status=status, text=text[start:end],
+                span=(start, end), editor=editor, form=tuple(pieces))
+
+
+def _widen(text: str, start: int, end: int) -> tuple[int, int]:
+    """Take in the brackets around a span when they hold it alone (``[.]``, ``<Δ>``)."""
+    pairs = {"[": "]", "<": ">", "⟨": "⟩", "{": "}"}
+    if start > 0 and end < len(text) and pairs.get(text[start - 1]) == text[end]:
+        return start - 1, end + 1
+    return start, end
 
 
 def _canon(value: Fraction) -> str:

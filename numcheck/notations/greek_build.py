@@ -22,7 +22,7 @@ from ..reading import Slot, Status
 from .greek_letters import CANONICAL, exponent
 from .greek_model import RANK_NAMES, STATUS_ORDER, UNDERDOT, ZERO, Form, Item, fail
 
-__all__ = ["group_slots", "letter_text"]
+__all__ = ["group_slots", "letter_text", "widen"]
 
 _BRACKET = {Status.LOST: "[", Status.RESTORED: "[", Status.ADDED: "<", Status.SUPERFLUOUS: "{"}
 _PLACE_MAX = 59
@@ -100,6 +100,14 @@ def group_slots(text: str, index: int, items: list[Item], group: Tree, gkind: st
     if limit is not None:
         slots = _within_place(text, slots, group_text, items[0].start)
     return slots
+
+
+def widen(text: str, start: int, end: int) -> tuple[int, int]:
+    """Take in the brackets around a span when they hold it alone (``[.]``, ``<η>``)."""
+    pairs = {"[": "]", "<": ">", "⟨": "⟩", "{": "}"}
+    if start > 0 and end < len(text) and pairs.get(text[start - 1]) == text[end]:
+        return start - 1, end + 1
+    return start, end
 
 
 def _status(item: Item) -> Status:
@@ -206,8 +214,8 @@ def _part(text, items, top, place, mult, limit, allow_zero, ascending, notes, ba
         if not vals:
             fail(text, f"no letter can stand at {text[first.start:last.end]!r} in this place", first.start,
                  "a lost letter where a rank is left free for it")
-        return Slot(values=vals, place=place, status=status, text=text[first.start:last.end],
-                    span=(first.start, last.end),
+        start, end = widen(text, first.start, last.end)
+        return Slot(values=vals, place=place, status=status, text=text[start:end], span=(start, end),
                     editor=Fraction(editor) * mult if editor is not None else None,
                     form=(Form(role=role, pieces=tuple(pieces), mult=mult, **base),))
 
