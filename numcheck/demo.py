@@ -16,9 +16,11 @@ import io
 import json
 import os
 from dataclasses import dataclass, field
+from fractions import Fraction
 from importlib import resources
 from pathlib import Path
 
+from . import limits
 from .errors import NumcheckError
 from .files import OutputError, same_file, write_atomic
 from .reading import exact_text, sexagesimal_text
@@ -137,7 +139,7 @@ def _fragments(data: Path, out: Path, key: dict, step: Step) -> None:
                  for c in rest.candidates[:_RESTORE_TOP]]
         item.update({"identified": matches, "restorations": cands})
         want = truth.get(name, {})
-        if cands and want and cands[0]["value"] == want["value"]:
+        if cands and want and _same_value(cands[0]["value"], want["value"], reading.floating):
             right_value += 1
         if matches and want and matches[0]["id"] in want["catalogue"]:
             right_id += 1
@@ -167,9 +169,23 @@ def _fragments(data: Path, out: Path, key: dict, step: Step) -> None:
         step.status = "partial" if done else "skipped"
 
 
-def _fraction(text: str):
-    from fractions import Fraction
+def _fraction(text: str) -> Fraction:
     return Fraction(text)
+
+
+def _same_value(got: str, want: str, floating: bool) -> bool:
+    """Whether a restored value is the true one (for a floating number: up to a power of 60).
+
+    >>> _same_value("223/60", "223", True), _same_value("223/60", "223", False)
+    (True, False)
+    """
+    a, b = _fraction(got), _fraction(want)
+    if a == b:
+        return True
+    if not floating or a == 0 or b == 0:
+        return False
+    # A floating reading is restored digit for digit; its magnitude stays open.
+    return any(a == b * Fraction(60) ** k for k in range(-limits.MAX_PLACES, limits.MAX_PLACES + 1))
 
 
 # -- step 2: the ephemeris --------------------------------------------------
