@@ -42,11 +42,13 @@ def plain_loop(reading, unit):
                 factors += [Fraction(n) for n in range(limits.IDENTIFY_MAX_SIMPLE + 1,
                                                        limits.IDENTIFY_MAX_MULTIPLE + 1)]
             for f in factors:
+                if not targets.factor_allowed(item, f):
+                    continue
                 x = base * f.numerator / f.denominator
                 if abs(fv - x) > ftol + fulp:
                     continue
                 target = item.value * tab.factors[i] * f
-                how = core._classify(core._scaled(reading, p), v, target, ulp,
+                how = core._classify(core._Window(False, v, v), v, target, ulp,
                                      tol if f == 1 else core.NEAR_ULPS * ulp)
                 if how:
                     found.add((item.entry.id, item.label, f, scale))

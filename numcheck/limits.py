@@ -42,3 +42,5 @@ IDENTIFY_MAX_SIMPLE = 12
 IDENTIFY_MAX_TARGETS = 50_000
 #: Longest span, in years, that ``relate --search`` walks (months: this many years of them).
 RELATE_MAX_SEARCH_YEARS = 20_000
+#: identify compares the whole range a damaged reading allows only up to this many readings.
+IDENTIFY_DAMAGE_READINGS = 60

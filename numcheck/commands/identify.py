@@ -33,8 +33,10 @@ def _show(result, console) -> None:
     unit = f" {result.unit}" if result.unit else ""
     scale = " (floating: every power of 60 tried)" if r.floating else ""
     console.print(f"[bold]numcheck identify[/bold]  {escape(r.text)}{escape(unit)}{scale}")
+    for note in result.notes:
+        console.print(f"[yellow]note:[/yellow] {escape(note)}")
     if not result.matches:
-        console.print(escape(result.summary))
+        console.print(escape(result._summary()))
         if result.nearest:
             near = Table(title="nearest catalogue numbers", header_style="bold", show_edge=False)
             for col in ("id", "value", "unit", "scale", "difference", "relative"):

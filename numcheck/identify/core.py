@@ -8,7 +8,8 @@ exactly and classed:
 * ``exact``      the reading equals it;
 * ``truncated``  the reading is it cut at the last written place (texts truncate);
 * ``rounded``    the reading is it rounded at the last written place;
-* ``damage``     it lies within what the damaged reading allows;
+* ``damage``     it lies within what the damaged reading allows (only when
+  the damage leaves few readings; a wider gap is a job for ``restore``);
 * ``near``       within one unit of the last written place, or (for the
   catalogue number itself, factor 1) within 1e-5 relative: how close good
   ancient periods come to modern ones.
@@ -25,6 +26,7 @@ import math
 from dataclasses import dataclass, field
 from fractions import Fraction
 
+from .. import limits
 from ..errors import NumcheckError
 from ..reading import Reading, decimal_text, exact_text, sexagesimal_text
 from ..units import canonical_unit
@@ -99,6 +101,7 @@ class IdentifyResult:
     matches: tuple[Match, ...]
     nearest: tuple[dict, ...] = field(default=())
     considered: int = 0
+    notes: tuple[str, ...] = ()
 
     @property
     def found(self) -> bool:
@@ -106,6 +109,10 @@ class IdentifyResult:
 
     @property
     def summary(self) -> str:
+        note = (" " + " ".join(self.notes)) if self.notes else ""
+        return self._summary() + note
+
+    def _summary(self) -> str:
         if self.matches:
             best = self.matches[0]
             return (f"{len(self.matches)} match(es); best: {best.explanation} "
@@ -129,11 +136,12 @@ class IdentifyResult:
             "matches": [m.to_dict() for m in self.matches],
             "nearest": list(self.nearest),
             "considered": self.considered,
+            "notes": list(self.notes),
             "summary": self.summary,
         }
 
 
-def _classify(reading: Reading, v: Fraction, target: Fraction, ulp: Fraction, tol: Fraction) -> str | None:
+def _classify(reading: "_Window", v: Fraction, target: Fraction, ulp: Fraction, tol: Fraction) -> str | None:
     diff = v - target
     if diff == 0:
         return "exact"
@@ -214,14 +222,23 @@ def identify(reading_or_text, *, notation: str | None = None, unit: str | None =
     tab = _t.table(unit)
     value = reading.value
     if value <= 0:
-        return IdentifyResult(reading, unit, (), (), 0)
-    lo_r, hi_r = (reading.min, reading.max) if reading.damaged else (value, value)
+        return IdentifyResult(reading, unit, (), (), 0,
+                              (f"The value {exact_text(value)} is not positive; the catalogue holds lengths "
+                               "and counts only.",))
+    notes: list[str] = []
+    use_range = reading.damaged and reading.count <= limits.IDENTIFY_DAMAGE_READINGS
+    if reading.damaged and not use_range:
+        notes.append(f"The damage allows {reading.count:,} readings: only the edition's value "
+                     f"({sexagesimal_text(value, fixed=not reading.floating)}) was compared. "
+                     "Use 'numcheck restore' to rank the readings the traces allow.")
+    lo_r, hi_r = (reading.min, reading.max) if use_range else (value, value)
     found: dict[tuple, tuple] = {}
     considered = 0
     for scale in _scales(reading):
         p = Fraction(60) ** scale
         v, ulp = value * p, reading.ulp * p
         tol = max(NEAR_ULPS * ulp, NEAR_RELATIVE * v)
+        window = _Window(use_range, lo_r * p, hi_r * p)
         lo = float(min(v - tol, lo_r * p)) * (1 - 1e-12)
         hi = float(max(v + tol, hi_r * p + ulp)) * (1 + 1e-12)
         items, nums, dens = _t.candidates(tab, lo, hi)
@@ -232,7 +249,7 @@ def identify(reading_or_text, *, notation: str | None = None, unit: str | None =
             target = item.value * tab.factors[idx] * factor
             # The relative tolerance compares values of different traditions;
             # with a factor it would let almost any long number "match".
-            how = _classify(_scaled(reading, p), v, target, ulp, tol if factor == 1 else NEAR_ULPS * ulp)
+            how = _classify(window, v, target, ulp, tol if factor == 1 else NEAR_ULPS * ulp)
             if how is None:
                 continue
             key = (item.entry.id, item.value, item.unit, factor, scale)
@@ -244,15 +261,13 @@ def identify(reading_or_text, *, notation: str | None = None, unit: str | None =
     ranked = sorted(found.values(), key=lambda t: t[0])[:top]
     matches = tuple(_match(reading, tab, *row[1:]) for row in ranked)
     nearest = () if matches else _nearest(reading, tab)
-    return IdentifyResult(reading, unit, matches, nearest, considered)
-
-
-def _scaled(reading: Reading, p: Fraction) -> "_Scaled":
-    return _Scaled(reading.damaged, reading.min * p, reading.max * p)
+    return IdentifyResult(reading, unit, matches, nearest, considered, tuple(notes))
 
 
 @dataclass(frozen=True)
-class _Scaled:
+class _Window:
+    """What the damage allows, at one scale (computed once, not per candidate)."""
+
     damaged: bool
     min: Fraction
     max: Fraction

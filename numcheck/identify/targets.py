@@ -32,6 +32,9 @@ __all__ = ["Item", "Table", "Target", "number_text", "table", "catalogue_targets
            "factor_complexity", "factor_weight",
            "CONFIDENCE_WEIGHT"]
 
+#: Whole numbers below this are counts (of years, revolutions ...): no parts of them are tried.
+SMALL_COUNT = 60
+
 #: How much a match is believed before its closeness is known, by the row's confidence.
 CONFIDENCE_WEIGHT = {"published": 1.0, "common practice": 0.9, "from memory": 0.75}
 
@@ -47,6 +50,7 @@ class Item:
     entry: catalogue.Entry
     label: str                # which number of the row: "the value", "a side: 239 anomalistic months"
     multiples: bool           # whole multiples up to a few thousand are tried (periods)
+    alone: bool = False       # compared only as written (factor 1): an excess like "+ 10 2/3 degrees"
 
 
 def number_text(value: Fraction) -> str:
@@ -62,6 +66,17 @@ def number_text(value: Fraction) -> str:
         return str(whole)
     frac = sexagesimal_text(value - whole, max_places=8)
     return f"{whole};{frac.split(';', 1)[1]}"
+
+
+def factor_allowed(item: Item, factor: Fraction) -> bool:
+    """Whether identify tries *item* times *factor* (the rule the tables apply in bulk)."""
+    if item.alone:
+        return factor == 1
+    if factor.denominator != 1:
+        return not (item.value.denominator == 1 and item.value < SMALL_COUNT and not item.multiples)
+    if factor > limits.IDENTIFY_MAX_SIMPLE:
+        return item.multiples and factor <= limits.IDENTIFY_MAX_MULTIPLE
+    return True
 
 
 def simple_factors() -> tuple[Fraction, ...]:
@@ -106,12 +121,12 @@ def _items_of(entry: catalogue.Entry) -> list[Item]:
     items: list[Item] = []
     seen: set[tuple[Fraction, str]] = set()
 
-    def add(value: Fraction, unit: str, label: str, multiples: bool = False) -> None:
+    def add(value: Fraction, unit: str, label: str, multiples: bool = False, alone: bool = False) -> None:
         if value <= 0 or value == 1 or (value, unit) in seen:
             return
         seen.add((value, unit))
         head, per = _split_unit(unit)
-        items.append(Item(value, unit, _unit_key(unit), per, entry, label, multiples))
+        items.append(Item(value, unit, _unit_key(unit), per, entry, label, multiples, alone))
 
     # Whole multiples of a period make sense for a measured length (29;31,50,8,20
     # days, 365 days), not for a small schematic count (Eudoxus' 2 years).
@@ -131,7 +146,7 @@ def _items_of(entry: catalogue.Entry) -> list[Item]:
             add(term.number, unit, f"a side: {side.text}")
             continue
         for term in side.terms:
-            add(term.number, term.unit, f"a term of the side '{side.text}'")
+            add(term.number, term.unit, f"a term of the side '{side.text}'", alone=True)
         total = _side_total(side)
         if total is not None:
             add(total, "days", f"the side '{side.text}' in days")
@@ -216,8 +231,18 @@ def table(unit: str | None) -> Table:
     values = np.array([float(i.value * f) for i, f in zip(items, factors)], dtype=float)
     simple = simple_factors()
     fvals = np.array([float(f) for f in simple], dtype=float)
-    grid = np.outer(values, fvals).ravel()
+    grid = np.outer(values, fvals)
+    # A part of a small count (1/6 of "2 revolutions") means nothing; only
+    # whole multiples of such counts are tried.
+    small = np.array([i.value.denominator == 1 and i.value < SMALL_COUNT and not i.multiples
+                      for i in items], dtype=bool)
+    whole = np.array([f.denominator == 1 for f in simple], dtype=bool)
+    grid[np.outer(small, ~whole)] = np.inf
+    alone = np.array([i.alone for i in items], dtype=bool)
+    grid[np.outer(alone, np.array([f != 1 for f in simple], dtype=bool))] = np.inf
+    grid = grid.ravel()
     order = np.argsort(grid, kind="stable")
+    order = order[np.isfinite(grid[order])]
     n_f = len(simple)
     period_index = np.array([k for k, i in enumerate(items) if i.multiples], dtype=np.int64)
     return Table(
