@@ -204,7 +204,8 @@ def test_to_dict_has_the_design_fields(catalogue):
 
 @pytest.mark.parametrize("text,targets", [
     ("29;31,5[x],8,20", [(MONTH, None, 1.0, "catalogue")]),
-    ("29;31,[4]0,8,2[x]", [(MONTH, None, 1.0, "catalogue"), (MONTH + Fraction(1, 60**3), None, 1.0, "catalogue")]),
+    ("29;31,[4]0,8,2[x]", [(MONTH, None, 1.0, "catalogue"), (MONTH + Fraction(1, 60**3), None, 0.5, "catalogue")]),
+    ("͵ϛφπ[.] γʹ", [(SAROS, None, 1.0, "catalogue"), (SAROS - 1, None, 0.7, "catalogue")]),
     ("floating 5,[x]", [(Fraction(5, 60), None, 1.0, "catalogue"), (Fraction(5 * 60 + 7), Fraction(1), 1.0, None)]),
     ("29;31,5?,8,2[x]", [(MONTH, None, 1.0, "catalogue")]),
     ("[x]2;2[x],8", [(Fraction(2783, 225), Fraction(1, 60), 2.0, None)]),

@@ -57,7 +57,8 @@ def stand_in(values=PUBLISHED, weights=None):
 def brute_force(reading, targets_exact):
     """Every reading's posterior by enumeration: [(value, probability)], unmatched mass.
 
-    *targets_exact* is a list of (value, tolerance or None, weight, group).
+    *targets_exact* is a list of (value, tolerance or None, weight, group); a
+    catalogue weight is sharpened as the engine does (scoring.CATALOGUE_SHARPNESS).
     """
     space = build_space(reading)
     rows = []
@@ -86,7 +87,9 @@ def brute_force(reading, targets_exact):
         for ti, k in hits:
             norm[ti] += prior * k
     possible = {i for i, n in enumerate(norm) if n > 0}
-    pi0, pis = scoring.mixture({i: t[2] for i, t in enumerate(targets_exact)}, possible,
+    weights = {i: t[2] ** (scoring.CATALOGUE_SHARPNESS if t[3] == "catalogue" else 1.0)
+               for i, t in enumerate(targets_exact)}
+    pi0, pis = scoring.mixture(weights, possible,
                                {i: t[3] for i, t in enumerate(targets_exact) if t[3]},
                                {"catalogue": scoring.CATALOGUE_WEIGHT})
     out = []

@@ -105,7 +105,8 @@ def restore(reading_or_text, *, notation=None, unit=None, expect=None, context=(
 
 def _rank_key(row):
     prob, prior, sub, V, g, choice, _ = row
-    return (-prob, -prior, sub, g.sub.expansion.sign * V, choice)   # V orders values within a sub-space
+    # Then nearer the units place (a floating number), then by value (V orders values in a sub-space).
+    return (-prob, -prior, abs(g.sub.scale + g.top), sub, g.sub.expansion.sign * V, choice)
 
 
 def _merged(wins):

@@ -144,7 +144,7 @@ def _catalogue(reading: Reading, space, unit: str | None, notes: list[str]) -> l
             if _modern(ident):
                 continue
             value = Fraction(t.value)
-            weight = float(getattr(t, "weight", 1.0))
+            weight = float(getattr(t, "weight", 1.0)) ** scoring.CATALOGUE_SHARPNESS
             old = best.get(value)
             if old is not None:
                 if ident != old[2] and weight <= old[0]:

@@ -17,8 +17,9 @@ readings is known in closed form:
   goes to its alternatives in proportion to the weights of the confusion data
   (``numcheck.confusions``: wedge miscounts, look-alike letters);
 * an unknown gap ``[...]`` of *n* places more than its fewest weighs
-  ``GAP_DECAY ** n``; a floating number's magnitude is likelier near its
-  written size (:func:`scale_weight`).
+  ``GAP_DECAY ** n``; every magnitude of a floating number in the window
+  ``numcheck.limits.RESTORE_FLOAT_FIRST_PLACE`` is equally likely
+  (:func:`scale_weight`).
 
 No relative frequencies of scribal slips are published (see the reference
 notes on schemes and slips), so these factors are deliberately mild and flat.
@@ -26,8 +27,11 @@ notes on schemes and slips), so these factors are deliberately mild and flat.
 **Likelihood: a mixture of hypotheses.**  Either the number is none of the
 values the evidence names (hypothesis 0, weight :data:`NONE_WEIGHT`), or it is
 the value of one piece of evidence *e* (weight ``w_e``; the catalogue counts
-as one source of weight :data:`CATALOGUE_WEIGHT`, shared among the catalogue
-values the traces allow, in proportion to their own weights).  Under
+as one source of weight :data:`CATALOGUE_WEIGHT`, shared among the distinct
+catalogue values the traces allow, in proportion to their own weights raised
+to :data:`CATALOGUE_SHARPNESS`; only values and their simple parts and
+multiples n/m, n, m <= :data:`CATALOGUE_MAX_FACTOR`, count, and modern values
+are left out: no ancient scribe wrote them).  Under
 hypothesis *e* the value lies within the tolerance of the evidence, an exact
 fit likelier than a near one (:func:`kernel`).  So::
 
@@ -52,7 +56,7 @@ from fractions import Fraction
 
 __all__ = [
     "EDITOR_WEIGHT", "DOUBT_READ_MASS", "GAP_DECAY", "NONE_WEIGHT", "CATALOGUE_WEIGHT",
-    "EXPECT_WEIGHT", "CATALOGUE_MAX_FACTOR", "KERNEL_EDGE", "simplicity", "scale_weight", "kernel", "mixture",
+    "EXPECT_WEIGHT", "CATALOGUE_MAX_FACTOR", "CATALOGUE_SHARPNESS", "KERNEL_EDGE", "simplicity", "scale_weight", "kernel", "mixture",
 ]
 
 #: An editor's restored value against one unrestored value (prior odds).
@@ -67,6 +71,11 @@ NONE_WEIGHT = 1.0
 CATALOGUE_WEIGHT = 1.0
 #: Catalogue values count with their parts and multiples n/m for n, m up to this.
 CATALOGUE_MAX_FACTOR = 12
+#: A catalogue value's weight (identify's belief in it, lower for a part or a
+#: multiple and for a value from memory) is raised to this power: restoring a
+#: number is a stronger claim than identifying it, and many parts and
+#: multiples of unrelated values must not outweigh one value met as it is.
+CATALOGUE_SHARPNESS = 3.0
 #: Weight of a value the user expects (``--expect``).
 EXPECT_WEIGHT = 4.0
 #: A reading at the edge of a tolerance counts this much of an exact fit.
@@ -92,13 +101,13 @@ def simplicity(value: Fraction, last: bool = False) -> float:
 
 
 def scale_weight(expansion, scale: int) -> float:
-    """Prior weight of a magnitude: the first place near the units place is likelier.
+    """Prior weight of a magnitude of a floating number: flat, the text says nothing of it.
 
     A floating number is written at integer scale (its last place is the
-    units); *scale* is the power of 60 applied to it.
+    units); *scale* is the power of 60 applied to it.  Ties between
+    magnitudes are broken towards the units place (see the ranking).
     """
-    top = max((s.place for s in expansion.counted_slots), default=0)
-    return 1.0 / (1 + abs(top + scale))
+    return 1.0
 
 
 def kernel(distance: float, tolerance: float) -> float:

@@ -53,6 +53,11 @@ class Grid:
     hi: int = 0
     dtype: object = np.int64
 
+    @property
+    def top(self) -> int:
+        """The place of the first written place (before scaling)."""
+        return max((p.place for p in self.sub.positions), default=0)
+
     def value_of(self, V: int) -> Fraction:
         """The exact value of grid integer *V*."""
         e = self.sub.expansion
@@ -85,8 +90,7 @@ class Match:
 def grid_for(sub: SubSpace) -> Grid:
     """Turn a sub-space into integer contributions in units of its finest place."""
     base = sub.expansion.base
-    ulp = sub.expansion.ulp
-    D = ulp.denominator            # a grid unit divides one unit of the last place
+    D = sub.resolution.denominator     # a grid unit divides the finest step written
     for p in sub.positions:
         if p.place < 0:
             D = math.lcm(D, base ** -p.place)
@@ -127,9 +131,9 @@ def windows_for(grid: Grid, targets: list[Target], order: list[int] | None = Non
     """
     e = grid.sub.expansion
     F = Fraction(e.base) ** grid.sub.scale
-    U = e.ulp * grid.D                     # one unit of the last place, in grid units
-    if U.denominator != 1:                 # pragma: no cover - D is a multiple of 1/ulp
-        raise ValueError("the grid is coarser than the last place")
+    U = grid.sub.resolution * grid.D       # the finest step written, in grid units
+    if U.denominator != 1:                 # pragma: no cover - D clears the resolution
+        raise ValueError("the grid is coarser than the finest step written")
     U = U.numerator
     if order is None:
         order = list(range(len(targets)))

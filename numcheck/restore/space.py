@@ -88,9 +88,26 @@ class SubSpace:
         return (lo, hi) if self.expansion.sign > 0 else (-hi, -lo)
 
     @cached_property
+    def resolution(self) -> Fraction:
+        """The finest step the reading writes, before scaling.
+
+        One unit of the last written place; finer when a written part is
+        finer (``6585 1/3`` is written to thirds of a day, not to days).
+        """
+        step = self.expansion.ulp
+        base = Fraction(self.expansion.base)
+        for p in self.positions:
+            if len(p.options) == 1:
+                v = p.options[0].value * base ** p.place
+                part = v - (v.numerator // v.denominator)
+                if 0 < part < step:
+                    step = part
+        return step
+
+    @cached_property
     def ulp(self) -> Fraction:
-        """One unit of the last written place, at this magnitude."""
-        return self.expansion.ulp * Fraction(self.expansion.base) ** self.scale
+        """The finest step the reading writes (:attr:`resolution`), at this magnitude."""
+        return self.resolution * Fraction(self.expansion.base) ** self.scale
 
 
 @dataclass(frozen=True)
