@@ -143,3 +143,51 @@ def test_cli_table_text(capsys):
     assert main(["identify", "0;59,8,17", "--unit", "degrees"]) == 0
     out = capsys.readouterr().out
     assert "ptol_sun_motion" in out and "truncated" in out and "not readings" in out
+
+
+def _brute_force(reading, unit):
+    """Every item x every allowed factor, one by one, classified exactly."""
+    from numcheck import limits
+    from numcheck.identify import core, targets
+
+    tab = targets.table(unit)
+    factors = list(simple_factors()) + [Fraction(n) for n in range(limits.IDENTIFY_MAX_SIMPLE + 1,
+                                                                    limits.IDENTIFY_MAX_MULTIPLE + 1)]
+    pairs = [(f, f.numerator / f.denominator) for f in factors]
+    v, ulp = reading.value, reading.ulp
+    tol = max(core.NEAR_ULPS * ulp, core.NEAR_RELATIVE * v)
+    window = core._Window(False, v, v)
+    found = set()
+    fv, ftol = float(v), 2 * float(tol)
+    for i, item in enumerate(tab.items):
+        base = item.value * tab.factors[i]
+        fbase = float(base)
+        for f, ff in pairs:
+            if abs(fbase * ff - fv) > ftol:   # a coarse float gate; exact test below
+                continue
+            if not targets.factor_allowed(item, f):
+                continue
+            target = base * f
+            if core._classify(window, v, target, ulp, tol if f == 1 else core.NEAR_ULPS * ulp):
+                found.add((item.entry.id, item.label, f))
+    return found
+
+
+@pytest.mark.parametrize("text,unit", [("1,49,45;20", "days"), ("3,43", None), ("0;59,8,17", "degrees")])
+def test_fast_search_equals_brute_force(text, unit):
+    reading = read(text)
+    fast = {(m.id, m.label, m.factor) for m in identify(reading, unit=unit, top=100_000).matches}
+    assert fast == _brute_force(reading, unit)
+
+
+def test_wide_damage_compares_the_edition_value_and_says_so():
+    res = identify("1,[x],[x],[x]")
+    assert res.notes and "restore" in res.notes[0]
+    assert all(m.how != "damage" for m in res.matches)
+
+
+def test_no_parts_of_small_counts_or_excess_terms():
+    ms = identify("0;20", top=200).matches
+    assert not any(m.factor.denominator != 1 and m.target.denominator == 1 and m.target / m.factor < 60
+                   for m in ms)
+    assert not any(m.label.startswith("a term") and m.factor != 1 for m in identify("3;20", top=200).matches)
