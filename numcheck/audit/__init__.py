@@ -15,6 +15,7 @@ scribe should have written, and restores damaged cells from the scheme.
 
 from __future__ import annotations
 
+import gc
 import sys as _sys
 import types as _types
 
@@ -38,11 +39,21 @@ def audit(table, *, notation: str | None = None, relation: str | None = None,
     """
     from .diagnose import Finding
 
-    tab = read_table(table, notation=notation, columns=columns)
-    frame = make_frame(tab)
-    schemes = detect_schemes(frame, relation=relation)
-    findings, pending, true = diagnose(tab, frame, schemes)
-    restorations, misfits = restore_cells(tab, frame, pending)
+    # An audit makes a few objects per cell and no reference cycles; the
+    # cyclic garbage collector would walk all the cells made so far again and
+    # again while a long table is read, so it is paused for the audit (the
+    # time then grows in proportion to the lines).
+    collecting = gc.isenabled()
+    gc.disable()
+    try:
+        tab = read_table(table, notation=notation, columns=columns)
+        frame = make_frame(tab)
+        schemes = detect_schemes(frame, relation=relation)
+        findings, pending, true = diagnose(tab, frame, schemes)
+        restorations, misfits = restore_cells(tab, frame, pending)
+    finally:
+        if collecting:
+            gc.enable()
     for p, _ in misfits:
         findings.append(Finding(p.index, p.column, "unexplained",
                                 "no reading of the traces fits the scheme here", None, p.expected))

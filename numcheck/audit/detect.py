@@ -32,7 +32,9 @@ def make_frame(table: Table) -> Frame:
         for c in col.cells:
             if c.value is not None:
                 dens.add(c.value.denominator)
-    scale = lcm_all(dens) if dens else 1
+    # Twice the common denominator: a zigzag's extremes are half-sums of two
+    # lines (M = (y_n + y_n+1 + d)/2), and so stay integers on this scale.
+    scale = 2 * (lcm_all(dens) if dens else 1)
     written = {}
     for name, col in table.columns.items():
         written[name] = [None if c.value is None else c.value.numerator * (scale // c.value.denominator)

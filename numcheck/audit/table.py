@@ -15,6 +15,7 @@ second.  Everything else goes through :func:`numcheck.read`.
 from __future__ import annotations
 
 import csv
+import functools
 import io
 import math
 import re
@@ -35,6 +36,7 @@ _PLAIN = re.compile(r"-?\d+(?:,\d+)*(?:;\d+(?:,\d+)*)?")
 _LONGITUDE = re.compile(r"(?P<number>.*\S)\s+(?P<sign>\S+)")
 
 
+@functools.lru_cache(maxsize=256)
 def sign_index(name: str) -> int | None:
     """The 0-based index of a zodiacal sign name, or None.
 
