@@ -105,3 +105,11 @@ def test_round_trip(n):
 @pytest.mark.parametrize("text", ["Χ𐅅ΗΔΔΙΙ", "Χ[.]ΗΔΔΙΙ", "Η[...]", "ΗΗ[Δ]Ι", "ΗΔ̣Ι", "Η<Δ>Ι", "Η{Δ}Ι", "ΗΔ."])
 def test_canonical_forms_come_back(text):
     assert format(parse(text)) == text
+
+
+@pytest.mark.parametrize("text", ["ΗΔ̣Ι", "Χ𐅅ΗΔΔΙΙ", "Η[.]Ι"])
+def test_nfc_and_nfd_read_the_same(text):
+    import unicodedata
+    a = read(unicodedata.normalize("NFC", text), notation="attic")
+    b = read(unicodedata.normalize("NFD", text), notation="attic")
+    assert a.to_dict() == b.to_dict()

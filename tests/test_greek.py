@@ -344,3 +344,17 @@ def test_round_trip_myriads(n):
     r = parse(text)
     assert r.value == n
     assert format(r) == text
+
+
+def test_lost_letter_in_a_unit_fraction():
+    r = parse("λ ι[.]ʹ")
+    assert set(r.readings()) == {30 + F(1, d) for d in range(11, 20)}
+    for expansion, choice in r.choices():
+        text = format(expansion, choice)
+        assert text.startswith("λ ι[") and text.endswith("]ʹ")
+        assert parse(text).value == expansion.value_of(choice)
+
+
+def test_restorations_keep_the_case_of_the_number():
+    r = parse("ΚΘ [.]")
+    assert {format(e, c) for e, c in r.choices()} >= {"ΚΘ [Γ]", "ΚΘ [Ν]", "ΚΘ [𐆊]"}

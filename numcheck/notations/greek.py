@@ -164,6 +164,7 @@ def parse(text: str, *, ascending: bool = False, notation: str = NAME) -> Readin
     slots: list[Slot] = []
     place = 0
     seen_fraction = None
+    upper = False
     for index, (items, tree_group) in enumerate(groups):
         gkind = _group_kind(index, items, tree_group)
         if gkind in ("unitfrac", "fraction"):
@@ -174,7 +175,8 @@ def parse(text: str, *, ascending: bool = False, notation: str = NAME) -> Readin
                       "the sexagesimal places before the unit fractions")
             place -= 1
         built = group_slots(text, index, items, tree_group, gkind, place if gkind == "place" else 0,
-                             ascending, notes)
+                            ascending, notes, upper=upper)
+        upper = next((s.form[0].upper for s in built if s.form), upper)
         if gkind == "place" and len(built) == 1 and built[0].gap is not None:
             place -= built[0].gap[0] - 1
         slots.extend(built)

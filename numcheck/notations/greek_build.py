@@ -44,11 +44,16 @@ def letter_text(value: int, upper: bool = False) -> str:
 
 
 def group_slots(text: str, index: int, items: list[Item], group: Tree, gkind: str, place: int,
-                ascending: bool, notes: list[str]) -> list[Slot]:
-    """The slots of one group (see the module docstring)."""
+                ascending: bool, notes: list[str], upper: bool = False) -> list[Slot]:
+    """The slots of one group (see the module docstring).
+
+    *upper* is the case of the number so far: a group with no letter read
+    (``[.]``) writes its restorations in that case.
+    """
     keraia = any(t.type == "KERAIA" for t in group.children)
     letters = [i for i in items if i.kind == "letter"]
-    upper = bool(letters) and all(i.char.isupper() for i in letters)
+    if letters:
+        upper = all(i.char.isupper() for i in letters)
     base = dict(group=index, gkind=gkind, upper=upper, keraia=keraia and gkind != "unitfrac",
                 ascending=ascending)
     counted = [i for i in items if i.status is not Status.SUPERFLUOUS]
