@@ -44,3 +44,5 @@ IDENTIFY_MAX_TARGETS = 50_000
 RELATE_MAX_SEARCH_YEARS = 20_000
 #: identify compares the whole range a damaged reading allows only up to this many readings.
 IDENTIFY_DAMAGE_READINGS = 60
+#: Most candidates a restoration lists (``top``).
+RESTORE_MAX_TOP = 100_000
