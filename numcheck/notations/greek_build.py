@@ -298,8 +298,9 @@ def _within_place(text: str, slots: list[Slot], group_text: str, start: int) -> 
     low = sum((s.values[0] for s in counted), Fraction(0))
     if low > _PLACE_MAX:
         hint = " (for an empty place write the zero sign 𐆊)" if low == 70 else ""
+        exact = all(len(s.values) == 1 for s in counted)
         raise NumcheckRangeError(
-            f"The place {group_text!r} is {low if len(counted) == 1 or all(len(s.values) == 1 for s in counted) else f'{low} or more'}, "
+            f"The place {group_text!r} is {low}{'' if exact else ' or more'}, "
             f"but a sexagesimal place holds 0 to 59{hint}.",
             value=low, legal="0 to 59", text=text, position=start)
     out = []
@@ -308,6 +309,10 @@ def _within_place(text: str, slots: list[Slot], group_text: str, start: int) -> 
             out.append(s)
             continue
         room = _PLACE_MAX - (low - s.values[0])
+        if s.editor is not None and s.editor > room:
+            raise NumcheckRangeError(
+                f"The editor's restoration in {group_text!r} makes the place more than 59.",
+                value=s.editor, legal="0 to 59", text=text, position=s.span[0])
         out.append(Slot(values=tuple(v for v in s.values if v <= room), place=s.place, status=s.status,
                         text=s.text, span=s.span, editor=s.editor, gap=s.gap, form=s.form))
     return out
