@@ -189,6 +189,8 @@ def test_impossible_evidence_is_said():
 def test_bad_top_is_a_user_error():
     with pytest.raises(NumcheckError):
         restore("5[x]", top=0)
+    with pytest.raises(LimitError, match="RESTORE_MAX_TOP"):
+        restore("5[x]", top=limits.RESTORE_MAX_TOP + 1)
 
 
 def test_to_dict_has_the_design_fields(catalogue):

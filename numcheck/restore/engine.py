@@ -14,7 +14,7 @@ from dataclasses import replace
 import numpy as np
 
 from .. import limits
-from ..errors import NumcheckRangeError
+from ..errors import LimitError, NumcheckRangeError
 from ..notations import render_choice
 from ..reading import Reading, sexagesimal_text
 from . import scoring
@@ -55,6 +55,9 @@ def restore(reading_or_text, *, notation=None, unit=None, expect=None, context=(
     if isinstance(top, bool) or not isinstance(top, int) or top < 1:
         raise NumcheckRangeError(f"The number of candidates asked for is {top!r}.", value=top,
                                  legal="a whole number, 1 or more")
+    if top > limits.RESTORE_MAX_TOP:
+        raise LimitError("number of candidates asked for", f"{top:,}", f"{limits.RESTORE_MAX_TOP:,}",
+                         "Ask for fewer, or set numcheck.limits.RESTORE_MAX_TOP higher.")
     reading = _reading(reading_or_text, notation, unit)
     space = build_space(reading)
     targets, ev_notes = gather(reading, space, expect=expect, context=context,

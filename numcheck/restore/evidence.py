@@ -22,7 +22,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 from fractions import Fraction
 
-from ..errors import NumcheckRangeError
+from ..errors import NumcheckError, NumcheckRangeError
 from ..reading import Reading, exact_text, sexagesimal_text
 from . import scoring
 
@@ -90,7 +90,7 @@ def _expect_target(reading: Reading, expect, notation: str | None) -> Target:
     if isinstance(expect, str):
         try:
             expected = read(expect)
-        except Exception:
+        except NumcheckError:        # not readable on its own: try the reading's notation
             if notation is None:
                 raise
             expected = read(expect, notation=notation)
