@@ -21,6 +21,7 @@ CASES = [
     ("x", "sexagesimal", "unread", "a lone small x is an unread place (Leiden)"),
     ("[x],40", "sexagesimal", "sexagesimal separators", "x with digits and separators"),
     ("1 40", "cuneiform", "separated by spaces", "spaced digit groups, no ';'"),
+    ("6585 1/3", "sexagesimal", "plain digits", "a fraction is not a cuneiform place"),
     ("1 x 40", "cuneiform", "separated by spaces", "spaced groups with an unread place"),
     ("𒐏𒐉", "cuneiform", "CUNEIFORM NUMERIC SIGN", "Unicode cuneiform numeric signs"),
     ("شسه", "abjad", "Arabic-script letters", "Arabic letters"),

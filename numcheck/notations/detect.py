@@ -38,6 +38,8 @@ _GREEK_SIGNS = frozenset("\U0001018A\u014d\u0375\u2220") | frozenset(
     chr(c) for c in (0x10175, 0x10176, 0x10177, 0x10178, 0x1018B))
 _ROMAN = frozenset("IVXLCDMJivxlcdmj")
 _DIGIT_GROUPS = re.compile(r"[0-9xXn\]?]\s+[0-9xXn\[]")
+# What a transliterated cuneiform number is made of (digits, x, n, Leiden marks).
+_CUNEIFORM_CHARS = re.compile(r"[0-9xXn\[\]<>{}?\u0323\s]+")
 
 
 def _name(ch: str) -> str:
@@ -95,7 +97,7 @@ def detect_notation(text: str) -> tuple[str, str]:
     if digits:
         if "," in text or ";" in text:
             return "sexagesimal", "digits with sexagesimal separators (',' between places, ';' after the units)"
-        if _DIGIT_GROUPS.search(text):
+        if _DIGIT_GROUPS.search(text) and _CUNEIFORM_CHARS.fullmatch(text):
             return "cuneiform", ("digit groups separated by spaces and no ';': a cuneiform number "
                                  "whose magnitude the text does not fix")
         return "sexagesimal", "plain digits with no separator: one place, an integer"
