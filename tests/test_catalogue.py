@@ -168,3 +168,46 @@ def test_relations_have_several_sides():
     counts = [(s.terms[0].number, s.terms[0].unit) for s in saros.sides]
     assert (223, "synodic months") in counts and (239, "anomalistic months") in counts
     assert (242, "draconitic months") in counts and (Fraction(19756, 3), "days") in counts
+
+
+def _counts(entry_id):
+    return [s.terms[0].number for s in catalogue.by_id(entry_id).sides]
+
+
+@pytest.mark.parametrize("entry_id,inner", [
+    ("act_saturn", False), ("act_jupiter", False), ("act_mars", False), ("act_venus", True), ("act_mercury", True),
+    ("goalyear_mars_79", False), ("goalyear_mars_47", False), ("goalyear_jupiter_71", False),
+    ("goalyear_jupiter_83", False), ("goalyear_saturn", False),
+])
+def test_planetary_relations_close_on_themselves(entry_id, inner):
+    # Neugebauer, HAMA (1975): for an outer planet years Y = phenomena Pi + rotations Z;
+    # for an inner planet Z = Pi + Y (the phenomena are counted against the sun).
+    years, phenomena, rotations = _counts(entry_id)
+    if inner:
+        assert rotations == phenomena + years
+    else:
+        assert years == phenomena + rotations
+
+
+def test_calendar_cycles_are_built_from_each_other():
+    # Geminus 8; Neugebauer, HAMA (Hipparchus' 304 years); Sothic identity (Censorinus 18)
+    meton, callippus, hipp = (catalogue.by_id(i) for i in ("meton", "callippus", "hipp_304"))
+    assert callippus.value == 4 * meton.value - 1 and _counts("callippus")[0] == 4 * _counts("meton")[0]
+    assert hipp.value == 4 * callippus.value - 1 and _counts("hipp_304")[0] == 4 * _counts("callippus")[0]
+    assert catalogue.by_id("octaeteris").value == 8 * Fraction(1461, 4)
+    assert 1461 * 365 == 1460 * Fraction(1461, 4)
+    assert _counts("bab_sysA_6247")[0] == 24 * 251 + 223          # de Jong 2017
+
+
+def test_indian_yuga_numbers_agree():
+    # Surya-siddhanta I (tr. Burgess 1860): lunations = moon's revolutions - sun's;
+    # tithis = 30 lunations; stellar days = civil days + years.
+    days, years = 1577917828, 4320000
+    moon = _counts("ss_moon")[0]
+    lunations = _counts("ss_lunations")[0]
+    assert lunations == moon - years
+    assert _counts("ss_tithis")[0] == 30 * lunations
+    assert _counts("ss_stellar_days")[0] == days + years
+    assert _counts("ss_year") == [years, days]
+    assert lunations - 12 * years == 1593336                       # intercalary months
+    assert _counts("ss_tithis")[0] - days == 25082252               # omitted tithis
