@@ -30,6 +30,9 @@ __all__ = ["Alternative", "Confusion", "alternatives", "letter_confusion", "conf
 NOTATIONS_WITH_CONFUSIONS = ("sexagesimal", "cuneiform", "greek", "abjad", "abjad-maghribi",
                              "roman", "decimal")
 
+#: Notations that share another's confusion data.
+_ALIASES = {"greek-ascending": "greek"}
+
 #: Sexagesimal values are searched for confusions down to this many fractional places.
 _MAX_FRACTION_PLACES = 8
 
@@ -99,6 +102,8 @@ def alternatives(notation: str, value: int | Fraction, *, place_max: int | None 
                  place: int | None = None) -> list[Alternative]:
     """The values a scribe may have meant where *value* is written, best first.
 
+    *notation* is a notation name; one with no confusion data (``attic``)
+    gives no alternatives, a name numcheck does not know is an error.
     *value* is what is written in one slot or place (in units of that place)
     or a whole number; *place* is the exponent of 60 of that place when known
     (a unit-fraction tick only makes sense in the units place, place 0).
@@ -110,8 +115,12 @@ def alternatives(notation: str, value: int | Fraction, *, place_max: int | None 
     >>> alternatives("greek", 5)[0].reason
     'Є (5) written for Θ (9): round letters; a closed epsilon reads as theta (bterry.com outline of copying errors)'
     """
+    notation = _ALIASES.get(notation, notation)
     if notation not in NOTATIONS_WITH_CONFUSIONS:
-        raise UnknownNameError("notation with confusion data", notation, NOTATIONS_WITH_CONFUSIONS)
+        from .notations import NOTATIONS
+        if notation in NOTATIONS:
+            return []   # a notation we have no confusion data for (Attic, quantities)
+        raise UnknownNameError("notation", notation, set(NOTATIONS) | set(NOTATIONS_WITH_CONFUSIONS))
     value = Fraction(value)
     if value < 0:
         return []

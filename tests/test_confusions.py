@@ -106,3 +106,8 @@ def test_letter_confusion_for_audits():
 def test_unknown_notation_is_a_numcheck_error():
     with pytest.raises(NumcheckError, match="Did you mean 'greek'"):
         alternatives("greeek", 5)
+
+
+def test_notations_without_data_give_no_alternatives():
+    assert alternatives("attic", 5) == []
+    assert _values("greek-ascending", 5, place_max=59) == {F(9)}   # the Greek letter data
