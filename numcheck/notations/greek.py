@@ -71,6 +71,7 @@ BAD_EXAMPLES: list[tuple[str, int, str]] = [
     ("κθ 31", 4, "a digit inside a Greek numeral (mixed notations)"),
     ("κθ,λα", 3, "a sexagesimal separator inside a Greek numeral"),
     ("ά", 1, "a Greek letter with an accent or breathing"),
+    ("ιͷ", 2, "a Greek letter that is not a numeral"),
     ("κλ", 2, "two letters of the same rank"),
     ("ιι", 2, "two letters of the same rank"),
     ("͵ι", 2, "the lower numeral sign before a letter that is not a units letter"),
@@ -113,6 +114,9 @@ def _classify(ch: str) -> tuple[str, str]:
     if name.startswith("GREEK") and "WITH" in name:
         return ("a Greek letter with an accent or breathing",
                 "the bare letter, and the numeral sign ʹ after the number")
+    if name.startswith("GREEK") and ch.isalpha():
+        return ("a Greek letter that is not a numeral",
+                "the 24 letters, stigma ϛ, koppa ϟ or ϙ, sampi ϡ or ͳ")
     if not ch.isprintable():
         return ("a control character", "Greek numeral letters")
     return ("a character that is not part of Greek numerals",
