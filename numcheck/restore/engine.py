@@ -8,7 +8,6 @@ is a list of suggestions for the editor's judgement, never a reading.
 
 from __future__ import annotations
 
-from bisect import bisect_left
 from dataclasses import replace
 
 import numpy as np
@@ -21,7 +20,7 @@ from . import scoring
 from .evidence import Target, gather
 from .explain import NO_EVIDENCE, evidence_reason, position_reasons
 from .result import Candidate, RestoreResult
-from .search import estimate, find_matches, grid_for, top_by_prior, windows_for
+from .search import estimate, find_matches, grid_for, inside, merge_windows, top_by_prior, windows_for
 from .space import build_space
 
 __all__ = ["restore"]
@@ -90,9 +89,12 @@ def restore(reading_or_text, *, notation=None, unit=None, expect=None, context=(
                      choice, match.hits[r]))
     rows.sort(key=_rank_key)
     rows = rows[:top]
-    merged = [_merged(w) for w in windows]
-    skip = lambda g, V: _inside(merged[g.sub.index], V)  # noqa: E731 - a small predicate
-    for g, choice, V, prior in top_by_prior(grids, skip, top, limits.RESTORE_MAX_NODES):
+    merged = [merge_windows(w) for w in windows]
+
+    def agrees(g, V) -> bool:      # a reading some evidence touches is already in the rows
+        return inside(merged[g.sub.index], V)
+
+    for g, choice, V, prior in top_by_prior(grids, agrees, top, limits.RESTORE_MAX_NODES):
         rows.append((pi0 * prior, prior, g.sub.index, V, g, choice, []))
     rows.sort(key=_rank_key)
     rows = rows[:top]
@@ -110,24 +112,6 @@ def _rank_key(row):
     prob, prior, sub, V, g, choice, _ = row
     # Then nearer the units place (a floating number), then by value (V orders values in a sub-space).
     return (-prob, -prior, abs(g.sub.scale + g.top), sub, g.sub.expansion.sign * V, choice)
-
-
-def _merged(wins):
-    spans = sorted((w.lo, w.hi) for w in wins)
-    los, his = [], []
-    for lo, hi in spans:
-        if los and lo <= his[-1] + 1:
-            his[-1] = max(his[-1], hi)
-        else:
-            los.append(lo)
-            his.append(hi)
-    return los, his
-
-
-def _inside(merged, V) -> bool:
-    los, his = merged
-    i = bisect_left(his, V)
-    return i < len(los) and los[i] <= V
 
 
 def _drop_broad(targets, grids, windows, notes) -> None:

@@ -33,7 +33,10 @@ to :data:`CATALOGUE_SHARPNESS`; only values and their simple parts and
 multiples n/m, n, m <= :data:`CATALOGUE_MAX_FACTOR`, count, and modern values
 are left out: no ancient scribe wrote them).  Under
 hypothesis *e* the value lies within the tolerance of the evidence, an exact
-fit likelier than a near one (:func:`kernel`).  So::
+fit likelier than a near one (:func:`kernel`).  A catalogue value and an
+expected value are met by a reading less than one step of its last written
+place away (the scribe rounded or cut the value there; a written part such as
+``1/3`` makes the step finer); context evidence brings its own tolerance.  So::
 
     likelihood(v) = π0 + Σ_e π_e · k_e(v) / N_e
     N_e = Σ_readings prior(r) · k_e(v_r)          (the readings that agree with e)
@@ -45,9 +48,10 @@ space, the posterior needs no further normalising: the readings no evidence
 touches carry ``π0 × (1 − Σ prior of the readings that agree)`` between them,
 computed in closed form, not by enumeration.
 
-Ties are broken by the prior, then by the order of the sub-spaces (fewer gap
-places, nearer magnitude first), then by the value: the same input always
-gives the same ranking.
+Ties are broken by the prior, then by the magnitude (a floating number's
+first place nearer the units place first), then by the order of the
+sub-spaces (fewer gap places first), then by the value: the same input
+always gives the same ranking.
 """
 
 from __future__ import annotations
@@ -56,7 +60,8 @@ from fractions import Fraction
 
 __all__ = [
     "EDITOR_WEIGHT", "DOUBT_READ_MASS", "GAP_DECAY", "NONE_WEIGHT", "CATALOGUE_WEIGHT",
-    "EXPECT_WEIGHT", "CATALOGUE_MAX_FACTOR", "CATALOGUE_SHARPNESS", "KERNEL_EDGE", "simplicity", "scale_weight", "kernel", "mixture",
+    "EXPECT_WEIGHT", "CATALOGUE_MAX_FACTOR", "CATALOGUE_SHARPNESS", "KERNEL_EDGE",
+    "simplicity", "scale_weight", "kernel", "mixture",
 ]
 
 #: An editor's restored value against one unrestored value (prior odds).

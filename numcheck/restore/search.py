@@ -32,7 +32,7 @@ from .evidence import Target
 from .space import Space, SubSpace
 
 __all__ = ["Grid", "Window", "Match", "grid_for", "windows_for", "find_matches", "top_by_prior",
-           "SUFFIX_BLOCK"]
+           "merge_windows", "inside", "estimate", "SUFFIX_BLOCK"]
 
 #: Most readings of the trailing positions enumerated at once with numpy.
 SUFFIX_BLOCK = 4096
@@ -199,7 +199,8 @@ def _split(grid: Grid) -> int:
     return min(start, max(len(grid.contrib) - 1, 0)) if grid.contrib else 0
 
 
-def _merge(windows: list[Window]) -> tuple[list[int], list[int]]:
+def merge_windows(windows: list[Window]) -> tuple[list[int], list[int]]:
+    """The union of the windows as sorted, disjoint spans (their starts, their ends)."""
     spans = sorted((w.lo, w.hi) for w in windows)
     los, his = [], []
     for lo, hi in spans:
@@ -209,6 +210,13 @@ def _merge(windows: list[Window]) -> tuple[list[int], list[int]]:
             los.append(lo)
             his.append(hi)
     return los, his
+
+
+def inside(merged: tuple[list[int], list[int]], V: int) -> bool:
+    """Whether grid integer *V* lies in the union :func:`merge_windows` gave."""
+    los, his = merged
+    i = bisect_left(his, V)
+    return i < len(los) and los[i] <= V
 
 
 def _search_grid(grid: Grid, windows: list[Window], budget: list[int]):
@@ -224,7 +232,7 @@ def _search_grid(grid: Grid, windows: list[Window], budget: list[int]):
     for j in range(k - 1, -1, -1):
         minrest[j] = minrest[j + 1] + pre_c[j][0]
         maxrest[j] = maxrest[j + 1] + pre_c[j][-1]
-    ulos, uhis = _merge(windows)
+    ulos, uhis = merge_windows(windows)
     by_lo = sorted(windows, key=lambda w: (w.lo, w.hi, w.target))
     w_los = [w.lo for w in by_lo]
     widest = max(w.hi - w.lo for w in windows)
