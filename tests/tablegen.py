@@ -117,3 +117,104 @@ def to_tsv(header: list[str], columns: list[list[str]]) -> str:
     for row in zip(*columns):
         lines.append("\t".join(row))
     return "\n".join(lines) + "\n"
+
+
+# -- injecting slips ---------------------------------------------------------
+
+#: The slip kinds the generator can put into column A (zigzag) of lunar_b.
+A_KINDS = ("unit-slip", "ten-slip", "place-shift", "merged-places", "split-place",
+           "dropped-zero", "copied-neighbour", "intermediate-value", "turning-point", "carry")
+#: The slip kinds it can put into column B (the longitude).
+B_KINDS = ("unit-slip", "ten-slip", "sign-error", "carry", "copied-neighbour")
+
+
+def _places(value: F) -> list[int]:
+    text = sexagesimal_text(value)
+    whole, _, frac = text.partition(";")
+    return [int(whole)] + ([int(p) for p in frac.split(",")] if frac else [])
+
+
+def _from_places(places: list[int]) -> str:
+    return f"{places[0]}" + (";" + ",".join(str(p) for p in places[1:]) if len(places) > 1 else "")
+
+
+def _carried(prev: F, step: F, place: int) -> bool:
+    """Whether prev + step carries (or borrows) into the place 60**place."""
+    unit = F(60) ** place
+    if step >= 0:
+        return (prev % unit) + (step % unit) >= unit
+    return (prev % unit) < ((-step) % unit)
+
+
+def inject(column: str, kind: str, a: list[F], b: list[F], rng) -> tuple[int, str] | None:
+    """Pick a line where *kind* has one clear signature and give its written text.
+
+    Returns (0-based row, text) or None when no line of this table suits the
+    kind.  *rng* is a random.Random.  Lines 0-1 and the last are avoided (the
+    chain needs neighbours on both sides to tell an isolated slip).
+    """
+    values = a if column == "A" else b
+    rows = list(range(2, len(values) - 1))
+    rng.shuffle(rows)
+    d = LUNAR_B_A["d"]
+    for i in rows:
+        v, prev = values[i], values[i - 1]
+        step = (v - prev) if column == "A" else a[i]
+        frac_v = v % 30 if column == "B" else v
+        text = _place_slip(kind, v, prev, step, column, i, values, rng, frac_v, d, a)
+        if text is not None:
+            return i, text
+    return None
+
+
+def _write(column: str, value: F) -> str:
+    return sexagesimal_text(value) if column == "A" else longitude_text(value)
+
+
+def _place_slip(kind, v, prev, step, column, i, values, rng, frac_v, d, a):
+    places = _places(frac_v)
+    if kind in ("unit-slip", "ten-slip", "carry"):
+        size = 1 if kind != "ten-slip" else 10
+        for k in rng.sample(range(1, len(places)), len(places) - 1) if len(places) > 1 else []:
+            place = -k
+            carried = _carried(prev if column == "A" else prev % 360, step, place)
+            if kind == "carry":
+                if carried:
+                    return _write(column, v - F(60) ** place if step > 0 else v + F(60) ** place)
+                continue
+            if carried:
+                continue
+            sign = rng.choice((1, -1))
+            if 0 <= places[k] + sign * size <= 59:
+                return _write(column, v + sign * size * F(60) ** place)
+        return None
+    if kind == "place-shift" and column == "A":
+        return sexagesimal_text(v * 60)
+    if kind == "intermediate-value" and column == "A":
+        return sexagesimal_text(2 * v)
+    if kind == "copied-neighbour":
+        return _write(column, values[i - 1]) if values[i - 1] != v else None
+    if kind == "sign-error" and column == "B":
+        return longitude_text(v + rng.choice((30, -30)))
+    if kind == "merged-places" and column == "A":
+        for k in range(1, len(places) - 1):
+            if places[k] and places[k + 1] and places[k] + places[k + 1] <= 59:
+                return _from_places(places[:k] + [places[k] + places[k + 1]] + places[k + 2:])
+        return None
+    if kind == "split-place" and column == "A":
+        for k in range(1, len(places)):
+            if places[k] >= 11 and places[k] % 10:
+                tens = places[k] - places[k] % 10
+                return _from_places(places[:k] + [tens, places[k] % 10] + places[k + 1:])
+        return None
+    if kind == "dropped-zero" and column == "A":
+        for k in range(1, len(places) - 1):
+            if places[k] == 0:
+                return _from_places(places[:k] + places[k + 1:])
+        return None
+    if kind == "turning-point" and column == "A":
+        straight = prev + (d if values[i - 1] > values[i - 2] else -d)
+        if straight != v and (straight > LUNAR_B_A["M"] or straight < LUNAR_B_A["m"]):
+            return sexagesimal_text(straight)
+        return None
+    return None

@@ -309,3 +309,34 @@ def test_quotient_is_a_product_with_its_operation():
     df.loc[4, "c"] = "8;16"    # 33/4 = 8;15 written 8;16: the relation breaks on row 5
     (f,) = audit(df).flags     # (which of a and c holds it, the three columns cannot tell)
     assert f["row"] == 5
+
+
+# -- every kind the generator injects is located, classed and corrected -------
+
+from hypothesis import given, settings  # noqa: E402
+from hypothesis import strategies as st  # noqa: E402
+
+from tablegen import A_KINDS, B_KINDS, inject  # noqa: E402
+
+_CASES = [("A", k) for k in A_KINDS] + [("B", k) for k in B_KINDS]
+
+
+@given(case=st.sampled_from(_CASES), seed=st.integers(0, 10_000), start=st.integers(0, 40))
+@settings(max_examples=80)
+def test_generated_slip_is_located_classed_and_corrected(case, seed, start):
+    import random
+    column, kind = case
+    rng = random.Random(seed)
+    a, b = lunar_b(N, start_a=sxt(LUNAR_B_A["m"] + F(start, 30) + F(1, 180)))
+    A, B = [sxt(x) for x in a], [longitude_text(x) for x in b]
+    got = inject(column, kind, a, b, rng)
+    if got is None:
+        return   # no line of this table suits the kind
+    i, text = got
+    (A if column == "A" else B)[i] = text
+    r = _audit_ab(A, B)
+    slips = _slips(r)
+    assert [(f["row"], f["column"], f["kind"]) for f in slips] == [(i + 1, column, kind)], r.flags
+    truth = (sxt(a[i]) if column == "A" else longitude_text(b[i]))
+    assert slips[0]["expected"] == truth
+    assert [f for f in r.flags if f["kind"] == "carried-forward"] == []
