@@ -191,3 +191,20 @@ def test_no_parts_of_small_counts_or_excess_terms():
     assert not any(m.factor.denominator != 1 and m.target.denominator == 1 and m.target / m.factor < 60
                    for m in ms)
     assert not any(m.label.startswith("a term") and m.factor != 1 for m in identify("3;20", top=200).matches)
+
+
+from hypothesis import assume, given
+from hypothesis import strategies as st
+
+from numcheck.identify.targets import all_items, factor_allowed
+from numcheck.reading import sexagesimal_text
+
+
+@given(st.sampled_from(all_items()), st.sampled_from(simple_factors()))
+def test_every_catalogue_number_times_a_factor_is_found_exactly(item, factor):
+    assume(factor_allowed(item, factor))
+    x = item.value * factor
+    text = sexagesimal_text(x, max_places=8)
+    assume("..." not in text)   # only values that end within 8 sexagesimal places
+    ms = identify(read(text), top=100_000).matches
+    assert any(m.id == item.entry.id and m.factor == factor and m.how == "exact" for m in ms), text

@@ -182,7 +182,7 @@ def _explain(reading: Reading, m_how: str, factor: Fraction, item: _t.Item, scal
                              fixed=True, max_places=8) if reading.floating else reading.text
     what = f"{_factor_text(factor)}{_t.number_text(item.value)} {item.unit}"
     where = (f"{item.label} of {item.entry.id}" if item.label != "the value"
-             else f"{item.entry.id}")
+             else f"{item.entry.id}") + f"; {_short_source(item.entry.source)}, {item.entry.confidence}"
     how = {
         "exact": "exact",
         "truncated": "the catalogue value cut at the last written place (texts truncate)",
@@ -193,6 +193,16 @@ def _explain(reading: Reading, m_how: str, factor: Fraction, item: _t.Item, scal
     scale_text = f" read at 60^{scale}" if scale else ""
     conv = f", converted to {unit_shown} with the {convention} convention" if convention else ""
     return f"{shown}{scale_text} = {what} ({where}{conv}): {how}"
+
+
+def _short_source(source: str) -> str:
+    """The author, work and section of a source, without the notes that follow.
+
+    >>> _short_source("Ptolemy, Almagest IV.2 (tr. G. J. Toomer, 1984); Geminus 18")
+    'Ptolemy, Almagest IV.2'
+    """
+    head = source.split(";")[0].split(" (")[0].strip()
+    return head if len(head) <= 70 else head[:69] + "…"
 
 
 def _scales(reading: Reading) -> range:
