@@ -10,7 +10,6 @@ independently with Fractions, so the table cannot drift.
 
 from __future__ import annotations
 
-from fractions import Fraction
 
 import pandas as pd
 import pytest

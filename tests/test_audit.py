@@ -17,7 +17,7 @@ import pytest
 from numcheck.audit import audit
 from numcheck.reading import sexagesimal_text as sxt
 
-from tablegen import (LUNAR_B_A, carry_into, jupiter_a, jupiter_b, longitude_text, lunar_b, sx,
+from tablegen import (LUNAR_B_A, carry_into, jupiter_a, jupiter_b, longitude_text, lunar_b,
                       write_tsv)
 
 N = 40

@@ -10,8 +10,6 @@ columns it is computed from.
 
 from __future__ import annotations
 
-from fractions import Fraction
-
 from .columns import fit_cross
 from .relation import RelationScheme, parse_relation
 from .schemes import (ConstantScheme, Frame, LinearScheme, Scheme, lcm_all, support_chained,
@@ -124,6 +122,3 @@ def _ordered(chosen: dict[str, Scheme]) -> list[Scheme]:
             del pending[s.column]
     return out
 
-
-def as_fraction(frame: Frame, v) -> Fraction | None:
-    return frame.fraction(v)
