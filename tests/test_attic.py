@@ -113,3 +113,18 @@ def test_nfc_and_nfd_read_the_same(text):
     a = read(unicodedata.normalize("NFC", text), notation="attic")
     b = read(unicodedata.normalize("NFD", text), notation="attic")
     assert a.to_dict() == b.to_dict()
+
+
+@given(st.text(alphabet="ΙΠΔΗΧΜ𐅄𐅅[].<>{}?\u0323 ", max_size=12))
+def test_any_text_reads_or_raises_a_numcheck_error(text):
+    import warnings
+
+    from numcheck.errors import NumcheckError
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", NumcheckWarning)
+        try:
+            r = parse(text)
+        except NumcheckError:
+            return
+        assert r.min <= r.value <= r.max
+        assert parse(format(r)).value == r.value

@@ -358,3 +358,16 @@ def test_lost_letter_in_a_unit_fraction():
 def test_restorations_keep_the_case_of_the_number():
     r = parse("ΚΘ [.]")
     assert {format(e, c) for e, c in r.choices()} >= {"ΚΘ [Γ]", "ΚΘ [Ν]", "ΚΘ [𐆊]"}
+
+
+@given(st.text(alphabet="αβιρκχ͵ʹ'[].<>{}?\u0323 𐆊∠Μ", max_size=12))
+def test_any_text_reads_or_raises_a_numcheck_error(text):
+    import warnings
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", NumcheckWarning)
+        try:
+            r = parse(text)
+        except NumcheckError:
+            return
+        assert r.min <= r.value <= r.max
+        assert parse(format(r)).value == r.value

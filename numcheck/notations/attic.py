@@ -135,6 +135,9 @@ def parse(text: str) -> Reading:
     if len(signs) > MAX_PLACES:
         raise LimitError("number of signs", len(signs), MAX_PLACES,
                          "Set numcheck.limits.MAX_PLACES higher to read it.")
+    if not any(s.status is not Status.SUPERFLUOUS for s in signs):
+        _fail(text, "no sign that counts", signs[0].start if signs else 0,
+              "at least one sign outside { }")
     notes: list[str] = []     # plain notes (how '[...]' was bounded)
     oddities: list[str] = []  # tolerable oddities, also given as a NumcheckWarning
     slots = _slots(text, signs, notes, oddities)
