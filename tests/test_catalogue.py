@@ -211,3 +211,13 @@ def test_indian_yuga_numbers_agree():
     assert _counts("ss_year") == [years, days]
     assert lunations - 12 * years == 1593336                       # intercalary months
     assert _counts("ss_tithis")[0] - days == 25082252               # omitted tithis
+
+
+def test_doctests():
+    import doctest
+
+    import numcheck.catalogue
+    import numcheck.statements
+
+    for mod in (numcheck.catalogue, numcheck.statements):
+        assert doctest.testmod(mod).failed == 0

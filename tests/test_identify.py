@@ -208,3 +208,12 @@ def test_every_catalogue_number_times_a_factor_is_found_exactly(item, factor):
     assume("..." not in text)   # only values that end within 8 sexagesimal places
     ms = identify(read(text), top=100_000).matches
     assert any(m.id == item.entry.id and m.factor == factor and m.how == "exact" for m in ms), text
+
+
+def test_doctests():
+    import doctest
+
+    from numcheck.identify import core, targets
+
+    for mod in (core, targets):
+        assert doctest.testmod(mod).failed == 0

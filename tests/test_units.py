@@ -124,3 +124,11 @@ def test_sign_longitude():
     assert sign_longitude(Fraction(25, 2), "Taurus") == Fraction(85, 2)  # 12;30 Taurus = 42;30 deg
     with pytest.raises(NumcheckError):
         sign_longitude(30, "Aries")
+
+
+def test_doctests():
+    import doctest
+
+    import numcheck.units
+
+    assert doctest.testmod(numcheck.units).failed == 0
