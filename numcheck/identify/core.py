@@ -22,7 +22,6 @@ judgement, not readings.
 
 from __future__ import annotations
 
-import math
 from dataclasses import dataclass, field
 from fractions import Fraction
 
