@@ -28,12 +28,17 @@ def _show(found, console) -> None:
     from rich.markup import escape
     from rich.table import Table
 
-    from ..identify.targets import number_text
+    from ..identify.core import _short_source
 
-    table = Table(header_style="bold", show_edge=False, title=f"{len(found)} catalogue entries")
-    for col in ("id", "body", "kind", "tradition", "statement", "value", "unit", "confidence", "source"):
-        table.add_column(col, overflow="fold")
+    # The statement already holds body, value and unit; the full source is in --json.
+    table = Table(header_style="bold", show_edge=False, expand=True, title=f"{len(found)} catalogue entries")
+    table.add_column("id", overflow="fold", ratio=2)
+    table.add_column("tradition", overflow="fold", ratio=1)
+    table.add_column("statement", overflow="fold", ratio=4)
+    table.add_column("confidence", overflow="fold", ratio=1)
+    table.add_column("source", overflow="fold", ratio=3)
     for e in found:
-        table.add_row(escape(e.id), e.body, e.kind, e.tradition, escape(e.statement), number_text(e.value),
-                      escape(e.unit), e.confidence, escape(e.source))
+        table.add_row(escape(e.id), e.tradition, escape(e.statement), e.confidence,
+                      escape(_short_source(e.source)))
     console.print(table)
+    console.print("[dim]Full sources, attested forms and exact values: numcheck catalogue --json[/dim]")
