@@ -340,3 +340,17 @@ def test_generated_slip_is_located_classed_and_corrected(case, seed, start):
     truth = (sxt(a[i]) if column == "A" else longitude_text(b[i]))
     assert slips[0]["expected"] == truth
     assert [f for f in r.flags if f["kind"] == "carried-forward"] == []
+
+
+def test_carried_slip_across_a_damaged_line(lunar):
+    a, b, A, B = lunar
+    B2 = list(B[:25]) + [longitude_text(x + F(1, 60)) for x in b[25:]]
+    degrees, rest = B2[26].split(";", 1)
+    B2[26] = f"{degrees[0]}[x];{rest}"            # the line after the slip is damaged
+    r = _audit_ab(A, B2)
+    slips = _slips(r)
+    assert [(f["row"], f["column"]) for f in slips] == [(26, "B")]
+    assert slips[0]["carried_into"] == list(range(28, N + 1))
+    # the damaged line is restored as the scribe wrote it: with the carried slip
+    best = next(x for x in r.restorations if x.index == 26)
+    assert best.value == b[26] + F(1, 60) and best.probability > 0.5

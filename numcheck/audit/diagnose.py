@@ -208,13 +208,7 @@ def _chain(table, frame, scheme: Scheme, true):
         diag = _context(table, frame, column, i, wi, pred[0], None if S is None else S[0], special)
         f = Finding(i, column, diag.kind, diag.reason, wi, pred[0])
         findings.append(f)
-        carried = False
-        if i + 1 < n and w[i + 1] is not None and T[i + 1] is not None:
-            r = scheme.resume(pred, wi)
-            nx = scheme.step(r, i + 1, true)
-            nxw = scheme.step(r, i + 1, frame.written) if two else None
-            follows = (nx is not None and w[i + 1] == nx[0]) or (nxw is not None and w[i + 1] == nxw[0])
-            carried = follows and w[i + 1] != T[i + 1][0]
+        carried = _computed_on(scheme, pred, wi, i, w, T, true, frame.written if two else None)
         if carried:
             S = scheme.resume(pred, wi)
             origin = f
@@ -223,6 +217,25 @@ def _chain(table, frame, scheme: Scheme, true):
             S = pred
             origin = None
     return findings, pending, col_true
+
+
+def _computed_on(scheme, pred, wi, i, w, T, true, written) -> bool:
+    """Whether the next known line follows from the wrong value *wi* (a carried slip).
+
+    Damaged lines in between are stepped over with the scheme.
+    """
+    state = scheme.resume(pred, wi)
+    state_w = state
+    for j in range(i + 1, len(w)):
+        if T[j] is None:
+            return False
+        state = scheme.step(state, j, true) if state is not None else None
+        state_w = scheme.step(state_w, j, written) if written is not None and state_w is not None else None
+        if w[j] is None:
+            continue
+        follows = (state is not None and w[j] == state[0]) or (state_w is not None and w[j] == state_w[0])
+        return follows and w[j] != T[j][0]
+    return False
 
 
 def _rows(table, frame, scheme: Scheme, true):
