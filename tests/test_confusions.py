@@ -13,6 +13,8 @@ from fractions import Fraction
 from importlib import resources
 
 import pytest
+from hypothesis import given
+from hypothesis import strategies as st
 
 from numcheck.confusions import Alternative, alternatives, confusion_table, letter_confusion
 from numcheck.errors import NumcheckError
@@ -111,3 +113,19 @@ def test_unknown_notation_is_a_numcheck_error():
 def test_notations_without_data_give_no_alternatives():
     assert alternatives("attic", 5) == []
     assert _values("greek-ascending", 5, place_max=59) == {F(9)}   # the Greek letter data
+
+
+@given(st.sampled_from(["cuneiform", "sexagesimal", "greek", "abjad", "abjad-maghribi", "roman", "decimal"]),
+       st.integers(0, 3000), st.sampled_from([None, 59, 359]))
+def test_alternatives_stay_in_range_and_differ(notation, value, place_max):
+    for alt in alternatives(notation, value, place_max=place_max):
+        assert alt.value != value and alt.value >= 0
+        assert place_max is None or alt.value <= place_max
+        assert 0 < alt.weight <= 1 and alt.reason
+
+
+@given(st.integers(0, 59))
+def test_wedge_slips_are_symmetric(value):
+    # One wedge more from v is one wedge fewer from v + 1 (common practice).
+    for alt in alternatives("cuneiform", value, place_max=59):
+        assert letter_confusion("cuneiform", alt.value, value) is not None
