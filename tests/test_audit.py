@@ -354,3 +354,28 @@ def test_carried_slip_across_a_damaged_line(lunar):
     # the damaged line is restored as the scribe wrote it: with the carried slip
     best = next(x for x in r.restorations if x.index == 26)
     assert best.value == b[26] + F(1, 60) and best.probability > 0.5
+
+
+def test_old_babylonian_multiplication_table_changes_its_difference():
+    # Head numbers 1 ... 20, 30, 40, 50 (the layout of the OB multiplication
+    # tables, common practice), with the multiples of 7 beside them.
+    n = [str(k) for k in range(1, 21)] + ["30", "40", "50"]
+    c = [sxt(F(7 * int(k))) for k in n]
+    r = audit(pd.DataFrame({"n": n, "a7": c}))
+    assert r.flags == []
+    scheme = {s.column: s for s in r.schemes}["n"]
+    assert scheme.params()["changes"] == [{"row": 21, "d": {"value": "10", "sexagesimal": "10"}}]
+    c[12] = "1,30"          # 13 × 7 = 1,31
+    (f,) = audit(pd.DataFrame({"n": n, "a7": c})).flags
+    assert (f["row"], f["column"], f["kind"], f["expected"]) == (13, "a7", "unit-slip", "1,31")
+
+
+def test_multiple_of_a_column():
+    xs = [F(k) for k in (3, 7, 2, 9, 4, 8, 5, 6, 12, 10)]
+    df = pd.DataFrame({"x": [sxt(x) for x in xs], "y": [sxt(x * F(5, 2)) for x in xs]})
+    r = audit(df)
+    scheme = {s.column: s for s in r.schemes}["y"]
+    assert scheme.kind == "product" and scheme.params()["factor"]["sexagesimal"] == "2;30"
+    df.loc[3, "y"] = "22;20"   # 9 × 2;30 = 22;30
+    (f,) = audit(df).flags
+    assert (f["row"], f["column"], f["kind"], f["expected"]) == (4, "y", "ten-slip", "22;30")

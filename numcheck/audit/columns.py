@@ -17,7 +17,7 @@ from itertools import permutations
 from ..slips import mantissa
 from .schemes import Scheme, support_chained, support_row, value_text
 
-__all__ = ["RunningSumScheme", "ProductScheme", "QuotientScheme", "ReciprocalScheme",
+__all__ = ["RunningSumScheme", "ProductScheme", "QuotientScheme", "MultipleScheme", "ReciprocalScheme",
            "fit_cross"]
 
 #: Rows used to look for a relation between columns before checking it all.
@@ -116,6 +116,48 @@ class QuotientScheme(_RowScheme):
         return f"quotient {self.column} = {self.a} / {self.b}"
 
 
+class MultipleScheme(_RowScheme):
+    """C = k × A for a constant k (a multiplication table, a change of unit)."""
+
+    kind = "product"
+
+    def __init__(self, column, frame, a, factor: Fraction):
+        super().__init__(column, frame, a, a)
+        self.inputs = (a,)
+        self.factor = factor
+
+    def expect(self, i, src):
+        x = src[self.a][i]
+        if x is None:
+            return None
+        v = self.factor * x
+        return self._fix(v.numerator if v.denominator == 1 else v, i)
+
+    def params(self):
+        return {"of": [self.a], "operation": "multiple", "factor": value_text(self.factor)}
+
+    def describe(self):
+        from ..reading import sexagesimal_text
+        return f"{self.column} = {sexagesimal_text(self.factor)} × {self.a}"
+
+    @classmethod
+    def fit(cls, column, frame, a):
+        from .schemes import mode
+        floating = frame.floating.get(column, False)
+        ratios = []
+        for x, y in zip(frame.written[a][:_SAMPLE], frame.written[column][:_SAMPLE]):
+            if x and y is not None:
+                r = Fraction(y, x)
+                ratios.append(mantissa(r) if floating else r)
+        ratios = [r for r in ratios if r is not None]
+        if len(ratios) < 3:
+            return None
+        k, count = mode(ratios)
+        if k in (None, 0, 1) or count * 2 <= len(ratios):
+            return None
+        return cls(column, frame, a, k)
+
+
 class ReciprocalScheme(Scheme):
     """igi: the column holds the reciprocal of another, n × igi a power of 60."""
 
@@ -172,6 +214,11 @@ def fit_cross(frame, taken: set[str]) -> list[Scheme]:
         r.support = support_row(r, frame.written[b], frame.written, _SAMPLE)
         if r.support > 0.5 and _is_reciprocal_pair(frame, a, b):
             found.append(r)
+        m = MultipleScheme.fit(b, frame, a)
+        if m is not None:
+            m.support = support_row(m, frame.written[b], frame.written, _SAMPLE)
+            if m.support > 0.5:
+                found.append(m)
     for a, b in permutations(names, 2):
         for c in names:
             if c in (a, b) or c in taken:

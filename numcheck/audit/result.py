@@ -58,7 +58,9 @@ class AuditResult:
         }
         if f.carried_into:
             # rows of this column, and of other columns computed from it
-            out["carried_into"] = sorted(k + 1 for c, k in f.carried_into if c == f.column)
+            same = sorted(k + 1 for c, k in f.carried_into if c == f.column)
+            if same:
+                out["carried_into"] = same
             others: dict[str, list[int]] = {}
             for c, k in sorted(f.carried_into):
                 if c != f.column:

@@ -184,41 +184,89 @@ class ConstantScheme(Scheme):
 
 
 class LinearScheme(Scheme):
-    """A constant difference d per line (modulo 360° for a longitude)."""
+    """A constant difference d per line (modulo 360° for a longitude).
+
+    The difference may change for good at a line (*segments*): the Old
+    Babylonian multiplication tables run 1, 2, ... 20, then 30, 40, 50
+    (common practice).  A change counts only when at least three lines in a
+    row take the new difference, so that a slip (two differences that cancel,
+    or one) is never read as a change.
+    """
 
     kind = "linear"
 
-    def __init__(self, column, frame, d):
+    def __init__(self, column, frame, d, segments=()):
         super().__init__(column, frame)
         self.d = d
+        self.segments = tuple(segments)     # (first row index, difference), ascending
+
+    def _d(self, i):
+        """The difference that leads to line *i*."""
+        d = self.d
+        for start, dd in self.segments:
+            if i >= start:
+                d = dd
+        return d
 
     def step(self, state, i, src):
-        return (self._norm(state[0] + self.d), None)
+        return (self._norm(state[0] + self._d(i)), None)
 
     def back(self, state, i, src):
-        return (self._norm(state[0] - self.d), None)
+        return (self._norm(state[0] - self._d(i)), None)
 
     def start(self, value, i, nxt, src):
-        return (value, None) if self._norm(value + self.d) == nxt else None
+        return (value, None) if self._norm(value + self._d(i + 1)) == nxt else None
 
     def params(self):
         out = {"d": value_text(self.frame.fraction(self.d))}
+        if self.segments:
+            out["changes"] = [{"row": start + 1, "d": value_text(self.frame.fraction(dd))}
+                              for start, dd in self.segments]
         if self.modulus:
             out["modulus"] = value_text(self.frame.fraction(self.modulus))
         return out
 
     def describe(self):
-        return f"constant difference {sexagesimal_text(self.frame.fraction(self.d))} per line"
+        text = f"constant difference {sexagesimal_text(self.frame.fraction(self.d))} per line"
+        for start, dd in self.segments:
+            text += f", {sexagesimal_text(self.frame.fraction(dd))} from row {start + 1}"
+        return text
 
     @classmethod
     def fit(cls, column, frame):
-        ds = [d for _, d in diffs(frame.written[column], frame.modulus.get(column))]
+        pairs = diffs(frame.written[column], frame.modulus.get(column))
+        ds = [d for _, d in pairs]
         if len(ds) < 2:
             return None
         d, n = mode(ds)
         if not d or n * 2 <= len(ds):
             return None
-        return cls(column, frame, d)
+        return cls(column, frame, d, _segments(pairs, d))
+
+
+#: Lines in a row that must take a new difference before it counts as a change.
+_SEGMENT_RUN = 3
+
+
+def _segments(pairs, d) -> list:
+    """Lasting changes of the difference: runs of equal differences other than the current one."""
+    out = []
+    current = d
+    k = 0
+    while k < len(pairs):
+        i, x = pairs[k]
+        if x != current:
+            run = 1
+            while (k + run < len(pairs) and pairs[k + run][1] == x
+                   and pairs[k + run][0] == pairs[k + run - 1][0] + 1):
+                run += 1
+            if run >= _SEGMENT_RUN and x:
+                out.append((i, x))
+                current = x
+                k += run
+                continue
+        k += 1
+    return out
 
 
 def lcm_all(numbers) -> int:
