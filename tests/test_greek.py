@@ -143,6 +143,8 @@ DAMAGE = [
     ("ι<β>", 12, 12, 1, Status.ADDED, "an editor's addition counts"),
     ("ι{β}", 10, 10, 1, Status.SUPERFLUOUS, "a superfluous letter does not count"),
     ("͵[.]χο", 1670, 9670, 9, Status.LOST, "a lost thousands letter after ͵"),
+    ("α[.]ο", 1170, 1970, 9, Status.LOST, "α before a lost letter is thousands, as in αχο"),
+    ("α[.]", 1001, 1900, 27, Status.LOST, "α then a lost letter: thousands, and any rank below"),
 ]
 
 

@@ -180,6 +180,19 @@ def _part(text, items, top, place, mult, limit, allow_zero, ascending, notes, ba
                              f"(͵{positions[a].char.lower()} = {int(positions[a].value) * 1000}): a units "
                              "letter standing before a hundreds letter, as the EpiDoc Guidelines write "
                              "1670 (αχοʹ)")
+        for k in keys:
+            # A units letter with lost letters after it: only as thousands can it
+            # leave a rank for them (α[.]ο is ͵α[.]ο, as αχο is ͵αχο).
+            after = positions[k + 1] if k + 1 < len(positions) else None
+            later = [exps[j] for j in keys if j > k]
+            if (exps[k] == 0 and positions[k].kind == "letter" and not positions[k].thousands
+                    and after is not None and after.kind == "dot" and k + 1 not in exps
+                    and (not later or later[0] < 3)):
+                exps[k] = 3
+                implicit.add(k)
+                notes.append(f"{positions[k].char!r} before a lost letter read as thousands "
+                             f"(͵{positions[k].char.lower()} = {int(positions[k].value) * 1000}): "
+                             "no rank is left below a units letter for the lost letter")
     seq = [exps[k] for k in keys]
     seen: dict[int, int] = {}
     for k in keys:
