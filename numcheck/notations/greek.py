@@ -16,8 +16,8 @@ What it accepts (letter values in :mod:`numcheck.notations.greek_letters`):
   marks the letters as a numeral.  Overlines and macrons (U+0305, U+0304,
   U+035E, ``¯``) mark a numeral and are dropped.
 * ``͵`` (U+0375) before a units letter: thousands.  A units letter written
-  just before a hundreds letter is read as thousands too, with a warning: the
-  EpiDoc Guidelines write 1670 as ``αχοʹ``.
+  just before a hundreds letter, or before lost letters, is read as
+  thousands too, with a note: the EpiDoc Guidelines write 1670 as ``αχοʹ``.
 * ``Μ`` (capital mu) in a number written in small letters is the myriad sign:
   the letters before it count the myriads (``βΜ`` = 20000), a ``Μ`` with no
   count before it is one myriad, the letters after it are added.  In a number
