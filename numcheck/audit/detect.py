@@ -28,15 +28,20 @@ def make_frame(table: Table) -> Frame:
     dens = set()
     for col in table.columns.values():
         for c in col.cells:
-            if c.value is not None:
-                dens.add(c.value.denominator)
+            if c.num is not None:
+                dens.add(60 ** c.places)
+            elif c.exact is not None:
+                dens.add(c.exact.denominator)
     # Twice the common denominator: a zigzag's extremes are half-sums of two
     # lines (M = (y_n + y_n+1 + d)/2), and so stay integers on this scale.
     scale = 2 * (lcm_all(dens) if dens else 1)
+    per_place = {p: scale // 60 ** p for p in range(13) if scale % 60 ** p == 0}
     written = {}
     for name, col in table.columns.items():
-        written[name] = [None if c.value is None else c.value.numerator * (scale // c.value.denominator)
-                         for c in col.cells]
+        written[name] = [
+            c.num * per_place[c.places] if c.num is not None and c.places in per_place else
+            None if c.value is None else c.value.numerator * (scale // c.value.denominator)
+            for c in col.cells]
     modulus = {name: (360 * scale if col.longitude else None) for name, col in table.columns.items()}
     floating = {name: col.floating for name, col in table.columns.items()}
     return Frame(names=list(table.columns), written=written, scale=scale, modulus=modulus,

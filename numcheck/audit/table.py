@@ -49,25 +49,39 @@ def sign_index(name: str) -> int | None:
         return None
 
 
-@dataclass
+@dataclass(slots=True)
 class Cell:
-    """One cell of the table as written, with its exact value when it has one."""
+    """One cell of the table as written, with its exact value when it has one.
+
+    A plain sexagesimal cell keeps its value as an integer count of its last
+    place (``num``, in units of 60**-places), which is what the audit works
+    with; ``value`` gives the Fraction.  Other cells keep their Reading's
+    exact value.
+    """
 
     row: int                      # 1-based data row (header not counted)
     column: str
     text: str
-    value: Fraction | None        # None: damaged, more than one reading
     notation: str
+    num: int | None = None        # value × 60**places, for a plain sexagesimal cell
+    exact: Fraction | None = None  # the value of any other cell with one reading
     floating: bool = False
     places: int = 0               # sexagesimal places written after ';'
-    digits: tuple[int, ...] | None = None   # the sexagesimal places as written
-    whole_places: int = 1         # how many of ``digits`` stand before ';'
+    digits: tuple[int, ...] | None = None   # the places as written (cells read by a notation)
+    whole_places: int = 1
     reading: Reading | None = None
     sign_name: str | None = None  # a longitude: the sign named in the cell
 
     @property
+    def value(self) -> Fraction | None:
+        """The exact value (a longitude in degrees from the vernal point); None if damaged."""
+        if self.num is not None:
+            return Fraction(self.num, 60 ** self.places)
+        return self.exact
+
+    @property
     def damaged(self) -> bool:
-        return self.value is None
+        return self.num is None and self.exact is None
 
 
 @dataclass
@@ -270,30 +284,41 @@ def _cell(row: int, column: str, text: str, notation, source) -> Cell:
                                 "(columns= in Python).") from err
         cell = _from_reading(row, column, text, reading)
     if sign_name is not None:
-        if cell.value is not None and not 0 <= cell.value < 30:
+        value = cell.value
+        if value is not None and not 0 <= value < 30:
             raise NumcheckError(f"Row {row}, column {column!r} of {source}: {text!r} gives "
                                 f"{number} degrees within {sign_name}, but a sign holds 0 to 30 degrees.")
         cell.sign_name = sign_name
-        if cell.value is not None:
-            cell.value += 30 * sign_index(sign_name)
+        offset = 30 * sign_index(sign_name)
+        if cell.num is not None:
+            cell.num += offset * 60 ** cell.places
+        elif cell.exact is not None:
+            cell.exact += offset
     return cell
 
 
 def _fast(row, column, number, notation, text) -> Cell | None:
     neg = number.startswith("-")
-    body = number[1:] if neg else number
-    whole, _, frac = body.partition(";")
-    wd = [int(p) for p in whole.split(",")]
-    fd = [int(p) for p in frac.split(",")] if frac else []
-    if any(d > 59 for d in wd[1:] + fd) or wd[0] > 59 and len(wd) > 1 or wd[0] > 59:
-        return None  # let the reader give its own message (or another notation)
+    whole, _, frac = (number[1:] if neg else number).partition(";")
     total = 0
-    for d in wd + fd:
+    first = True
+    for p in whole.split(","):
+        d = int(p)
+        if d > 59 and not (first and "," not in whole and frac):
+            return None  # let the reader give its own message (or another notation)
         total = total * 60 + d
-    value = Fraction(-total if neg else total, 60 ** len(fd))
+        first = False
+    places = 0
+    if frac:
+        for p in frac.split(","):
+            d = int(p)
+            if d > 59:
+                return None
+            total = total * 60 + d
+            places += 1
     floating = notation == "cuneiform" and not frac
-    return Cell(row=row, column=column, text=text, value=value, notation=notation,
-                floating=floating, places=len(fd), digits=tuple(wd + fd), whole_places=len(wd))
+    return Cell(row=row, column=column, text=text, notation=notation, num=-total if neg else total,
+                floating=floating, places=places, whole_places=whole.count(",") + 1)
 
 
 def _from_reading(row, column, text, reading: Reading) -> Cell:
@@ -304,7 +329,7 @@ def _from_reading(row, column, text, reading: Reading) -> Cell:
         slots = reading.counted_slots
         digits = tuple(int(s.preferred) for s in slots)
         whole_places = sum(1 for s in slots if s.place >= 0)
-    return Cell(row=row, column=column, text=text, value=value, notation=reading.notation,
+    return Cell(row=row, column=column, text=text, notation=reading.notation, exact=value,
                 floating=reading.floating, places=max(0, -reading.last_place), digits=digits,
                 whole_places=whole_places, reading=reading)
 
@@ -326,6 +351,7 @@ def _column(name: str, cells: list[Cell], source: str) -> Column:
         raise NumcheckError(
             f"Column {name!r} of {source} writes longitudes within named signs, but row "
             f"{odd.row} ({odd.text!r}) names no sign.")
-    final_zeros = any(c.places and c.digits and c.digits[-1] == 0 for c in cells)
+    final_zeros = any(c.places and (c.num % 60 == 0 if c.num is not None else
+                                    bool(c.digits) and c.digits[-1] == 0) for c in cells)
     return Column(name=name, cells=cells, notation=main, longitude=bool(signs),
                   floating=any(c.floating for c in cells), final_zeros=final_zeros)
