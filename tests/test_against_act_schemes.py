@@ -133,3 +133,19 @@ def test_parameters_survive_a_minority_of_slips():
         ("30;1,59", "28;10,39,40", "0;18")
     assert sorted(f["row"] for f in r.flags) == sorted(i + 1 for i in bad)
     assert all(f["expected"] == sxt(a[f["row"] - 1]) for f in r.flags)
+
+
+def test_lunar_system_a_solar_step_function():
+    """30° per month from Virgo 13 to Pisces 27, 28;7,30 from Pisces 27 to Virgo 13;
+    12;22,8 = 2783/225 months per revolution (CDLI wiki "Lunar ephemerides"; ACT 1955)."""
+    from tablegen import step_function
+    lam = step_function(40, fast=F(30), slow=sx("28;7,30"), b_fast=F(163), b_slow=F(357),
+                        start=F(100))
+    r = audit(pd.DataFrame({"B": [longitude_text(x) for x in lam]}))
+    assert r.flags == []
+    kind, p = _params(r, "B")
+    fast, slow = p["zones"]
+    assert (fast["from"]["value"], fast["to"]["value"], fast["rate"]["value"]) == ("163", "357", "30")
+    assert slow["rate"]["sexagesimal"] == "28;7,30"
+    assert p["lines_per_revolution"]["value"] == "2783/225"
+    assert p["lines_per_revolution"]["sexagesimal"] == "12;22,8"
