@@ -51,6 +51,7 @@ class Pending:
     column: str
     expected: object
     scheme: Scheme
+    notes: list[str] = field(default_factory=list)
 
 
 def diagnose(table: Table, frame: Frame, schemes: list[Scheme]):
@@ -186,7 +187,10 @@ def _chain(table, frame, scheme: Scheme, true):
             pred = scheme.step(S, i, true) or t
             pred_w = scheme.step(S, i, frame.written) if two else None
         if wi is None:
-            pending.append(Pending(i, column, pred[0], scheme))
+            p = Pending(i, column, pred[0], scheme)
+            if scheme.kind == "zigzag":
+                p.notes.extend(_same_run(scheme, T, w, i, pred[0]))
+            pending.append(p)
             S = pred
             continue
         if wi == e_true:
@@ -217,6 +221,30 @@ def _chain(table, frame, scheme: Scheme, true):
             S = pred
             origin = None
     return findings, pending, col_true
+
+
+def _same_run(scheme, T, w, i, value) -> list[str]:
+    """The zigzag invariant: lines of one monotone run differ by multiples of d.
+
+    So the trailing places of a damaged line must agree with those of any
+    preserved line of its run (schemes-and-slips.md §1.1, item 4); the nearest
+    such line is named as independent support for the restoration.
+    """
+    d = scheme.d
+    for direction in (-1, 1):
+        j = i
+        while 0 <= j + direction < len(w):
+            a, b = (j + direction, j) if direction < 0 else (j, j + direction)
+            if T[a] is None or T[b] is None or T[b][0] - T[a][0] != T[a][1] * d:
+                break   # a turn (or the end of the chain) closes the run
+            j += direction
+            if w[j] is not None:
+                if (value - w[j]) % d == 0:
+                    return [f"its trailing places agree with row {j + 1} of the same "
+                            "monotone run (zigzag invariant: the lines of a run differ by "
+                            "multiples of d)"]
+                return []
+    return []
 
 
 def _computed_on(scheme, pred, wi, i, w, T, true, written) -> bool:

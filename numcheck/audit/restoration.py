@@ -55,9 +55,7 @@ def restore_cells(table: Table, frame: Frame, pending: list[Pending], top: int =
         if cell.sign_name:
             due = (due - offset) % 360
         expected_text = table.columns[p.column].write(p.index, frame.fraction(p.expected))
-        reason = f"the {p.scheme.kind} scheme of column {p.column} gives {expected_text} here"
-        if p.scheme.kind == "zigzag":
-            reason += " (its trailing places agree with the lines of the same run)"
+        reason = f"the {p.scheme.kind} scheme of column {p.column} ({expected_text} here)"
         cands = _candidates(cell, due, reason, top)
         fitting = [c for c in cands if c[1] == due or (cell.floating and _same_digits(c[1], due))]
         if not fitting:
@@ -65,8 +63,9 @@ def restore_cells(table: Table, frame: Frame, pending: list[Pending], top: int =
             continue
         for text, value, prob, reasons in cands:
             shown = f"{text} {cell.sign_name}" if cell.sign_name else text
-            out.append(Restoration(p.index, p.column, shown, value + offset, prob, list(reasons),
-                                   expected_text))
+            extra = p.notes if value == due else []
+            out.append(Restoration(p.index, p.column, shown, value + offset, prob,
+                                   list(reasons) + extra, expected_text))
     return out, misfits
 
 

@@ -103,9 +103,9 @@ class StepScheme(Scheme):
             (Fraction(self.b_fast - self.b_slow) % self.full) / self.slow
         return {
             "zones": [
-                {"from": value_text(f(self.b_fast)), "to": value_text(f(self.b_slow)),
+                {"from": _where(f(self.b_fast)), "to": _where(f(self.b_slow)),
                  "rate": value_text(f(self.fast))},
-                {"from": value_text(f(self.b_slow)), "to": value_text(f(self.b_fast)),
+                {"from": _where(f(self.b_slow)), "to": _where(f(self.b_fast)),
                  "rate": value_text(f(self.slow))},
             ],
             "lines_per_revolution": value_text(period),
@@ -156,6 +156,19 @@ class StepScheme(Scheme):
                 if s > best_support:
                     best, best_support = scheme, s
         return best if best_support > 0.5 else None
+
+
+def _where(longitude: Fraction) -> dict:
+    """A boundary: exact degrees, and as the end of a sign (Scorpius 30 = 240°)."""
+    from ..slips import write_value
+    out = value_text(longitude)
+    inside = longitude % 30
+    if inside == 0:
+        from ..units import ZODIAC
+        out["sign"] = f"30 {ZODIAC[int(longitude // 30) - 1]}"
+    else:
+        out["sign"] = write_value(longitude, longitude=True)
+    return out
 
 
 class StepDifferenceScheme(Scheme):
