@@ -205,6 +205,7 @@ def test_damaged_cells_are_restored_from_the_scheme(lunar):
         best.setdefault((x.index + 1, x.column), x)
     ra = best[(8, "A")]
     assert ra.value == a[7] and ra.text == "28;2[6],38" and ra.probability > 0.5
+    assert any("same monotone run" in why for why in ra.reasons)   # the zigzag invariant
     rb = best[(13, "B")]
     assert rb.value == b[12] and rb.probability > 0.5
     assert rb.text.endswith(B[12].split()[-1])
