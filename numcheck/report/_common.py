@@ -28,3 +28,35 @@ def write_output(result, path, data, suffixes: tuple[str, ...], what: str) -> Pa
     if source and Path(source).exists():
         check_distinct(source, target)
     return write_atomic(target, data)
+
+
+#: A table this short is shown whole; a longer one only around its flags.
+SHOW_ALL_ROWS = 40
+
+
+def rows_to_show(nrows: int, marked_rows) -> list[int]:
+    """The 1-based rows to show: all of a short table, else each marked row and its neighbours.
+
+    >>> rows_to_show(100, [50])
+    [49, 50, 51]
+    """
+    if nrows <= SHOW_ALL_ROWS:
+        return list(range(1, nrows + 1))
+    wanted = set()
+    for row in marked_rows:
+        wanted.update(k for k in (row - 1, row, row + 1) if 1 <= k <= nrows)
+    return sorted(wanted)[:3 * SHOW_ALL_ROWS]
+
+
+def cell_marks(d: dict) -> dict:
+    """(row, column) -> flag kind or "restored", from the JSON of an audit."""
+    marks = {}
+    for f in d["flags"]:
+        marks[(f["row"], f["column"])] = f["kind"]
+    for r in d["restorations"]:
+        marks.setdefault((r["row"], r["column"]), "restored")
+    return marks
+
+
+def nothing_checked(d: dict) -> bool:
+    return not d["schemes"]

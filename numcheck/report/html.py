@@ -9,7 +9,7 @@ from __future__ import annotations
 import base64
 from html import escape
 
-from ._common import write_output
+from ._common import cell_marks, nothing_checked, rows_to_show, write_output
 
 __all__ = ["html_text", "write_html"]
 
@@ -40,6 +40,7 @@ def html_text(result, *, plot: bool = True) -> str:
         parts.append("<p>No column follows a scheme numcheck knows.</p>")
     if d["unchecked"]:
         parts.append(f"<p>Not checked (no scheme found): {escape(', '.join(d['unchecked']))}.</p>")
+    parts.extend(_cells(result, d))
     parts.append("<h2>Flags</h2>")
     if d["flags"]:
         parts.append("<table><tr><th>row</th><th>column</th><th>written</th><th>expected</th>"
@@ -51,6 +52,8 @@ def html_text(result, *, plot: bool = True) -> str:
                          f"<td class='num'>{escape(f['expected'])}</td><td>{escape(f['kind'])}</td>"
                          f"<td>{escape(f['reason'])}</td></tr>")
         parts.append("</table>")
+    elif nothing_checked(d):
+        parts.append("<p>No column follows a scheme numcheck knows: nothing was checked.</p>")
     else:
         parts.append("<p>No cell breaks its scheme.</p>")
     parts.append("<h2>Restorations of damaged cells</h2>")
@@ -72,6 +75,32 @@ def html_text(result, *, plot: bool = True) -> str:
                      f"src='data:image/png;base64,{png}'>")
     parts.append("<p class='note'>Written by numcheck audit.</p></body></html>")
     return "\n".join(parts)
+
+
+def _cells(result, d) -> list[str]:
+    """The table, flagged and restored cells coloured (a long table: rows around them)."""
+    marks = cell_marks(d)
+    rows = rows_to_show(result.table.nrows, [row for row, _ in marks])
+    if not rows:
+        return []
+    names = list(result.table.columns)
+    out = ["<h2>Table</h2>", "<table><tr><th>row</th>" +
+           "".join(f"<th>{escape(n)}</th>" for n in names) + "</tr>"]
+    last = 0
+    for row in rows:
+        if last and row != last + 1:
+            out.append(f"<tr><td>…</td>{'<td></td>' * len(names)}</tr>")
+        cells = []
+        for name in names:
+            kind = marks.get((row, name))
+            cls = {None: "", "restored": " restored", "carried-forward": " carried"}.get(kind, " slip")
+            text = escape(result.table.columns[name].cells[row - 1].text)
+            title = f" title='{escape(kind)}'" if kind else ""
+            cells.append(f"<td class='num{cls}'{title}>{text}</td>")
+        out.append(f"<tr><td>{row}</td>{''.join(cells)}</tr>")
+        last = row
+    out.append("</table>")
+    return out
 
 
 def write_html(result, path):

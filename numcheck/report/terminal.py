@@ -5,13 +5,9 @@ from __future__ import annotations
 from rich.markup import escape
 from rich.table import Table
 
-from ._common import RESTORED_STYLE, style_for
+from ._common import RESTORED_STYLE, cell_marks, nothing_checked, rows_to_show, style_for
 
 __all__ = ["show"]
-
-#: A table this short is shown whole; a longer one only around its flags.
-SHOW_ALL_ROWS = 40
-
 
 def show(result, console) -> None:
     """Print the audit to a rich console."""
@@ -45,6 +41,9 @@ def show(result, console) -> None:
             flags.add_row(str(f["row"]), escape(f["column"]), f"[{style}]{escape(f['written'])}[/]",
                           escape(f["expected"]), f"[{style}]{f['kind']}[/]", escape(reason))
         console.print(flags)
+    elif nothing_checked(d):
+        console.print("[yellow]No column follows a scheme numcheck knows: nothing was checked. "
+                      "State a relation with --relation to check one.[/yellow]")
     else:
         console.print("[green]No cell breaks its scheme.[/green]")
     if d["restorations"]:
@@ -60,21 +59,8 @@ def show(result, console) -> None:
 
 def _cells(result, d, console) -> None:
     """The table itself, flagged cells coloured (only the rows around flags in a long table)."""
-    marks = {}
-    for f in d["flags"]:
-        marks[(f["row"], f["column"])] = style_for(f["kind"])
-    for r in d["restorations"]:
-        marks.setdefault((r["row"], r["column"]), RESTORED_STYLE)
-    n = result.table.nrows
-    if n <= SHOW_ALL_ROWS:
-        rows = list(range(1, n + 1))
-    else:
-        wanted = set()
-        for row, _ in marks:
-            wanted.update(k for k in (row - 1, row, row + 1) if 1 <= k <= n)
-        rows = sorted(wanted)
-        if len(rows) > 3 * SHOW_ALL_ROWS:
-            rows = rows[:3 * SHOW_ALL_ROWS]
+    marks = cell_marks(d)
+    rows = rows_to_show(result.table.nrows, [row for row, _ in marks])
     if not rows:
         return
     t = Table(title="table (flagged cells coloured)", show_edge=False, header_style="bold")
@@ -89,7 +75,8 @@ def _cells(result, d, console) -> None:
         cells = []
         for name in names:
             text = escape(result.table.columns[name].cells[row - 1].text)
-            style = marks.get((row, name))
+            kind = marks.get((row, name))
+            style = None if kind is None else RESTORED_STYLE if kind == "restored" else style_for(kind)
             cells.append(f"[{style}]{text}[/]" if style else text)
         t.add_row(str(row), *cells)
         last = row
