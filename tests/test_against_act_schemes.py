@@ -149,3 +149,12 @@ def test_lunar_system_a_solar_step_function():
     assert slow["rate"]["sexagesimal"] == "28;7,30"
     assert p["lines_per_revolution"]["value"] == "2783/225"
     assert p["lines_per_revolution"]["sexagesimal"] == "12;22,8"
+
+
+@given(start=st.integers(min_value=0, max_value=360 * 60 - 1), n=st.integers(min_value=25, max_value=50))
+def test_no_false_flags_on_clean_step_function_tables(start, n):
+    lam = jupiter_a(n, start=F(start, 60))
+    r = audit(pd.DataFrame({"L": [longitude_text(x) for x in lam]}))
+    assert r.flags == []
+    assert r.schemes[0].kind == "step"
+    assert r.schemes[0].params()["lines_per_revolution"]["value"] == "391/36"
