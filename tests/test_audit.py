@@ -314,7 +314,7 @@ def test_quotient_is_a_product_with_its_operation():
 
 # -- every kind the generator injects is located, classed and corrected -------
 
-from hypothesis import given, settings  # noqa: E402
+from hypothesis import given  # noqa: E402
 from hypothesis import strategies as st  # noqa: E402
 
 from tablegen import A_KINDS, B_KINDS, inject  # noqa: E402
@@ -323,7 +323,6 @@ _CASES = [("A", k) for k in A_KINDS] + [("B", k) for k in B_KINDS]
 
 
 @given(case=st.sampled_from(_CASES), seed=st.integers(0, 10_000), start=st.integers(0, 40))
-@settings(max_examples=80)
 def test_generated_slip_is_located_classed_and_corrected(case, seed, start):
     import random
     column, kind = case
