@@ -17,7 +17,7 @@ from numcheck.audit import audit
 from numcheck.audit.table import read_table, split_text
 
 
-def _write(tmp_path, name, text):
+def _write(tmp_path, name, text):  # noqa: D103 - a file for one test
     p = tmp_path / name
     p.write_text(text, encoding="utf-8")
     return p
@@ -126,3 +126,14 @@ def test_unknown_column_in_relation_or_columns():
         audit(df, columns=["C"])
     with pytest.raises(NumcheckError):
         audit(df, relation="B = A +")
+
+
+@pytest.mark.parametrize("text", ["14;11,57,4 Libra", "0;30 Aries", "29;59 Pisces", "2[x];11 Libra"])
+def test_longitude_cells_agree_with_the_quantity_reader(text):
+    """The table reader's longitudes within signs give what numcheck.read gives."""
+    (cell,) = read_table(pd.DataFrame({"L": [text]})).columns["L"].cells
+    reading = read(text)
+    if reading.damaged:
+        assert cell.damaged
+    else:
+        assert cell.value == reading.value

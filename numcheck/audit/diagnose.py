@@ -163,6 +163,7 @@ def _anchor_states(scheme: Scheme, w, src):
 
 
 def _chain(table, frame, scheme: Scheme, true):
+    """Check a chained column line by line against the true and the scribe's chains."""
     column = scheme.column
     w = frame.written[column]
     n = len(w)
@@ -267,6 +268,7 @@ def _computed_on(scheme, pred, wi, i, w, T, true, written) -> bool:
 
 
 def _rows(table, frame, scheme: Scheme, true):
+    """Check a column computed from its row (product, reciprocal, relation) cell by cell."""
     column = scheme.column
     w = frame.written[column]
     findings: list[Finding] = []
