@@ -90,3 +90,6 @@ def test_damaged_igi_is_restored():
     best = r.restorations[0]
     assert (best.index + 1, best.column, best.text) == (30, "igi", "44,2[6],40")
     assert best.probability > 0.5
+    assert best.value == 44 * 3600 + 26 * 60 + 40        # at the scale the cell is read at
+    texts = [x.text for x in r.restorations]
+    assert len(texts) == len(set(texts))                  # one line per reading, all magnitudes summed

@@ -137,3 +137,9 @@ def test_longitude_cells_agree_with_the_quantity_reader(text):
         assert cell.damaged
     else:
         assert cell.value == reading.value
+
+
+def test_unknown_notation_is_named_before_any_cell():
+    with pytest.raises(NumcheckError, match="Did you mean 'cuneiform'") as err:
+        audit(pd.DataFrame({"A": ["1", "2"]}), notation="cuneifrom")
+    assert "Row" not in str(err.value)

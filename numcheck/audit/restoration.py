@@ -88,7 +88,17 @@ def _candidates(cell, due: Fraction, reason: str, top: int):
                          use_catalogue=False, top=top)
     except Exception:
         return _direct(reading, due, reason)
-    return [(c.text, c.value, c.probability, c.reasons) for c in result.candidates]
+    # A floating reading comes back once per magnitude; the text is one reading.
+    # Values are given at the reading's own scale (a floating number at the
+    # scale of its last place, as numcheck.read gives it).
+    merged: dict[str, list] = {}
+    for c in result.candidates:
+        value = c.value / Fraction(60) ** c.scale if reading.floating else c.value
+        if c.text in merged:
+            merged[c.text][2] += c.probability
+        else:
+            merged[c.text] = [c.text, value, c.probability, c.reasons]
+    return [tuple(v) for v in merged.values()]
 
 
 def _direct(reading, due: Fraction, reason: str):

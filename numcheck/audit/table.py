@@ -130,6 +130,9 @@ def read_table(table, *, notation: str | None = None, columns=None) -> Table:
     names, are not read as numbers).  Errors name the row and the column.
     """
     source = "<DataFrame>"
+    if notation is not None:
+        from ..notations import notation_module
+        notation_module(notation)   # an unknown name fails here, with suggestions
     if _is_dataframe(table):
         header = [str(c) for c in table.columns]
         rows = [[_frame_text(v, i, header[j]) for j, v in enumerate(rec)]
