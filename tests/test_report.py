@@ -94,6 +94,8 @@ def test_terminal_table(table):
     out = console.file.getvalue()
     assert "zigzag" in out and "unit-slip" in out
     assert "carried into rows 22-30" in out
+    assert "60 cells, 60 checked against a scheme: 2 slips, 9 lines carrying one forward; " \
+           "1 damaged, 1 restored." in " ".join(out.split())
     assert "28;2[6],38" in out or "restorations" in out
 
 

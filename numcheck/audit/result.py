@@ -73,11 +73,30 @@ class AuditResult:
             out["notes"] = list(f.notes)
         return out
 
+    @property
+    def numbers(self) -> int:
+        """How many cells the audit read (damaged ones included)."""
+        return sum(len(c.cells) for c in self.table.columns.values())
+
+    def summary(self) -> dict:
+        """Counts for a one-line account of the audit."""
+        flags = self.flags
+        checked = {s.column for s in self.schemes}
+        return {
+            "cells": self.numbers,
+            "checked": sum(len(c.cells) for n, c in self.table.columns.items() if n in checked),
+            "slips": sum(1 for f in flags if f["kind"] != "carried-forward"),
+            "carried_forward": sum(1 for f in flags if f["kind"] == "carried-forward"),
+            "damaged": sum(1 for c in self.table.columns.values() for x in c.cells if x.damaged),
+            "restored": len({(r.index, r.column) for r in self.restorations}),
+        }
+
     def to_dict(self) -> dict:
         return {
             "source": self.source,
             "rows": self.table.nrows,
             "columns": list(self.table.columns),
+            "summary": self.summary(),
             "schemes": [s.to_dict() for s in self.schemes],
             "flags": self.flags,
             "restorations": [r.to_dict() for r in self.restorations],

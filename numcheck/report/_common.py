@@ -60,3 +60,17 @@ def cell_marks(d: dict) -> dict:
 
 def nothing_checked(d: dict) -> bool:
     return not d["schemes"]
+
+
+def summary_line(d: dict) -> str:
+    """The audit in one line.
+
+    >>> summary_line({"summary": {"cells": 80, "checked": 80, "slips": 2, "carried_forward": 9,
+    ...                           "damaged": 1, "restored": 1}})
+    '80 cells, 80 checked against a scheme: 2 slips, 9 lines carrying one forward; 1 damaged, 1 restored.'
+    """
+    s = d["summary"]
+    return (f"{s['cells']} cells, {s['checked']} checked against a scheme: "
+            f"{s['slips']} slip{'s' if s['slips'] != 1 else ''}, "
+            f"{s['carried_forward']} line{'s' if s['carried_forward'] != 1 else ''} carrying one forward; "
+            f"{s['damaged']} damaged, {s['restored']} restored.")

@@ -9,7 +9,7 @@ from __future__ import annotations
 import base64
 from html import escape
 
-from ._common import cell_marks, nothing_checked, rows_to_show, write_output
+from ._common import cell_marks, nothing_checked, rows_to_show, summary_line, write_output
 
 __all__ = ["html_text", "write_html"]
 
@@ -28,7 +28,8 @@ def html_text(result, *, plot: bool = True) -> str:
     parts = [f"<!DOCTYPE html><html lang='en'><head><meta charset='utf-8'>"
              f"<title>numcheck audit: {escape(d['source'])}</title><style>{_CSS}</style></head><body>",
              f"<h1>numcheck audit of {escape(d['source'])}</h1>",
-             f"<p>{d['rows']} rows; columns {escape(', '.join(d['columns']))}.</p>",
+             f"<p>{d['rows']} rows; columns {escape(', '.join(d['columns']))}. "
+             f"{escape(summary_line(d))}</p>",
              f"<p class='note'>{escape(d['note'])}</p>", "<h2>Schemes</h2>"]
     if d["schemes"]:
         parts.append("<table><tr><th>column</th><th>kind</th><th>scheme</th><th>lines that fit</th></tr>")

@@ -5,7 +5,8 @@ from __future__ import annotations
 from rich.markup import escape
 from rich.table import Table
 
-from ._common import RESTORED_STYLE, cell_marks, nothing_checked, rows_to_show, style_for
+from ._common import (RESTORED_STYLE, cell_marks, nothing_checked, rows_to_show, style_for,
+                      summary_line)
 
 __all__ = ["show"]
 
@@ -54,6 +55,7 @@ def show(result, console) -> None:
             rest.add_row(str(r["row"]), escape(r["column"]), f"[{RESTORED_STYLE}]{escape(r['text'])}[/]",
                          f"{r['probability']:.3f}", escape("; ".join(r["reasons"])))
         console.print(rest)
+    console.print(escape(summary_line(d)))
     console.print(f"[dim]{escape(d['note'])}[/dim]")
 
 
