@@ -330,3 +330,34 @@ def test_published_values_in_the_stand_in_are_exact():
     assert values["month_sysB"] == 29 + Fraction(31, 60) + Fraction(50, 60**2) + Fraction(8, 60**3) + Fraction(20, 60**4)
     assert values["saros_days"] == 1 * 3600 + 49 * 60 + 45 + Fraction(20, 60)
     assert values["year_sysA"] == 12 + Fraction(22, 60) + Fraction(8, 3600)
+
+
+@given(damaged(), st.integers(-3, 3), st.integers(0, 2), st.floats(0.1, 5.0))
+def test_search_agrees_with_brute_force_on_random_damage(case, offset, tol_steps, weight):
+    """The branch and bound misses no agreeing reading, and the closed form is exact."""
+    text, true, _ = case
+    reading = numcheck.read(text)
+    size = build_space(reading).count      # doubtful digits' alternatives included
+    if size > 3600:
+        return
+    ulp = reading.ulp
+    target = true + offset * ulp
+    ev = Evidence(target, tol_steps * ulp, weight, "a scheme")
+    result = restore(reading, context=[ev], use_catalogue=False, top=size)
+    assert result.space == size
+    rows, unmatched = brute_force(reading, [(target, tol_steps * ulp, weight, None)])
+    expected = sorted((p for _, p in rows), reverse=True)
+    got = [c.probability for c in result.candidates]
+    assert got == pytest.approx(expected, rel=1e-9, abs=1e-15)
+    assert result.unmatched_mass == pytest.approx(unmatched, rel=1e-9, abs=1e-15)
+
+
+def test_beyond_int64_the_search_stays_exact():
+    # 60**12 readings: values past 2**62 are searched with python integers.
+    text = ",".join(["[x]"] * 12)
+    true = sum(Fraction(d) * 60**i for i, d in enumerate([7, 0, 59, 1, 30, 2, 45, 3, 11, 4, 58, 5]))
+    result = restore(text, context=[Evidence(true, Fraction(0), 1.0, "a known value")],
+                     use_catalogue=False, top=3)
+    assert result.space == 60**12
+    assert result.best.value == true
+    assert result.best.probability == pytest.approx(0.5, rel=1e-6)
