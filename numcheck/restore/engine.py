@@ -15,7 +15,7 @@ import numpy as np
 from .. import limits
 from ..errors import LimitError, NumcheckRangeError
 from ..notations import render_choice
-from ..reading import Reading, sexagesimal_text
+from ..reading import Reading
 from . import scoring
 from .evidence import Target, gather
 from .explain import NO_EVIDENCE, evidence_reason, position_reasons
@@ -24,6 +24,9 @@ from .search import estimate, find_matches, grid_for, inside, merge_windows, top
 from .space import build_space
 
 __all__ = ["restore"]
+
+#: Agreements with evidence spelled out per candidate (the rest are counted).
+REASONS_SHOWN = 3
 
 
 def _reading(reading_or_text, notation, unit) -> Reading:
@@ -99,7 +102,10 @@ def restore(reading_or_text, *, notation=None, unit=None, expect=None, context=(
     rows.sort(key=_rank_key)
     rows = rows[:top]
 
-    candidates = [_candidate(reading, targets, row) for row in rows]
+    def support(t: int, k: float) -> float:   # how much of a reading's probability evidence t gives
+        return pis.get(t, 0.0) * k / norm[t] if norm[t] > 0 else 0.0
+
+    candidates = [_candidate(targets, row, support) for row in rows]
     _space_notes(reading, space, targets, possible, notes)
     evidence = [{"id": t.id, "label": t.label, "kind": t.kind,
                  "possible": i in possible, "weight": pis.get(i, 0.0)}
@@ -131,7 +137,7 @@ def _drop_broad(targets, grids, windows, notes) -> None:
             wins[:] = [w for w in wins if w.target not in broad]
 
 
-def _candidate(reading: Reading, targets: list[Target], row) -> Candidate:
+def _candidate(targets: list[Target], row, support) -> Candidate:
     prob, prior, _, V, g, choice, hits = row
     sub = g.sub
     e = sub.expansion
@@ -145,12 +151,12 @@ def _candidate(reading: Reading, targets: list[Target], row) -> Candidate:
         else:
             values.append(slot.values[0])
     value = g.value_of(V)
-    try:
-        text = render_choice(e, tuple(values))
-    except Exception:  # a notation that cannot write this reading: show it in sexagesimal
-        text = sexagesimal_text(value)
-    reasons = [evidence_reason(targets[t], value, sub.ulp, e.base)
-               for t, _ in sorted(hits, key=lambda h: (-h[1], targets[h[0]].kind, h[0]))]
+    text = render_choice(e, tuple(values))
+    ranked = sorted(hits, key=lambda h: (-support(*h), h[0]))
+    reasons = [evidence_reason(targets[t], value, sub.ulp, e.base) for t, _ in ranked[:REASONS_SHOWN]]
+    if len(ranked) > REASONS_SHOWN:
+        rest = len(ranked) - REASONS_SHOWN
+        reasons.append(f"and {rest} more value{'s' if rest > 1 else ''} of the evidence, each weighing less")
     reasons += position_reasons(sub, chosen)
     if not hits:
         reasons.append(NO_EVIDENCE)
@@ -158,7 +164,7 @@ def _candidate(reading: Reading, targets: list[Target], row) -> Candidate:
     is_editor = bool(editor_slots) and all(
         p.options[chosen.get(i, 0)].editor for i, p in enumerate(sub.positions) if p.slot.editor is not None)
     return Candidate(text, value, prob, tuple(reasons), is_editor, sub.scale, prior,
-                     tuple(targets[t].id for t, _ in hits))
+                     tuple(dict.fromkeys(targets[t].id for t, _ in ranked)))
 
 
 def _space_notes(reading, space, targets, possible, notes) -> None:
