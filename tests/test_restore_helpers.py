@@ -62,6 +62,7 @@ def brute_force(reading, targets_exact):
     """
     space = build_space(reading)
     rows = []
+    reached: dict[tuple[int, int], dict] = {}     # (target, sub) -> {value: kernel}
     for sub in space.subspaces:
         base = Fraction(sub.expansion.base)
         F = base ** sub.scale
@@ -80,18 +81,24 @@ def brute_force(reading, targets_exact):
                 else:
                     ok, tl = d <= tol, tol
                 if ok:
-                    hits.append((ti, scoring.kernel(float(d), float(tl))))
+                    k = scoring.kernel(float(d), float(tl))
+                    hits.append((ti, k))
+                    reached.setdefault((ti, sub.index), {})[value] = k
             rows.append((value, prior, hits))
     norm = [0.0] * len(targets_exact)
     for _, prior, hits in rows:
         for ti, k in hits:
             norm[ti] += prior * k
     possible = {i for i, n in enumerate(norm) if n > 0}
+    reach = {}
+    for (ti, si), seen in reached.items():
+        mass = _grid_mass(space.subspaces[si], *targets_exact[ti][:2])
+        reach[ti] = max(reach.get(ti, 0.0), min(1.0, sum(seen.values()) / mass))
     weights = {i: t[2] ** (scoring.CATALOGUE_SHARPNESS if t[3] == "catalogue" else 1.0)
                for i, t in enumerate(targets_exact)}
     pi0, pis = scoring.mixture(weights, possible,
                                {i: t[3] for i, t in enumerate(targets_exact) if t[3]},
-                               {"catalogue": scoring.CATALOGUE_WEIGHT})
+                               {"catalogue": scoring.CATALOGUE_WEIGHT}, reach)
     out = []
     unmatched = 0.0
     for value, prior, hits in rows:
@@ -100,3 +107,20 @@ def brute_force(reading, targets_exact):
         if not hits:
             unmatched += p
     return out, unmatched
+
+
+def _grid_mass(sub, target, tol):
+    """The kernel summed over every grid number the target accepts, one by one."""
+    from numcheck.restore.search import grid_for
+
+    step = Fraction(1, grid_for(sub).D) * Fraction(sub.expansion.base) ** sub.scale
+    width = sub.ulp if tol is None else tol
+    first = (target - width) // step
+    total = 0.0
+    n = first
+    while n * step <= target + width:
+        d = abs(n * step - target)
+        if (d < width) if tol is None else (d <= width):
+            total += scoring.kernel(float(d), float(width))
+        n += 1
+    return total

@@ -70,12 +70,13 @@ def restore(reading_or_text, *, notation=None, unit=None, expect=None, context=(
     values = [targets[i].value for i in order]
     windows = [windows_for(g, targets, order, values) for g in grids]
     _drop_broad(targets, grids, windows, notes)
-    match, norm = find_matches(space, grids, windows, len(targets))
+    match, norm, reach = find_matches(space, grids, windows, len(targets))
 
     possible = {i for i in range(len(targets)) if norm[i] > 0}
     groups = {i: t.group for i, t in enumerate(targets) if t.group}
     pi0, pis = scoring.mixture({i: t.weight for i, t in enumerate(targets)}, possible, groups,
-                               {"catalogue": scoring.CATALOGUE_WEIGHT})
+                               {"catalogue": scoring.CATALOGUE_WEIGHT},
+                               {i: float(reach[i]) for i in possible})
     for r, hits in enumerate(match.hits):
         match.score[r] = match.prior[r] * (pi0 + sum(pis[t] * k / norm[t] for t, k in hits))
     matched_prior = float(match.prior.sum())

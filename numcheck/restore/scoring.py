@@ -40,7 +40,15 @@ place away (the scribe rounded or cut the value there; a written part such as
 
     likelihood(v) = π0 + Σ_e π_e · k_e(v) / N_e
     N_e = Σ_readings prior(r) · k_e(v_r)          (the readings that agree with e)
-    π_e = w_e / (NONE_WEIGHT + Σ_{e' possible} w_e'),  π0 = NONE_WEIGHT / (same)
+    π_e = w_e m_e / (NONE_WEIGHT + Σ_{e' possible} w_e' m_e'),  π0 = NONE_WEIGHT / (same)
+
+where the *reach* ``m_e`` is the share of e's kernel mass (over every number
+it accepts) that the traces allow, at the best gap count and magnitude: 1
+when the damaged places can take every number e accepts, about 1/2 when e
+falls between two numbers of the last place and a digit that is read rules
+one of them out.  A hypothesis the traces only half allow earns half its
+weight.  (In the catalogue group the shares are ``CATALOGUE_WEIGHT × w_e
+m_e / Σ w_e'``.)
 
 Evidence that no reading can meet is impossible under the traces and drops
 out (its weight is not counted).  Because the prior sums to 1 over the whole
@@ -127,23 +135,33 @@ def kernel(distance: float, tolerance: float) -> float:
 
 
 def mixture(weights: dict[int, float], possible: set[int], groups: dict[int, str],
-            group_weights: dict[str, float]) -> tuple[float, dict[int, float]]:
+            group_weights: dict[str, float], reach: dict[int, float] | None = None
+            ) -> tuple[float, dict[int, float]]:
     """The mixing weights π0 and π_e for the evidence that some reading can meet.
 
-    *weights* are the evidence weights by index; evidence in a group (the
-    catalogue) shares the group's weight in proportion to its own.
+    *weights* are the evidence weights by index and *reach* the share of
+    each one's kernel mass the traces allow (1 by default).  Evidence in a
+    group (the catalogue) shares the group's weight in proportion to its own
+    weight; its reach then scales its share.
+
+    >>> mixture({0: 4.0}, {0}, {}, {})
+    (0.2, {0: 0.8})
+    >>> mixture({0: 1.0, 1: 1.0}, {0, 1}, {0: "c", 1: "c"}, {"c": 1.0}, {0: 1.0, 1: 0.5})
+    (0.5714285714285714, {0: 0.2857142857142857, 1: 0.14285714285714285})
     """
+    reach = reach or {}
     share: dict[int, float] = {}
     grouped: dict[str, list[int]] = {}
     for e in sorted(possible):
         g = groups.get(e)
         if g is None:
-            share[e] = weights[e]
+            share[e] = weights[e] * reach.get(e, 1.0)
         else:
             grouped.setdefault(g, []).append(e)
     for g, members in grouped.items():
         total = sum(weights[e] for e in members)
         for e in members:
-            share[e] = group_weights[g] * (weights[e] / total if total > 0 else 1.0 / len(members))
+            part = weights[e] / total if total > 0 else 1.0 / len(members)
+            share[e] = group_weights[g] * part * reach.get(e, 1.0)
     denom = NONE_WEIGHT + sum(share.values())
     return NONE_WEIGHT / denom, {e: w / denom for e, w in share.items()}

@@ -73,6 +73,7 @@ class Window:
     target: int                             # index into the targets
     centre: Fraction                        # the target in grid units
     tol: Fraction                           # the tolerance in grid units
+    mass: float = 1.0                       # the kernel summed over every grid integer it accepts
 
 
 @dataclass
@@ -157,10 +158,39 @@ def windows_for(grid: Grid, targets: list[Target], order: list[int] | None = Non
             tol = t.tolerance * grid.D / F
             lo = math.ceil(centre - tol)
             hi = math.floor(centre + tol)
+        if hi < grid.lo or lo > grid.hi:
+            continue
+        mass = kernel_mass(lo, hi, centre, tol)       # before the sub-space's range clips it
         lo, hi = max(lo, grid.lo), min(hi, grid.hi)
         if lo <= hi:
-            out.append(Window(lo, hi, ti, centre, tol))
+            out.append(Window(lo, hi, ti, centre, tol, mass))
     return out
+
+
+def kernel_mass(lo: int, hi: int, centre: Fraction, tol: Fraction) -> float:
+    """The kernel summed over the integers lo..hi, in closed form (no enumeration).
+
+    Each integer V counts ``1 - (1 - KERNEL_EDGE) * |V - centre| / tol``
+    (:func:`numcheck.restore.scoring.kernel`).
+
+    >>> kernel_mass(3, 3, Fraction(3), Fraction(1)), kernel_mass(2, 4, Fraction(3), Fraction(2))
+    (1.0, 2.5)
+    """
+    from .scoring import KERNEL_EDGE
+
+    if hi < lo:
+        return 0.0
+    if tol == 0:
+        return float(hi - lo + 1)
+
+    def total(a: int, b: int) -> Fraction:      # sum of V over a..b
+        return Fraction((a + b) * (b - a + 1), 2) if b >= a else Fraction(0)
+
+    f = math.floor(centre)
+    left_hi, right_lo = min(hi, f), max(lo, f + 1)
+    n1, n2 = max(0, left_hi - lo + 1), max(0, hi - right_lo + 1)
+    distance = (n1 * centre - total(lo, left_hi)) + (total(right_lo, hi) - n2 * centre)
+    return float((hi - lo + 1) - (1 - Fraction(KERNEL_EDGE).limit_denominator()) * distance / tol)
 
 
 def estimate(grid: Grid, window: Window) -> float:
@@ -273,8 +303,16 @@ def _search_grid(grid: Grid, windows: list[Window], budget: list[int]):
 
 
 def find_matches(space: Space, grids: list[Grid], windows: list[list[Window]],
-                 n_targets: int) -> tuple[Match, np.ndarray]:
-    """Every reading inside some window, with its kernel per target; and N_e per target."""
+                 n_targets: int) -> tuple[Match, np.ndarray, np.ndarray]:
+    """Every reading inside some window, with its kernel per target; N_e and reach per target.
+
+    ``N_e`` sums prior × kernel over the readings that agree with target e;
+    its *reach* is the largest share, over the sub-spaces, of the target's
+    kernel mass that the traces can take (1 when the damage allows every
+    value the target accepts, 1/2 when a read digit rules out one of the
+    two neighbours of a value that falls between them).
+    """
+    reached: dict[tuple[int, int], dict] = {}   # (target, sub) -> {V: kernel}
     budget = [0]
     rows_sub, rows_choice, rows_value, rows_prior, rows_hits = [], [], [], [], []
     total = 0
@@ -290,6 +328,7 @@ def find_matches(space: Space, grids: list[Grid], windows: list[list[Window]],
                          grid.sub.mass, hits, n_open)
                 for t, kv in hits:
                     norm[t] += grid.sub.mass * kv
+                    reached.setdefault((t, grid.sub.index), {})[grid.const] = kv
             continue
         suffix, leaves = _search_grid(grid, wins, budget)
         total += sum(b - a for _, _, _, a, b, _ in leaves)
@@ -303,6 +342,9 @@ def find_matches(space: Space, grids: list[Grid], windows: list[list[Window]],
             kern = _kernel(V, w)
             pri = prior * suffix.prior[a:b] * grid.sub.mass
             norm[w.target] += float(np.sum(pri * kern))
+            seen = reached.setdefault((w.target, grid.sub.index), {})
+            for v, kv in zip(V.tolist(), kern.tolist()):
+                seen[v] = kv
             for j in range(b - a):
                 key = (path, int(suffix.order[a + j]))
                 row = found.get(key)
@@ -316,7 +358,11 @@ def find_matches(space: Space, grids: list[Grid], windows: list[list[Window]],
     match = Match(np.array(rows_sub, dtype=int),
                   np.array(rows_choice, dtype=int).reshape(len(rows_choice), n_open),
                   rows_value, np.array(rows_prior, dtype=float), np.zeros(len(rows_prior)), rows_hits)
-    return match, norm
+    masses = {(w.target, g.sub.index): w.mass for g, wins in zip(grids, windows) for w in wins}
+    reach = np.zeros(n_targets)
+    for (t, si), seen in reached.items():
+        reach[t] = max(reach[t], min(1.0, sum(seen.values()) / masses[(t, si)]))
+    return match, norm, reach
 
 
 def _add_row(rows_sub, rows_choice, rows_value, rows_prior, rows_hits, grid, choice, V, prior,
