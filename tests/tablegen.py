@@ -218,3 +218,27 @@ def _place_slip(kind, v, prev, step, column, i, values, rng, frac_v, d, a):
             return sexagesimal_text(straight)
         return None
     return None
+
+
+def step_zones(n: int, *, bounds: list[F], rates: list[F], start: F) -> list[F]:
+    """n longitudes of a step function with any number of zones (zone i from bounds[i]).
+
+    Written independently of numcheck: the share of a line left at a boundary
+    is spent at the next zone's rate.
+    """
+    out, lam = [], F(start)
+    k = len(bounds)
+    for _ in range(n):
+        out.append(lam)
+        i = max((j for j in range(k) if bounds[j] <= lam), default=k - 1)
+        left, pos = F(1), lam
+        while True:
+            end = bounds[(i + 1) % k]
+            x = (end - pos) % 360 or F(360)
+            if rates[i] * left <= x:
+                pos = (pos + rates[i] * left) % 360
+                break
+            left -= x / rates[i]
+            pos, i = end % 360, (i + 1) % k
+        lam = pos
+    return out

@@ -158,3 +158,23 @@ def test_no_false_flags_on_clean_step_function_tables(start, n):
     assert r.flags == []
     assert r.schemes[0].kind == "step"
     assert r.schemes[0].params()["lines_per_revolution"]["value"] == "391/36"
+
+
+def test_step_function_with_more_zones():
+    """An invented four-zone scheme (not a historical one: rates and boundaries made up,
+    in the manner of the Babylonian planetary System A schemes)."""
+    from tablegen import step_zones
+    bounds, rates = [F(20), F(110), F(200), F(290)], [F(40), F(45), F(36), F(30)]
+    lam = step_zones(60, bounds=bounds, rates=rates, start=F(7))
+    L = [longitude_text(x) for x in lam]
+    r = audit(pd.DataFrame({"L": L}))
+    assert r.flags == []
+    kind, p = _params(r, "L")
+    assert kind == "step"
+    got = [(z["from"]["value"], z["to"]["value"], z["rate"]["value"]) for z in p["zones"]]
+    assert got == [("110", "200", "45"), ("200", "290", "36"), ("290", "20", "30"), ("20", "110", "40")]
+    assert F(p["lines_per_revolution"]["value"]) == F(90, 40) + F(90, 45) + F(90, 36) + F(90, 30)
+    # a slip is still found against the four zones
+    L[33] = longitude_text(lam[33] + F(1, 60))
+    (f,) = [f for f in audit(pd.DataFrame({"L": L})).flags if f["kind"] != "carried-forward"]
+    assert (f["row"], f["expected"]) == (34, longitude_text(lam[33]))

@@ -4,18 +4,18 @@ The ecliptic is divided into zones; in zone i the body advances w_i per line.
 A step that crosses into zone j keeps its part up to the boundary, x, at the
 old rate and converts the rest to the new one: Δλ = x + (w_i − x)·w_j/w_i
 (schemes-and-slips.md §1.2, after Neugebauer, ACT 1955, and Aaboe 1958).
-Two zones are fitted here (the lunar System A sun and Jupiter System A): the
-two commonest differences are the rates, and each crossing line proposes a
-boundary; the pair of boundaries that explains most lines exactly is kept.
+The fit (numcheck.audit.steps_fit) takes the commonest differences as the
+rates; each crossing line proposes boundaries, and the set that explains most
+lines exactly is kept.
 """
 
 from __future__ import annotations
 
-from collections import Counter
+from bisect import bisect_right
 from fractions import Fraction
 
 from ..reading import sexagesimal_text
-from .schemes import Scheme, diffs, value_text
+from .schemes import Scheme, value_text
 
 __all__ = ["StepScheme", "StepDifferenceScheme", "degrees_text"]
 
@@ -31,44 +31,59 @@ def degrees_text(v) -> str:
     frac = sexagesimal_text(v - whole)
     return f"{whole}{frac[1:] if frac != '0' else ''}°"
 
-#: Lines used to choose the boundaries among the candidates (enough for a
-#: few revolutions; the full table is then checked line by line).
-_SAMPLE = 400
 
 
 class StepScheme(Scheme):
-    """A two-zone step function on a longitude (modulo 360°)."""
+    """A step function on a longitude (modulo 360°): zones, each with its rate.
+
+    ``bounds`` are where the zones begin, ascending on the circle; zone i runs
+    from ``bounds[i]`` to ``bounds[i + 1]`` at ``rates[i]`` per line.
+    """
 
     kind = "step"
 
-    def __init__(self, column, frame, fast, slow, b_fast, b_slow):
+    def __init__(self, column, frame, bounds, rates):
         super().__init__(column, frame)
-        self.fast, self.slow = fast, slow          # rates, fast > slow
-        self.b_fast, self.b_slow = b_fast, b_slow  # where each zone begins
+        order = sorted(range(len(bounds)), key=lambda k: bounds[k])
+        self.bounds = [bounds[k] for k in order]
+        self.rates = [rates[k] for k in order]
         self.full = frame.modulus[column]
 
-    def _zone(self, lam):
-        """(rate, the boundary ahead, the rate beyond it) for a longitude."""
-        span_fast = (self.b_slow - self.b_fast) % self.full
-        if (lam - self.b_fast) % self.full < span_fast:
-            return self.fast, self.b_slow, self.slow
-        return self.slow, self.b_fast, self.fast
+    def _index(self, lam) -> int:
+        """The zone a longitude lies in (a boundary belongs to the zone it begins)."""
+        k = bisect_right(self.bounds, lam) - 1
+        return k if k >= 0 else len(self.bounds) - 1
 
     def advance(self, lam):
-        """The step from *lam*, with the boundary rule applied."""
-        w, boundary, w2 = self._zone(lam)
-        x = (boundary - lam) % self.full
-        if 0 < x < w:
-            return x + (w - x) * Fraction(w2) / w
-        return w
+        """The step from *lam*: the boundary rule applied at every boundary crossed.
+
+        The share of the line not yet used is carried across a boundary and
+        spent at the next zone's rate: Δλ = x + (w_i − x)·w_j/w_i for one crossing.
+        """
+        i = self._index(lam)
+        n = len(self.bounds)
+        left = Fraction(1)   # the share of the line still to go
+        pos, total = lam, 0
+        for _ in range(n + 1):
+            w = self.rates[i]
+            x = (self.bounds[(i + 1) % n] - pos) % self.full or self.full
+            if w * left <= x:
+                return self._clean(total + w * left)
+            total += x
+            left -= Fraction(x) / w
+            pos = self.bounds[(i + 1) % n]
+            i = (i + 1) % n
+        return self._clean(total)
 
     def step(self, state, i, src):
         return (self._clean((state[0] + self.advance(state[0])) % self.full), None)
 
     def back(self, state, i, src):
         lam2 = state[0]
-        guesses = [(lam2 - self.fast) % self.full, (lam2 - self.slow) % self.full]
-        for b, wi, wj in ((self.b_slow, self.fast, self.slow), (self.b_fast, self.slow, self.fast)):
+        n = len(self.bounds)
+        guesses = [(lam2 - w) % self.full for w in self.rates]
+        for k in range(n):
+            b, wi, wj = self.bounds[(k + 1) % n], self.rates[k], self.rates[(k + 1) % n]
             over = (lam2 - b) % self.full
             x = wi - over * Fraction(wi) / wj
             guesses.append((b - x) % self.full)
@@ -83,8 +98,8 @@ class StepScheme(Scheme):
             return None
         lam = prev[0]
         due = self.step(prev, i, src)[0]
-        w, _, w2 = self._zone(lam)
-        for rate in (w, w2):
+        k = self._index(lam)
+        for rate in (self.rates[k], self.rates[(k + 1) % len(self.rates)]):
             if written == self._clean((lam + rate) % self.full) != due:
                 from ..slips import Diagnosis
                 return Diagnosis("zone-boundary", "a zone boundary was crossed, but the step was "
@@ -97,65 +112,40 @@ class StepScheme(Scheme):
             return v.numerator
         return v
 
+    def _zones(self):
+        """(from, to, rate) per zone, in ecliptic order from the fastest zone."""
+        n = len(self.bounds)
+        first = max(range(n), key=lambda k: self.rates[k])
+        out = []
+        for j in range(n):
+            k = (first + j) % n
+            out.append((self.bounds[k], self.bounds[(k + 1) % n], self.rates[k]))
+        return out
+
+    @property
+    def lines_per_revolution(self) -> Fraction:
+        return sum((Fraction((b - a) % self.full or self.full) / w for a, b, w in self._zones()),
+                   Fraction(0))
+
     def params(self):
         f = self.frame.fraction
-        period = (Fraction(self.b_slow - self.b_fast) % self.full) / self.fast + \
-            (Fraction(self.b_fast - self.b_slow) % self.full) / self.slow
         return {
-            "zones": [
-                {"from": _where(f(self.b_fast)), "to": _where(f(self.b_slow)),
-                 "rate": value_text(f(self.fast))},
-                {"from": _where(f(self.b_slow)), "to": _where(f(self.b_fast)),
-                 "rate": value_text(f(self.slow))},
-            ],
-            "lines_per_revolution": value_text(period),
+            "zones": [{"from": _where(f(a)), "to": _where(f(b)), "rate": value_text(f(w))}
+                      for a, b, w in self._zones()],
+            "lines_per_revolution": value_text(self.lines_per_revolution),
             "boundary_rule": "the part of a step beyond a boundary is converted by the ratio of the rates",
         }
 
     def describe(self):
         f = self.frame.fraction
-        return (f"step function: {degrees_text(f(self.fast))} per line from "
-                f"{degrees_text(f(self.b_fast))} to {degrees_text(f(self.b_slow))}, "
-                f"{degrees_text(f(self.slow))} beyond")
+        parts = [f"{degrees_text(f(w))} per line from {degrees_text(f(a))} to {degrees_text(f(b))}"
+                 for a, b, w in self._zones()]
+        return "step function: " + "; ".join(parts)
 
     @classmethod
     def fit(cls, column, frame):
-        full = frame.modulus.get(column)
-        values = frame.written[column]
-        if not full:
-            return None
-        pairs = diffs(values, full)
-        if len(pairs) < 6:
-            return None
-        counts = Counter(d for _, d in pairs)
-        common = counts.most_common(2)
-        if len(common) < 2 or common[1][1] < 2 or common[0][1] + common[1][1] < len(pairs) // 2:
-            return None
-        fast, slow = max(common[0][0], common[1][0]), min(common[0][0], common[1][0])
-        cand_slow: Counter = Counter()
-        cand_fast: Counter = Counter()
-        for i, dl in pairs[:_SAMPLE]:
-            if not slow < dl < fast:
-                continue
-            lam = values[i - 1]
-            x1 = Fraction(fast) * (dl - slow) / (fast - slow)       # fast zone into slow
-            cand_slow[cls._clean((lam + x1) % full)] += 1
-            x2 = Fraction(slow) * (fast - dl) / (fast - slow)       # slow zone into fast
-            cand_fast[cls._clean((lam + x2) % full)] += 1
-        if not cand_slow:
-            return None
-        best, best_support = None, 0.0
-        sample = values[:_SAMPLE]
-        from .schemes import support_chained
-        for bs, _ in cand_slow.most_common(8):
-            for bf, _ in cand_fast.most_common(8):
-                if bs == bf:
-                    continue
-                scheme = cls(column, frame, fast, slow, bf, bs)
-                s = support_chained(scheme, sample, None)
-                if s > best_support:
-                    best, best_support = scheme, s
-        return best if best_support > 0.5 else None
+        from .steps_fit import fit_step
+        return fit_step(cls, column, frame)
 
 
 def _where(longitude: Fraction) -> dict:
