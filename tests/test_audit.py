@@ -379,3 +379,20 @@ def test_multiple_of_a_column():
     df.loc[3, "y"] = "22;20"   # 9 × 2;30 = 22;30
     (f,) = audit(df).flags
     assert (f["row"], f["column"], f["kind"], f["expected"]) == (4, "y", "ten-slip", "22;30")
+
+
+def test_carried_slip_in_a_zigzag_follows_the_scribes_own_turns(lunar):
+    """The scribe computed on from a wrong value through the turns: one slip, the rest inherit it."""
+    from tablegen import zigzag
+    a, b, A, B = lunar
+    row = 5
+    wrong = a[row - 1] + F(1, 60)
+    direction = a[row] > a[row - 1]
+    tail = zigzag(N - row + 1, start=wrong, rising=direction, **LUNAR_B_A)
+    A2 = A[:row - 1] + [sxt(x) for x in tail]
+    r = audit(pd.DataFrame({"A": A2}))
+    slips = _slips(r)
+    assert [(f["row"], f["kind"], f["expected"]) for f in slips] == [(row, "unit-slip", A[row - 1])]
+    later = [f["row"] for f in r.flags if f["kind"] == "carried-forward"]
+    assert later == [k + 1 for k in range(row, N) if A2[k] != A[k]]
+    assert len(later) > 20
