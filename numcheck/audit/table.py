@@ -188,6 +188,8 @@ def split_text(text: str, *, suffix: str = "") -> tuple[list[str], list[list[str
     spaces, is CSV (quote the sexagesimal cells: ``"29;31,50"``); anything
     else is a whitespace-aligned table whose columns are separated by two or
     more spaces (by single spaces when the header has no double space).
+    Blank lines and lines starting with ``#`` (notes) are skipped; rows are
+    counted from the first data row, as in the audit's output.
     """
     lines = [ln for ln in text.splitlines() if ln.strip() and not ln.lstrip().startswith("#")]
     if not lines:
