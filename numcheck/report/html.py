@@ -51,7 +51,7 @@ def html_text(result, *, plot: bool = True) -> str:
             parts.append(f"<tr class='{cls}'><td>{f['row']}</td><td>{escape(f['column'])}</td>"
                          f"<td class='num'>{escape(f['written'])}</td>"
                          f"<td class='num'>{escape(f['expected'])}</td><td>{escape(f['kind'])}</td>"
-                         f"<td>{escape(f['reason'])}</td></tr>")
+                         f"<td>{escape('; '.join([f['reason']] + f.get('notes', [])))}</td></tr>")
         parts.append("</table>")
     elif nothing_checked(d):
         parts.append("<p>No column follows a scheme numcheck knows: nothing was checked.</p>")

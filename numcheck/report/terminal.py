@@ -39,6 +39,8 @@ def show(result, console) -> None:
                 reason += f"; carried into rows {_ranges(f['carried_into'])}"
             for col, rows in f.get("carried_into_columns", {}).items():
                 reason += f"; carried into column {col}, rows {_ranges(rows)}"
+            if "copying slip" in " ".join(f.get("notes", [])):
+                reason += "; " + next(n for n in f["notes"] if "copying slip" in n)
             flags.add_row(str(f["row"]), escape(f["column"]), f"[{style}]{escape(f['written'])}[/]",
                           escape(f["expected"]), f"[{style}]{f['kind']}[/]", escape(reason))
         console.print(flags)
