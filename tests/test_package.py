@@ -33,7 +33,8 @@ def test_grammars_are_found_and_ship_inside_an_installed_package():
         assert folder.resolve() == (package / "grammars").resolve()
 
 
-MODULES = ["numcheck.reading", "numcheck.errors", "numcheck.reader", "numcheck.notations.detect"]
+MODULES = ["numcheck.reading", "numcheck.errors", "numcheck.reader", "numcheck.notations.detect",
+           "numcheck.notations.marks"]
 
 
 @pytest.mark.parametrize("name", MODULES)

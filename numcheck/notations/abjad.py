@@ -35,6 +35,7 @@ from ..errors import LimitError, NumcheckRangeError, NumcheckSyntaxError
 from ..grammar_loader import parser_for
 from ..limits import GAP_MAX_PLACES, MAX_LOST_LETTERS, MAX_PLACES
 from ..reading import Reading, Slot, Status
+from .marks import join_marked
 
 __all__ = ["NAME", "MAGHRIBI", "parse", "format", "render", "letter_values", "BAD_EXAMPLES"]
 
@@ -311,7 +312,6 @@ def _descending(options: list[tuple[int, ...]], above: int = 4):
 # -- writing back ---------------------------------------------------------
 
 _OPEN_BRACKET = {Status.LOST: "[", Status.RESTORED: "[", Status.ADDED: "<", Status.SUPERFLUOUS: "{"}
-_CLOSE = {"[": "]", "<": ">", "{": "}", "\u2e22": "\u2e23"}
 
 
 def format(reading: Reading, choice: tuple[Fraction, ...] | None = None) -> str:
@@ -384,15 +384,4 @@ def _value_of(notation: str, letter: str) -> int:
 
 
 def _join(pieces: list[tuple[str, str | None]]) -> str:
-    out, opened = [], None
-    for piece, bracket in pieces:
-        if bracket != opened:
-            if opened:
-                out.append(_CLOSE[opened])
-            if bracket:
-                out.append(bracket)
-            opened = bracket
-        out.append(piece)
-    if opened:
-        out.append(_CLOSE[opened])
-    return "".join(out).replace("[.][.]", "[..]")
+    return join_marked(pieces).replace("[.][.]", "[..]")

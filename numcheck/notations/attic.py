@@ -39,6 +39,7 @@ from ..errors import LimitError, NumcheckSyntaxError, NumcheckWarning
 from ..grammar_loader import parser_for
 from ..limits import MAX_PLACES
 from ..reading import Reading, Slot, Status
+from .marks import RAW, join_marked
 
 __all__ = ["NAME", "parse", "format", "render", "SIGN_VALUES", "BAD_EXAMPLES", "GAP_MAX_SIGNS"]
 
@@ -67,7 +68,6 @@ _WHOLE_VALUES = sorted((v for v in CANONICAL if v >= 1), reverse=True)
 GAP_MAX_SIGNS = 4
 _UNDERDOT = "\u0323"
 _BRACKET = {Status.LOST: "[", Status.RESTORED: "[", Status.ADDED: "<", Status.SUPERFLUOUS: "{"}
-_CLOSE = {"[": "]", "<": ">", "{": "}"}
 
 #: Known-bad inputs, the column (1-based) the error points at, and its label.
 BAD_EXAMPLES: list[tuple[str, int, str]] = [
@@ -316,21 +316,8 @@ def format(reading: Reading, choice: tuple[Fraction, ...] | None = None) -> str:
             pieces += [(ch, bracket) for ch in spell(value)]
         else:
             pieces += list(form)
-    out: list[str] = []
-    open_bracket = None
-    for piece, bracket in pieces:
-        if bracket == "gap":   # '[...]' carries its own brackets
-            bracket = None
-        if bracket != open_bracket:
-            if open_bracket:
-                out.append(_CLOSE[open_bracket])
-            if bracket:
-                out.append(bracket)
-            open_bracket = bracket
-        out.append(piece)
-    if open_bracket:
-        out.append(_CLOSE[open_bracket])
-    return "".join(out)
+    # '[...]' carries its own brackets.
+    return join_marked([(p, RAW if b == "gap" else b) for p, b in pieces])
 
 
 def render(reading: Reading, choice: tuple[Fraction, ...]) -> str:

@@ -37,7 +37,8 @@ from ..grammar_loader import parser_for
 from ..limits import GAP_MAX_PLACES, MAX_PLACES
 from ..reading import Reading, Slot, Status
 from . import sexagesimal
-from .sexagesimal import _assign_places
+from .sexagesimal import assign_places
+from .marks import join_marked
 
 __all__ = ["NAME", "parse", "format", "render", "sign_table", "SignInfo", "BAD_EXAMPLES", "is_cuneiform_sign"]
 
@@ -235,7 +236,7 @@ def _parse_signs(text: str) -> Reading:
         if opened is not None:
             raise _syntax(text, opened, f"a bracket '{text[opened]}' is opened and never closed",
                           f"a closing bracket for the {name} part")
-    slots = _assign_places(built_whole, built_frac)
+    slots = assign_places(built_whole, built_frac)
     return Reading(text=text, notation=NAME, slots=tuple(slots), base=60, floating=not has_semi)
 
 
@@ -413,7 +414,6 @@ def render(reading: Reading, choice: tuple[Fraction, ...]) -> str:
 
 
 _OPEN = {Status.LOST: "[", Status.RESTORED: "[", Status.ADDED: "<", Status.SUPERFLUOUS: "{"}
-_CLOSE = {"[": "]", "<": ">", "{": "}"}
 
 
 def _format_signs(reading: Reading, choice) -> str:
@@ -430,18 +430,7 @@ def _format_signs(reading: Reading, choice) -> str:
 
 
 def _bracketed(pieces: list[tuple[str, str | None]]) -> str:
-    out, opened = [], None
-    for piece, bracket in pieces:
-        if bracket != opened:
-            if opened:
-                out.append(_CLOSE[opened])
-            if bracket:
-                out.append(bracket)
-            opened = bracket
-        out.append(piece)
-    if opened:
-        out.append(_CLOSE[opened])
-    return "".join(out)
+    return join_marked(pieces)
 
 
 def _signs_for(value: int) -> str:

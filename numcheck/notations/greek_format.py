@@ -15,10 +15,10 @@ from ..reading import Reading, Slot, Status
 from .greek_build import letter_text
 from .greek_letters import CANONICAL, spell_parts
 from .greek_model import KERAIA, UNDERDOT, ZERO
+from .marks import RAW, join_marked
 
 __all__ = ["format", "render"]
 
-_CLOSE = {"[": "]", "<": ">", "{": "}"}
 _OPEN_STATUS = (Status.LOST, Status.UNREAD, Status.RESTORED)
 
 
@@ -120,22 +120,4 @@ def _unit_fraction_pieces(f, value: Fraction) -> list[tuple[str, str | None]]:
 
 def _merge(pieces: list[tuple[str, str | None]]) -> str:
     """Join pieces, one bracket around each run that shares it."""
-    out: list[str] = []
-    open_bracket = None
-    for text, bracket in pieces:
-        if bracket == "gap":
-            if open_bracket:
-                out.append(_CLOSE[open_bracket])
-                open_bracket = None
-            out.append(text)
-            continue
-        if bracket != open_bracket:
-            if open_bracket:
-                out.append(_CLOSE[open_bracket])
-            if bracket:
-                out.append(bracket)
-            open_bracket = bracket
-        out.append(text)
-    if open_bracket:
-        out.append(_CLOSE[open_bracket])
-    return "".join(out)
+    return join_marked([(text, RAW if bracket == "gap" else bracket) for text, bracket in pieces])

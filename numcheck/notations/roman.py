@@ -32,6 +32,7 @@ from ..errors import LimitError, NumcheckSyntaxError, NumcheckWarning
 from ..grammar_loader import parser_for
 from ..limits import GAP_MAX_PLACES, MAX_LOST_LETTERS, MAX_PLACES
 from ..reading import Reading, Slot, Status
+from .marks import join_marked
 
 __all__ = ["NAME", "parse", "format", "render", "LETTERS", "BAD_EXAMPLES", "evaluate"]
 
@@ -380,7 +381,6 @@ def _damaged_slots(text: str, letters: list[_Letter]) -> list[Slot]:
 # -- writing back ---------------------------------------------------------
 
 _OPEN = {Status.LOST: "[", Status.RESTORED: "[", Status.ADDED: "<", Status.SUPERFLUOUS: "{"}
-_CLOSE = {"[": "]", "<": ">", "{": "}"}
 
 
 def format(reading: Reading, choice: tuple[Fraction, ...] | None = None) -> str:
@@ -417,18 +417,7 @@ def _piece(x: _Letter) -> tuple[str, str | None]:
 
 
 def _join(pieces: list[tuple[str, str | None]]) -> str:
-    out, opened = [], None
-    for piece, bracket in pieces:
-        if bracket != opened:
-            if opened:
-                out.append(_CLOSE[opened])
-            if bracket:
-                out.append(bracket)
-            opened = bracket
-        out.append(piece)
-    if opened:
-        out.append(_CLOSE[opened])
-    return "".join(out).replace("[.][.]", "[..]")
+    return join_marked(pieces).replace("[.][.]", "[..]")
 
 
 def render(reading: Reading, choice: tuple[Fraction, ...]) -> str:

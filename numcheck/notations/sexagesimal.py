@@ -16,6 +16,7 @@ from ..errors import NumcheckRangeError, NumcheckSyntaxError
 from ..grammar_loader import parser_for
 from ..limits import GAP_MAX_PLACES, MAX_PLACES
 from ..reading import Reading, Slot, Status
+from .marks import SEPARATOR, join_marked
 
 __all__ = ["NAME", "parse", "format", "render", "parse_places", "BAD_EXAMPLES"]
 
@@ -143,12 +144,12 @@ def _build(text: str, tree: Tree, *, floating: bool, notation: str) -> Reading:
             raise NumcheckSyntaxError(
                 f"Cannot read {text!r}: a bracket '{text[opened]}' is opened and never closed",
                 text, opened, expected=f"a closing bracket for the {name} part")
-    slots = _assign_places(built_whole, built_frac)
+    slots = assign_places(built_whole, built_frac)
     return Reading(text=text, notation=notation, slots=tuple(slots), base=60, sign=sign,
                    floating=floating and not has_semi)
 
 
-def _assign_places(whole: list[Slot], fraction: list[Slot]) -> list[Slot]:
+def assign_places(whole: list[Slot], fraction: list[Slot]) -> list[Slot]:
     """Give every slot its exponent of 60.
 
     Whole places count up from the units place (right to left), fractional
@@ -326,7 +327,6 @@ def _close(text: str, tok: Token, state: dict, name: str, positions) -> None:
 # -- writing back ---------------------------------------------------------
 
 _OPEN = {Status.LOST: "[", Status.RESTORED: "[", Status.ADDED: "<", Status.SUPERFLUOUS: "{"}
-_CLOSE = {"[": "]", "<": ">", "{": "}"}
 
 
 def format(reading: Reading, choice: tuple[Fraction, ...] | None = None) -> str:
@@ -358,26 +358,8 @@ def format(reading: Reading, choice: tuple[Fraction, ...] | None = None) -> str:
         if sep:
             flat.append((sep, None, True))
         flat.extend((ch, br, False) for ch, br in chars)
-    out = ["-" if reading.sign < 0 else ""]
-    open_bracket = None
-    for i, (piece, bracket, is_sep) in enumerate(flat):
-        if is_sep:
-            nxt = flat[i + 1][1] if i + 1 < len(flat) else None
-            if open_bracket and nxt != open_bracket:
-                out.append(_CLOSE[open_bracket])
-                open_bracket = None
-            out.append(piece)
-            continue
-        if bracket != open_bracket:
-            if open_bracket:
-                out.append(_CLOSE[open_bracket])
-            if bracket:
-                out.append(bracket)
-            open_bracket = bracket
-        out.append(piece)
-    if open_bracket:
-        out.append(_CLOSE[open_bracket])
-    return "".join(out)
+    sign = "-" if reading.sign < 0 else ""
+    return sign + join_marked([(p, SEPARATOR if is_sep else b) for p, b, is_sep in flat])
 
 
 def _slot_chars(slot: Slot, chosen: Fraction | None) -> list[tuple[str, str | None]]:
