@@ -108,7 +108,7 @@ class UnknownNameError(NumcheckError):
         close = difflib.get_close_matches(str(name), self.choices, n=3, cutoff=0.5)
         hint = f" Did you mean {' or '.join(repr(c) for c in close)}?" if close else ""
         listed = ", ".join(self.choices)
-        super().__init__(f"Unknown {kind} {name!r}.{hint} Known {kind}s: {listed}.")
+        super().__init__(f"Unknown {kind} {name!r}.{hint} Known {kind} names: {listed}.")
 
 
 class LimitError(NumcheckError):
