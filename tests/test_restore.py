@@ -361,3 +361,11 @@ def test_beyond_int64_the_search_stays_exact():
     assert result.space == 60**12
     assert result.best.value == true
     assert result.best.probability == pytest.approx(0.5, rel=1e-6)
+
+
+def test_too_many_catalogue_values_keeps_the_strongest_and_says_so(catalogue, monkeypatch):
+    monkeypatch.setattr(limits, "RESTORE_MAX_MATCHES", 3)
+    result = restore("[x],[x],[x];[x],[x],[x],[x]", top=5)
+    assert any("only the" in n and "RESTORE_MAX_MATCHES" in n for n in result.notes)
+    weighed = {c.value for c in result.candidates if c.evidence}
+    assert 0 < len(weighed) <= 3

@@ -136,6 +136,42 @@ def _drop_broad(targets, grids, windows, notes) -> None:
     if broad:
         for wins in windows:
             wins[:] = [w for w in wins if w.target not in broad]
+    _keep_strongest_catalogue(targets, grids, windows, notes)
+
+
+def _keep_strongest_catalogue(targets, grids, windows, notes) -> None:
+    """When the catalogue could meet too many readings, weigh its strongest values only.
+
+    A number with almost every place lost can meet thousands of catalogue
+    values in every gap count and magnitude; rather than stop, the values
+    of highest weight are kept while the readings they can meet stay within
+    ``limits.RESTORE_MAX_MATCHES``, and the note says how many were left out.
+    """
+    bound: dict[int, int] = {}      # at most this many readings meet each target
+    for g, wins in zip(grids, windows):
+        count = g.sub.count
+        for w in wins:
+            bound[w.target] = bound.get(w.target, 0) + min(w.hi - w.lo + 1, count)
+    if sum(bound.values()) <= limits.RESTORE_MAX_MATCHES:
+        return
+    budget = limits.RESTORE_MAX_MATCHES - sum(n for t, n in bound.items() if targets[t].kind != "catalogue")
+    catalogue = sorted((t for t in bound if targets[t].kind == "catalogue"),
+                       key=lambda t: (-targets[t].weight, targets[t].value, t))
+    kept = set()
+    for t in catalogue:
+        if bound[t] > budget:
+            break
+        budget -= bound[t]
+        kept.add(t)
+    left = len(catalogue) - len(kept)
+    if not left:
+        return
+    for wins in windows:
+        wins[:] = [w for w in wins if targets[w.target].kind != "catalogue" or w.target in kept]
+    notes.append(f"The traces could meet {len(catalogue):,} catalogue values; only the {len(kept):,} of "
+                 f"highest weight were weighed (numcheck.limits.RESTORE_MAX_MATCHES = "
+                 f"{limits.RESTORE_MAX_MATCHES:,} readings). Fewer lost places, the unit, or an expected "
+                 f"value would narrow it.")
 
 
 def _candidate(targets: list[Target], row, support) -> Candidate:
