@@ -5,6 +5,7 @@ Published values used here are named with their source in
 ``numcheck.restore.scoring`` applied reading by reading.
 """
 
+import math
 from fractions import Fraction
 
 import pytest
@@ -369,3 +370,16 @@ def test_too_many_catalogue_values_keeps_the_strongest_and_says_so(catalogue, mo
     assert any("only the" in n and "RESTORE_MAX_MATCHES" in n for n in result.notes)
     weighed = {c.value for c in result.candidates if c.evidence}
     assert 0 < len(weighed) <= 3
+
+
+@given(st.integers(-500, 500), st.integers(1, 7), st.integers(1, 40), st.integers(1, 5),
+       st.integers(-30, 30), st.integers(0, 60))
+def test_kernel_mass_closed_form_equals_the_sum(cn, cd, tn, td, start, length):
+    from numcheck.restore import scoring
+    from numcheck.restore.search import kernel_mass
+
+    centre, tol = Fraction(cn, cd), Fraction(tn, td)
+    lo = math.ceil(centre - tol) + max(0, start)
+    hi = min(math.floor(centre + tol), lo + length)
+    brute = sum(scoring.kernel(float(abs(V - centre)), float(tol)) for V in range(lo, hi + 1))
+    assert kernel_mass(lo, hi, cn, cd, tol) == pytest.approx(brute, abs=1e-9)

@@ -71,7 +71,8 @@ class Window:
     lo: int
     hi: int
     target: int                             # index into the targets
-    centre: Fraction                        # the target in grid units
+    cn: int                                 # the target in grid units is cn / cd
+    cd: int
     tol: Fraction                           # the tolerance in grid units
     mass: float = 1.0                       # the kernel summed over every grid integer it accepts
 
@@ -152,28 +153,30 @@ def windows_for(grid: Grid, targets: list[Target], order: list[int] | None = Non
             hi = -((-(A + U * B)) // B) - 1
             if hi < grid.lo or lo > grid.hi:
                 continue
-            centre, tol = Fraction(A, B), Fraction(U)
+            cn, cd, tol = A, B, Fraction(U)
         else:
             centre = e.sign * t.value * grid.D / F
             tol = t.tolerance * grid.D / F
             lo = math.ceil(centre - tol)
             hi = math.floor(centre + tol)
+            cn, cd = centre.numerator, centre.denominator
         if hi < grid.lo or lo > grid.hi:
             continue
-        mass = kernel_mass(lo, hi, centre, tol)       # before the sub-space's range clips it
+        mass = kernel_mass(lo, hi, cn, cd, tol)       # before the sub-space's range clips it
         lo, hi = max(lo, grid.lo), min(hi, grid.hi)
         if lo <= hi:
-            out.append(Window(lo, hi, ti, centre, tol, mass))
+            out.append(Window(lo, hi, ti, cn, cd, tol, mass))
     return out
 
 
-def kernel_mass(lo: int, hi: int, centre: Fraction, tol: Fraction) -> float:
-    """The kernel summed over the integers lo..hi, in closed form (no enumeration).
+def kernel_mass(lo: int, hi: int, cn: int, cd: int, tol: Fraction) -> float:
+    """The kernel summed over the integers lo..hi around the centre cn/cd, in closed form.
 
     Each integer V counts ``1 - (1 - KERNEL_EDGE) * |V - centre| / tol``
-    (:func:`numcheck.restore.scoring.kernel`).
+    (:func:`numcheck.restore.scoring.kernel`); a long run is summed as two
+    arithmetic series, not one by one.
 
-    >>> kernel_mass(3, 3, Fraction(3), Fraction(1)), kernel_mass(2, 4, Fraction(3), Fraction(2))
+    >>> kernel_mass(3, 3, 3, 1, Fraction(1)), kernel_mass(2, 4, 3, 1, Fraction(2))
     (1.0, 2.5)
     """
     from .scoring import KERNEL_EDGE
@@ -182,15 +185,19 @@ def kernel_mass(lo: int, hi: int, centre: Fraction, tol: Fraction) -> float:
         return 0.0
     if tol == 0:
         return float(hi - lo + 1)
+    slope = (1.0 - KERNEL_EDGE) * tol.denominator / (cd * tol.numerator)
+    if hi - lo < 8:                 # the usual window: one or two places of the last digit
+        return float(sum(1.0 - slope * abs(V * cd - cn) for V in range(lo, hi + 1)))
 
-    def total(a: int, b: int) -> Fraction:      # sum of V over a..b
-        return Fraction((a + b) * (b - a + 1), 2) if b >= a else Fraction(0)
+    def total(a: int, b: int) -> int:       # twice the sum of V over a..b
+        return (a + b) * (b - a + 1) if b >= a else 0
 
-    f = math.floor(centre)
+    f = cn // cd
     left_hi, right_lo = min(hi, f), max(lo, f + 1)
     n1, n2 = max(0, left_hi - lo + 1), max(0, hi - right_lo + 1)
-    distance = (n1 * centre - total(lo, left_hi)) + (total(right_lo, hi) - n2 * centre)
-    return float((hi - lo + 1) - (1 - Fraction(KERNEL_EDGE).limit_denominator()) * distance / tol)
+    # twice the sum of |V * cd - cn| over the run, exactly in integers
+    twice = (2 * n1 * cn - cd * total(lo, left_hi)) + (cd * total(right_lo, hi) - 2 * n2 * cn)
+    return float(hi - lo + 1) - slope * twice / 2
 
 
 def estimate(grid: Grid, window: Window) -> float:
@@ -378,8 +385,8 @@ def _add_row(rows_sub, rows_choice, rows_value, rows_prior, rows_hits, grid, cho
 def _kernel(V: np.ndarray, w: Window) -> np.ndarray:
     from .scoring import KERNEL_EDGE
 
-    base = math.floor(w.centre)
-    frac = float(w.centre - base)
+    base = w.cn // w.cd
+    frac = (w.cn - base * w.cd) / w.cd
     d = np.abs((V - base).astype(float) - frac)
     if w.tol == 0:
         return np.ones(len(V))
