@@ -383,3 +383,9 @@ def test_kernel_mass_closed_form_equals_the_sum(cn, cd, tn, td, start, length):
     hi = min(math.floor(centre + tol), lo + length)
     brute = sum(scoring.kernel(float(abs(V - centre)), float(tol)) for V in range(lo, hi + 1))
     assert kernel_mass(lo, hi, cn, cd, tol) == pytest.approx(brute, abs=1e-9)
+
+
+def test_a_damaged_expected_value_accepts_any_of_its_readings():
+    result = restore("2[x];30", expect="2[x];3[x]", use_catalogue=False, top=10)
+    assert "any of its readings" in result.best.reasons[0]
+    assert all(c.evidence == ("expect",) for c in result.candidates)

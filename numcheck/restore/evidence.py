@@ -94,6 +94,10 @@ def _expect_target(reading: Reading, expect, notation: str | None) -> Target:
             if notation is None:
                 raise
             expected = read(expect, notation=notation)
+        if expected.damaged:        # a damaged expectation: any value it allows
+            lo, hi = expected.min, expected.max
+            return Target((lo + hi) / 2, (hi - lo) / 2, scoring.EXPECT_WEIGHT,
+                          f"the expected value {expect} (any of its readings)", "expect", id="expect")
         value = expected.value
         label = f"the expected value {expect}"
     else:
