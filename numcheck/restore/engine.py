@@ -71,37 +71,10 @@ def restore(reading_or_text, *, notation=None, unit=None, expect=None, context=(
     windows = [windows_for(g, targets, order, values) for g in grids]
     _drop_broad(targets, grids, windows, notes)
     match, norm, reach = find_matches(space, grids, windows, len(targets))
-
     possible = {i for i in range(len(targets)) if norm[i] > 0}
-    groups = {i: t.group for i, t in enumerate(targets) if t.group}
-    pi0, pis = scoring.mixture({i: t.weight for i, t in enumerate(targets)}, possible, groups,
-                               {"catalogue": scoring.CATALOGUE_WEIGHT},
-                               {i: float(reach[i]) for i in possible})
-    for r, hits in enumerate(match.hits):
-        match.score[r] = match.prior[r] * (pi0 + sum(pis[t] * k / norm[t] for t, k in hits))
-    matched_prior = float(match.prior.sum())
-    unmatched = max(0.0, pi0 * (1.0 - matched_prior))
-
-    rows = []  # (probability, prior, sub index, V, grid, choice, hits)
-    by_index = {g.sub.index: g for g in grids}
-    # Only the best rows need the full (exact) tie-break; numpy picks them first.
-    best = np.lexsort((-match.prior, -match.score))[: 4 * top + 16]
-    for r in best:
-        g = by_index[int(match.sub[r])]
-        choice = tuple(int(c) for c in match.choice[r][:len(g.contrib)])
-        rows.append((float(match.score[r]), float(match.prior[r]), g.sub.index, match.value[r], g,
-                     choice, match.hits[r]))
-    rows.sort(key=_rank_key)
-    rows = rows[:top]
-    merged = [merge_windows(w) for w in windows]
-
-    def agrees(g, V) -> bool:      # a reading some evidence touches is already in the rows
-        return inside(merged[g.sub.index], V)
-
-    for g, choice, V, prior in top_by_prior(grids, agrees, top, limits.RESTORE_MAX_NODES):
-        rows.append((pi0 * prior, prior, g.sub.index, V, g, choice, []))
-    rows.sort(key=_rank_key)
-    rows = rows[:top]
+    pi0, pis = _weigh(targets, match, norm, reach, possible)
+    unmatched = max(0.0, pi0 * (1.0 - float(match.prior.sum())))
+    rows = _best_rows(grids, windows, match, pi0, top)
 
     def support(t: int, k: float) -> float:   # how much of a reading's probability evidence t gives
         return pis.get(t, 0.0) * k / norm[t] if norm[t] > 0 else 0.0
@@ -113,6 +86,38 @@ def restore(reading_or_text, *, notation=None, unit=None, expect=None, context=(
                 for i, t in enumerate(targets) if t.kind != "catalogue" or i in possible]
     return RestoreResult(reading.text, reading.notation, candidates, space.count, unmatched,
                          notes, evidence)
+
+
+def _weigh(targets, match, norm, reach, possible):
+    """The mixing weights of the scoring model, and every agreeing reading's probability."""
+    groups = {i: t.group for i, t in enumerate(targets) if t.group}
+    pi0, pis = scoring.mixture({i: t.weight for i, t in enumerate(targets)}, possible, groups,
+                               {"catalogue": scoring.CATALOGUE_WEIGHT},
+                               {i: float(reach[i]) for i in possible})
+    for r, hits in enumerate(match.hits):
+        match.score[r] = match.prior[r] * (pi0 + sum(pis[t] * k / norm[t] for t, k in hits))
+    return pi0, pis
+
+
+def _best_rows(grids, windows, match, pi0, top):
+    """The *top* readings: the best that agree with evidence, and the best the traces favour."""
+    rows = []  # (probability, prior, sub index, V, grid, choice, hits)
+    by_index = {g.sub.index: g for g in grids}
+    # Only the best rows need the full (exact) tie-break; numpy picks them first.
+    for r in np.lexsort((-match.prior, -match.score))[: 4 * top + 16]:
+        g = by_index[int(match.sub[r])]
+        choice = tuple(int(c) for c in match.choice[r][:len(g.contrib)])
+        rows.append((float(match.score[r]), float(match.prior[r]), g.sub.index, match.value[r], g,
+                     choice, match.hits[r]))
+    merged = [merge_windows(w) for w in windows]
+
+    def agrees(g, V) -> bool:      # a reading some evidence touches is already among the rows
+        return inside(merged[g.sub.index], V)
+
+    for g, choice, V, prior in top_by_prior(grids, agrees, top, limits.RESTORE_MAX_NODES):
+        rows.append((pi0 * prior, prior, g.sub.index, V, g, choice, []))
+    rows.sort(key=_rank_key)
+    return rows[:top]
 
 
 def _rank_key(row):
