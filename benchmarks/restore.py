@@ -141,7 +141,7 @@ def main(full: bool = False) -> int:
           f"process maximum resident size {rss:.0f} MiB")
     print()
     print(f"for information (not a goal): against the hand-tuned integer baseline numcheck is "
-          f"{ratios['3 lost places'][1]:.0f}x faster at 3 lost places; most of numcheck's time there "
+          f"{ratios['3 lost places'][1]:.0f}x faster at 3 lost places; about half of numcheck's time there "
           f"is reading the text and writing the ten candidates, not the search")
     print()
     goals = [
