@@ -285,7 +285,7 @@ def _totals(text: str, counted: list[_Mark], fractional: bool) -> tuple[Fraction
     if fractional:
         over = [t for t in totals if t > 59]
         totals = {t for t in totals if t <= 59}
-        if not totals:
+        if over and not totals:
             raise NumcheckRangeError(
                 f"The fractional place {text[counted[0].start:counted[-1].end]!r} is {min(over)}, "
                 "but a sexagesimal place holds 0 to 59.", value=min(over), legal="0 to 59",

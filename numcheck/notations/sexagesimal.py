@@ -276,14 +276,17 @@ def _place_values(text, counted: list[_Pos], written: str, start: int):
             options.append(tuple(d * weight for d in range(10)))
         else:
             options.append((int(pos.char) * weight,))
-    sums = {0}
+    # Sums over 59 are dropped as they arise (no digit is negative), so that a
+    # place of many x's costs no more than a place of two.
+    sums, least = {0}, 0
     for opt in options:
-        sums = {a + b for a in sums for b in opt}
-    legal = sorted(v for v in sums if v <= 59)
+        least += min(opt)
+        sums = {a + b for a in sums for b in opt if a + b <= 59}
+    legal = sorted(sums)
     if not legal:
         raise NumcheckRangeError(
-            f"The place {written!r} is {min(sums)} or more, but a sexagesimal place holds 0 to 59.",
-            value=min(sums), legal="0 to 59", text=text, position=start)
+            f"The place {written!r} is {least} or more, but a sexagesimal place holds 0 to 59.",
+            value=least, legal="0 to 59", text=text, position=start)
     editor = None
     if any(p.kind is Status.RESTORED for p in counted):
         editor_value = int("".join(p.char if p.char != "x" else "0" for p in counted))
