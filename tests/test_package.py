@@ -41,3 +41,17 @@ MODULES = ["numcheck.reading", "numcheck.errors", "numcheck.reader", "numcheck.n
 def test_doctests(name):
     result = doctest.testmod(importlib.import_module(name), optionflags=doctest.ELLIPSIS)
     assert result.failed == 0
+
+
+@pytest.mark.parametrize("name", ["identify", "restore", "audit"])
+def test_front_door_functions_stay_callable_after_their_package_is_imported(name):
+    importlib.import_module(f"numcheck.{name}")
+    assert callable(getattr(numcheck, name))
+    assert callable(importlib.import_module(f"numcheck.{name}"))
+
+
+def test_restore_through_the_front_door_twice():
+    first = numcheck.restore("29;31,5[x],8,20", unit="days")
+    second = numcheck.restore("29;31,5[x],8,20", unit="days")
+    assert first.to_dict() == second.to_dict()
+    assert first.candidates[0].text == "29;31,5[0],8,20"

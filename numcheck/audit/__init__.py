@@ -16,9 +16,8 @@ scribe should have written, and restores damaged cells from the scheme.
 from __future__ import annotations
 
 import gc
-import sys as _sys
-import types as _types
 
+from .._callable import make_package_callable
 from .detect import detect_schemes, make_frame
 from .diagnose import diagnose
 from .restoration import restore_cells
@@ -63,16 +62,4 @@ def audit(table, *, notation: str | None = None, relation: str | None = None,
     return AuditResult(tab, frame, schemes, findings, restorations, unchecked, true)
 
 
-class _CallableModule(_types.ModuleType):
-    """This package, callable as :func:`audit`.
-
-    ``numcheck.audit`` is both this package and the front door's function:
-    once the package is imported, Python binds the name on ``numcheck`` to
-    the package, so the package must answer a call the way the function does.
-    """
-
-    def __call__(self, *args, **kwargs) -> AuditResult:
-        return audit(*args, **kwargs)
-
-
-_sys.modules[__name__].__class__ = _CallableModule
+make_package_callable(__name__, audit)

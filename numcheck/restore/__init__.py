@@ -8,9 +8,8 @@ caller knows from the context (a table's scheme, a relation).  The scoring
 model is documented in :mod:`numcheck.restore.scoring`.
 """
 
-import sys as _sys
-import types as _types
 
+from .._callable import make_package_callable
 from .engine import restore
 from .evidence import Evidence
 from .result import Candidate, RestoreResult
@@ -18,16 +17,4 @@ from .result import Candidate, RestoreResult
 __all__ = ["restore", "Evidence", "RestoreResult", "Candidate"]
 
 
-class _CallableModule(_types.ModuleType):
-    """This package, callable as :func:`restore`.
-
-    ``numcheck.restore`` is both this package and the front door's function:
-    once the package is imported, Python binds the name on ``numcheck`` to
-    the package, so the package must answer a call the way the function does.
-    """
-
-    def __call__(self, *args, **kwargs) -> RestoreResult:
-        return restore(*args, **kwargs)
-
-
-_sys.modules[__name__].__class__ = _CallableModule
+make_package_callable(__name__, restore)
