@@ -48,7 +48,7 @@ def stand_in(values=PUBLISHED, weights=None):
     """A catalogue_targets look-alike over *values* (with their *weights*, 1 by default)."""
     weights = weights or [1.0] * len(values)
 
-    def catalogue_targets(lo, hi, unit=None, *, floating=False):
+    def catalogue_targets(lo, hi, unit=None, *, floating=False, max_factor=None):
         return [StandInTarget(v, u, i, s, weight=w) for (i, v, u, s), w in zip(values, weights)
                 if lo <= v <= hi and (unit is None or u == unit)]
     return catalogue_targets

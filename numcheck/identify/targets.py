@@ -257,12 +257,14 @@ def table(unit: str | None) -> Table:
     )
 
 
-def candidates(tab: Table, lo: float, hi: float) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+def candidates(tab: Table, lo: float, hi: float, *, multiples: bool = True
+               ) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
     """Arrays (item index, factor numerator, factor denominator) of every
     item x factor whose float lies in [lo, hi].
 
     Simple factors by binary search; whole multiples (past the simple ones,
-    up to IDENTIFY_MAX_MULTIPLE) of periods by rounding, all periods at once.
+    up to IDENTIFY_MAX_MULTIPLE) of periods by rounding, all periods at once,
+    unless ``multiples`` is False.
     """
     a = int(np.searchsorted(tab.sorted_values, lo, side="left"))
     b = int(np.searchsorted(tab.sorted_values, hi, side="right"))
@@ -270,7 +272,7 @@ def candidates(tab: Table, lo: float, hi: float) -> tuple[np.ndarray, np.ndarray
     fidx = tab.sorted_factor[a:b]
     nums = [tab.simple_num[fidx]]
     dens = [tab.simple_den[fidx]]
-    if len(tab.period_values) and hi > 0:
+    if multiples and len(tab.period_values) and hi > 0:
         pv = tab.period_values
         first = np.maximum(np.ceil(lo / pv), limits.IDENTIFY_MAX_SIMPLE + 1).astype(np.int64)
         last = np.minimum(np.floor(hi / pv), limits.IDENTIFY_MAX_MULTIPLE).astype(np.int64)
@@ -304,7 +306,8 @@ class Target:
     weight: float
 
 
-def catalogue_targets(lo, hi, unit: str | None = None, *, floating: bool = False) -> list[Target]:
+def catalogue_targets(lo, hi, unit: str | None = None, *, floating: bool = False,
+                      max_factor: int | None = None) -> list[Target]:
     """Every catalogue value x simple factor (or period x whole multiple) in [lo, hi].
 
     With *unit*, catalogue numbers convertible to it are converted exactly
@@ -313,6 +316,9 @@ def catalogue_targets(lo, hi, unit: str | None = None, *, floating: bool = False
     a target ``t`` is returned as ``t / 60**scale`` for every scale that
     brings it into [lo, hi].  Sorted by value; at most
     ``limits.IDENTIFY_MAX_TARGETS`` (the highest weights are kept).
+    With *max_factor*, only factors n/m with n, m <= max_factor are tried
+    (no long whole multiples of periods): what restoration needs, and much
+    faster over a wide range.
 
     >>> [t.id for t in catalogue_targets(6585, 6586, "days") if t.factor == 1][:1]
     ['saros_almagest']
@@ -328,7 +334,10 @@ def catalogue_targets(lo, hi, unit: str | None = None, *, floating: bool = False
         if hi * p <= 0:
             continue
         flo, fhi = float(lo * p) * (1 - 1e-12), float(hi * p) * (1 + 1e-12)
-        items, nums, dens = candidates(tab, flo, fhi)
+        items, nums, dens = candidates(tab, flo, fhi, multiples=max_factor is None)
+        if max_factor is not None and len(items):
+            keep = (nums <= max_factor) & (dens <= max_factor)
+            items, nums, dens = items[keep], nums[keep], dens[keep]
         if not len(items):
             continue
         weight = tab.confidence[items] / (1.0 + np.log(nums.astype(float) * dens))

@@ -140,7 +140,7 @@ def _catalogue(reading: Reading, space, unit: str | None, notes: list[str]) -> l
     best: dict[Fraction, list] = {}   # value -> [weight, label, id, others]
     top = scoring.CATALOGUE_MAX_FACTOR
     for lo, hi in ranges:
-        for t in source(lo, hi, unit):
+        for t in source(lo, hi, unit, max_factor=top):
             factor = Fraction(getattr(t, "factor", 1))
             if factor.numerator > top or factor.denominator > top:
                 continue
