@@ -359,6 +359,9 @@ def _damaged_slots(text: str, letters: list[_Letter]) -> list[Slot]:
     if all(x.status is Status.RESTORED and x.kind == "letter" for x in restored):
         editor_total, _ = _evaluate_or_raise(text, counted, [x.value for x in counted])
         editor = Fraction(editor_total)
+        # A restoration in a letter the search does not try (ↁ, an overline)
+        # is still one of the readings the traces allow: the editor's.
+        spellings.setdefault(editor_total, tuple(x.text for x in restored))
     kinds = [x.status for x in counted] + [Status.DOUBTFUL for x in counted if x.doubtful]
     worst = max(kinds, key=lambda s: {Status.READ: 0, Status.ADDED: 1, Status.DOUBTFUL: 2,
                                       Status.RESTORED: 3, Status.UNREAD: 4, Status.LOST: 5}[s])
