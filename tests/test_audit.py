@@ -396,3 +396,17 @@ def test_carried_slip_in_a_zigzag_follows_the_scribes_own_turns(lunar):
     later = [f["row"] for f in r.flags if f["kind"] == "carried-forward"]
     assert later == [k + 1 for k in range(row, N) if A2[k] != A[k]]
     assert len(later) > 20
+
+
+def test_place_shift_correction_has_the_width_the_column_writes():
+    # A column that writes its final empty places (…,0): a value shifted one
+    # place down gains a place; the correction must be written as the column
+    # writes, not with the shifted cell's extra place.
+    import pandas as pd
+
+    cells = ["28;0,0", "28;18,0", "28;36,0", "28;54,0", "29;12,0", "29;30,0", "29;48,0", "30;6,0"]
+    shifted = list(cells)
+    shifted[4] = "0;29,12,0"                                   # written one place too low
+    d = audit(pd.DataFrame({"A": shifted})).to_dict()
+    (flag,) = d["flags"]
+    assert (flag["row"], flag["kind"], flag["expected"]) == (5, "place-shift", "29;12,0")

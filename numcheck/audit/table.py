@@ -19,6 +19,7 @@ import functools
 import io
 import math
 import re
+from collections import Counter
 from dataclasses import dataclass, field
 from fractions import Fraction
 from pathlib import Path
@@ -99,16 +100,23 @@ class Column:
     def values(self) -> list[Fraction | None]:
         return [c.value for c in self.cells]
 
+    @functools.cached_property
+    def usual_places(self) -> int:
+        """The number of fractional places most cells of the column write."""
+        usual = Counter(c.places for c in self.cells if c.value is not None).most_common(1)
+        return usual[0][0] if usual else 0
+
     def write(self, index: int, value: Fraction) -> str:
         """*value* as the scribe of this column would write it in row *index* (0-based).
 
         In the cell's notation; final empty places only where the column
-        writes them (to the cell's own number of places).
+        writes them, to the number of places the column usually writes (a
+        cell written one place off must not set the width of its correction).
         """
         from ..slips import write_value
         cell = self.cells[index]
         return write_value(value, notation=cell.notation,
-                           places=cell.places if self.final_zeros else 0,
+                           places=self.usual_places if self.final_zeros else 0,
                            floating=cell.floating, sign_name=cell.sign_name,
                            longitude=self.longitude)
 
