@@ -161,12 +161,19 @@ def annotate_folder(in_dir: str | os.PathLike, out_dir: str | os.PathLike, *,
 
 # -- audit ----------------------------------------------------------------
 
-def _load_table(path: Path, notation: str | None):
-    """A table to give the audit: a TEI file's first <table>, else the file itself."""
+def load_table(path: Path, notation: str | None):
+    """A table to give the audit, and the notation of its cells.
+
+    A TEI file gives its first ``<table>`` (its cells' notation read from the
+    letters and ``xml:lang`` when *notation* is None); any other file is
+    given as it is.
+    """
+    path = Path(path)
     if path.suffix.lower() == ".xml":
         from .tei_table import table_to_dataframe
-        return table_to_dataframe(path, notation=notation)
-    return str(path)
+        frame = table_to_dataframe(path, notation=notation)
+        return frame, notation or frame.attrs.get("notation")
+    return str(path), notation
 
 
 def _audit_one(job: tuple) -> dict:
@@ -177,7 +184,7 @@ def _audit_one(job: tuple) -> dict:
 
     entry: dict = {"file": rel}
     try:
-        table = _load_table(Path(src), notation)
+        table, notation = load_table(Path(src), notation)
     except NoTableError as err:
         entry["skipped"] = str(err)
         return entry
@@ -185,8 +192,7 @@ def _audit_one(job: tuple) -> dict:
         entry["error"] = str(err)
         return entry
     try:
-        attrs = getattr(table, "attrs", {})
-        result = audit(table, notation=notation or attrs.get("notation"), relation=relation)
+        result = audit(table, notation=notation, relation=relation)
     except NumcheckError as err:
         entry["error"] = str(err)
         return entry

@@ -134,3 +134,18 @@ def test_cli_annotate_folder_table(xml_folder, tmp_path, capsys):
     text = capsys.readouterr().out
     assert "numcheck annotate" in text
     assert "broken.xml" in text and "malformed XML" in " ".join(text.split())
+
+
+def test_audit_command_takes_a_single_tei_file(capsys):
+    # The demo papyrus: its <table> is audited like a TSV, the notation read
+    # from its letters (the demo generator put one ten-slip in it).
+    import json
+    from importlib import resources
+
+    from numcheck.cli import main
+
+    papyrus = resources.files("numcheck") / "data" / "demo" / "papyrus.xml"
+    assert main(["audit", str(papyrus), "--json"]) == 0
+    data = json.loads(capsys.readouterr().out)
+    assert [f["kind"] for f in data["flags"]] == ["ten-slip"]
+    assert data["restorations"]
