@@ -29,7 +29,7 @@ import unicodedata
 from .calendars_dates import CalendarDate, calendar_named, date_from_parts
 from .calendars_names import eras, find_era, is_month_name, month_named, normalise
 from .errors import LimitError, NumcheckRangeError, NumcheckSyntaxError, UnknownNameError
-from .limits import MAX_TEXT_LENGTH
+from . import limits
 
 __all__ = ["parse_date", "DATE_EXAMPLES"]
 
@@ -77,8 +77,8 @@ def parse_date(text: str, calendar: str = "julian") -> CalendarDate:
     """
     if not isinstance(text, str):
         raise NumcheckSyntaxError(f"A date must be text, not {type(text).__name__}", "", 0)
-    if len(text) > MAX_TEXT_LENGTH:
-        raise LimitError("length of the date text", len(text), MAX_TEXT_LENGTH,
+    if len(text) > limits.MAX_TEXT_LENGTH:
+        raise LimitError("length of the date text", len(text), limits.MAX_TEXT_LENGTH,
                          "Give one date of a few words.")
     text = unicodedata.normalize("NFC", text)
     calendar = calendar_named(calendar)

@@ -15,7 +15,7 @@ import unicodedata
 from dataclasses import replace
 
 from .errors import LimitError, NumcheckSyntaxError
-from .limits import MAX_TEXT_LENGTH
+from . import limits
 from .notations import NOTATIONS, notation_module
 from .notations import quantity
 from .notations.detect import detect_notation
@@ -36,8 +36,8 @@ def read(text: str, notation: str | None = None, unit: str | None = None) -> Rea
     """
     if not isinstance(text, str):
         raise NumcheckSyntaxError(f"Expected a text to read, got {type(text).__name__}", "", 0)
-    if len(text) > MAX_TEXT_LENGTH:
-        raise LimitError("length of the text", f"{len(text)} characters", MAX_TEXT_LENGTH,
+    if len(text) > limits.MAX_TEXT_LENGTH:
+        raise LimitError("length of the text", f"{len(text)} characters", limits.MAX_TEXT_LENGTH,
                          "Set numcheck.limits.MAX_TEXT_LENGTH higher to read it.")
     normal = unicodedata.normalize("NFC", text).strip()
     if notation is not None and notation not in NOTATIONS:

@@ -24,7 +24,7 @@ from dataclasses import dataclass
 from fractions import Fraction
 
 from .errors import LimitError, NumcheckRangeError, UnknownNameError
-from .limits import RELATE_MAX_SEARCH_YEARS
+from . import limits
 from .reading import decimal_text, exact_text
 from .relations_cycles import BODIES, CYCLES, UNITS, PeriodSet, unit_named
 from .relations_known import KnownRelation, matching, matching_spans
@@ -332,9 +332,9 @@ def search(bodies, *, max_years: int = DEFAULT_SEARCH_YEARS, values: str = "mode
     bodies = _bodies(bodies)
     if isinstance(max_years, bool) or not isinstance(max_years, int) or max_years < 1:
         raise NumcheckRangeError(f"--max-years {max_years!r} is not a number of years.",
-                                 value=max_years, legal=f"a whole number from 1 to {RELATE_MAX_SEARCH_YEARS}")
-    if max_years > RELATE_MAX_SEARCH_YEARS:
-        raise LimitError("longest span to search, in years", max_years, RELATE_MAX_SEARCH_YEARS,
+                                 value=max_years, legal=f"a whole number from 1 to {limits.RELATE_MAX_SEARCH_YEARS}")
+    if max_years > limits.RELATE_MAX_SEARCH_YEARS:
+        raise LimitError("longest span to search, in years", max_years, limits.RELATE_MAX_SEARCH_YEARS,
                          "Search a shorter span, or raise numcheck.limits.RELATE_MAX_SEARCH_YEARS.")
     periods = PeriodSet(values, tradition)
     year, year_by = periods.unit_days("years")

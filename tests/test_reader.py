@@ -23,7 +23,6 @@ def test_surrounding_spaces_are_dropped():
 
 def test_text_longer_than_the_limit(monkeypatch):
     monkeypatch.setattr(limits, "MAX_TEXT_LENGTH", 10)
-    monkeypatch.setattr("numcheck.reader.MAX_TEXT_LENGTH", 10)
     with pytest.raises(LimitError, match="MAX_TEXT_LENGTH"):
         read("1," * 10 + "1")
 

@@ -25,7 +25,7 @@ from fractions import Fraction
 from pathlib import Path
 
 from ..errors import LimitError, NumcheckError, UnknownNameError
-from ..limits import MAX_TABLE_CELLS
+from .. import limits
 from ..reader import read
 from ..reading import Reading
 from ..units import ZODIAC, zodiac_index
@@ -233,8 +233,8 @@ def _build(header, rows, *, notation, columns, source) -> Table:
     if not rows:
         raise NumcheckError(f"The table {source} is empty: it has a header ({', '.join(header)}) "
                             "but no data rows.")
-    if len(rows) * len(header) > MAX_TABLE_CELLS:
-        raise LimitError("number of cells in the table", len(rows) * len(header), MAX_TABLE_CELLS,
+    if len(rows) * len(header) > limits.MAX_TABLE_CELLS:
+        raise LimitError("number of cells in the table", len(rows) * len(header), limits.MAX_TABLE_CELLS,
                          "Set numcheck.limits.MAX_TABLE_CELLS higher to audit it.")
     for j, name in enumerate(header):
         if not name:

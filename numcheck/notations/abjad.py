@@ -33,7 +33,7 @@ from lark.exceptions import UnexpectedCharacters, UnexpectedInput
 
 from ..errors import LimitError, NumcheckRangeError, NumcheckSyntaxError
 from ..grammar_loader import parser_for
-from ..limits import GAP_MAX_PLACES, MAX_LOST_LETTERS, MAX_PLACES
+from .. import limits
 from ..reading import Reading, Slot, Status
 from .marks import join_marked
 
@@ -144,8 +144,8 @@ def parse(text: str, *, notation: str = NAME) -> Reading:
                 else "a mark in the wrong place")
         raise _error(text, min(pos, len(text)), what, _EXPECTED) from None
     groups = [list(g.children) for g in tree.children]
-    if len(groups) > MAX_PLACES:
-        raise LimitError("number of places", len(groups), MAX_PLACES,
+    if len(groups) > limits.MAX_PLACES:
+        raise LimitError("number of places", len(groups), limits.MAX_PLACES,
                          "Set numcheck.limits.MAX_PLACES higher to read it.")
     values = letter_values(notation)
     all_values = tuple(sorted({v for vs in values.values() for v in vs}))
@@ -239,7 +239,7 @@ def _group_slot(text: str, marks: list[_Mark], place: int, fractional: bool,
                     status=Status.SUPERFLUOUS, text=written, span=(start, end), form=tuple(marks))
     if fractional and len(counted) == 1 and counted[0].kind == "gap":
         return Slot(values=tuple(Fraction(v) for v in range(60)), place=place, status=Status.LOST,
-                    text=written, span=(start, end), gap=(1, GAP_MAX_PLACES), form=())
+                    text=written, span=(start, end), gap=(1, limits.GAP_MAX_PLACES), form=())
     zeros = [m for m in counted if m.kind == "zero"]
     if zeros and len(counted) > 1:
         raise _error(text, zeros[0].start, "the zero sign shares its place with letters",
@@ -272,10 +272,10 @@ def _check_order(text: str, known: list[_Mark], as_written: bool = False) -> Non
 
 def _totals(text: str, counted: list[_Mark], fractional: bool) -> tuple[Fraction, ...]:
     """Every total the group's letters allow (larger first, one letter per order)."""
-    widths = [range(1, GAP_MAX_PLACES + 1) if m.kind == "gap" else (1,) for m in counted]
+    widths = [range(1, limits.GAP_MAX_PLACES + 1) if m.kind == "gap" else (1,) for m in counted]
     open_most = sum(max(w) for m, w in zip(counted, widths) if len(m.options) > 1)
-    if open_most > MAX_LOST_LETTERS:
-        raise LimitError("number of lost letters to try", open_most, MAX_LOST_LETTERS,
+    if open_most > limits.MAX_LOST_LETTERS:
+        raise LimitError("number of lost letters to try", open_most, limits.MAX_LOST_LETTERS,
                          "Set numcheck.limits.MAX_LOST_LETTERS higher to read it.")
     totals: set[int] = set()
     for counts in itertools.product(*widths):

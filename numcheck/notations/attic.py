@@ -37,7 +37,7 @@ from lark.exceptions import UnexpectedCharacters, UnexpectedInput
 
 from ..errors import LimitError, NumcheckSyntaxError, NumcheckWarning
 from ..grammar_loader import parser_for
-from ..limits import MAX_PLACES
+from .. import limits
 from ..reading import Reading, Slot, Status
 from .marks import RAW, join_marked
 
@@ -132,8 +132,8 @@ def parse(text: str) -> Reading:
             _fail(text, label, err.pos_in_stream, expected)
         _fail(text, "the number ends too early", len(text), "a sign")
     signs = _signs(text, [t for t in tree.children if isinstance(t, Token)])
-    if len(signs) > MAX_PLACES:
-        raise LimitError("number of signs", len(signs), MAX_PLACES,
+    if len(signs) > limits.MAX_PLACES:
+        raise LimitError("number of signs", len(signs), limits.MAX_PLACES,
                          "Set numcheck.limits.MAX_PLACES higher to read it.")
     if not any(s.status is not Status.SUPERFLUOUS for s in signs):
         _fail(text, "no sign that counts", signs[0].start if signs else 0,

@@ -34,7 +34,7 @@ from lark.exceptions import UnexpectedCharacters, UnexpectedInput
 
 from ..errors import LimitError, NumcheckRangeError, NumcheckSyntaxError
 from ..grammar_loader import parser_for
-from ..limits import GAP_MAX_PLACES, MAX_PLACES
+from .. import limits
 from ..reading import Reading, Slot, Status
 from . import sexagesimal
 from .sexagesimal import assign_places
@@ -226,8 +226,8 @@ def _parse_signs(text: str) -> Reading:
             whole = list(child.children)
         else:
             fraction = list(child.children)
-    if len(whole) + len(fraction) > MAX_PLACES:
-        raise LimitError("number of places", len(whole) + len(fraction), MAX_PLACES,
+    if len(whole) + len(fraction) > limits.MAX_PLACES:
+        raise LimitError("number of places", len(whole) + len(fraction), limits.MAX_PLACES,
                          "Set numcheck.limits.MAX_PLACES higher to read it.")
     state: dict[str, int | None] = {"lost": None, "added": None, "superfluous": None}
     built_whole = [_sign_place(text, p.children, state) for p in whole]
@@ -289,7 +289,7 @@ def _sign_place(text: str, tokens: list[Token], state: dict) -> Slot:
             raise _syntax(text, gap.start_pos, "'[...]' (lost places, number unknown) must stand "
                           "as a place of its own", "a space before and after '[...]'")
         return Slot(values=_ANY, status=Status.LOST, text=written, span=(start, end),
-                    gap=(1, GAP_MAX_PLACES), form=())
+                    gap=(1, limits.GAP_MAX_PLACES), form=())
     if not items:
         raise _syntax(text, start, "a place with no sign", "a sign, x or n in every place")
     counted = [i for i in items if i.status is not Status.SUPERFLUOUS]

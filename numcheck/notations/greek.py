@@ -51,7 +51,7 @@ from lark.exceptions import UnexpectedCharacters, UnexpectedInput
 
 from ..errors import LimitError, NumcheckSyntaxError, NumcheckWarning
 from ..grammar_loader import parser_for
-from ..limits import MAX_PLACES
+from .. import limits
 from ..reading import Reading, Slot, Status
 from .greek_build import group_slots
 from .greek_format import format, render
@@ -161,8 +161,8 @@ def parse(text: str, *, ascending: bool = False, notation: str = NAME) -> Readin
     for name, opened in state.items():
         if opened is not None:
             fail(text, "a bracket opened and never closed", opened, f"a closing bracket for the {name} part")
-    if sum(len(items) for items, _ in groups) > MAX_PLACES:
-        raise LimitError("number of signs", sum(len(i) for i, _ in groups), MAX_PLACES,
+    if sum(len(items) for items, _ in groups) > limits.MAX_PLACES:
+        raise LimitError("number of signs", sum(len(i) for i, _ in groups), limits.MAX_PLACES,
                          "Set numcheck.limits.MAX_PLACES higher to read it.")
     notes: list[str] = []
     slots: list[Slot] = []

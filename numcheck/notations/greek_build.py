@@ -17,7 +17,7 @@ from fractions import Fraction
 from lark import Tree
 
 from ..errors import NumcheckRangeError
-from ..limits import GAP_MAX_PLACES
+from .. import limits
 from ..reading import Slot, Status
 from .greek_letters import CANONICAL, exponent
 from .greek_model import RANK_NAMES, STATUS_ORDER, UNDERDOT, ZERO, Form, Item, fail
@@ -83,10 +83,10 @@ def group_slots(text: str, index: int, items: list[Item], group: Tree, gkind: st
                      span=(only.start, only.end),
                      form=(Form(role="zero", pieces=((ZERO, _BRACKET.get(only.status)),), **base),))]
     if gkind == "place" and only is not None and only.kind == "gap":
-        notes.append(f"{group_text!r} read as 1 to {GAP_MAX_PLACES} lost sexagesimal places "
+        notes.append(f"{group_text!r} read as 1 to {limits.GAP_MAX_PLACES} lost sexagesimal places "
                      "(numcheck.limits.GAP_MAX_PLACES)")
         return [Slot(values=tuple(Fraction(v) for v in range(60)), place=place, status=Status.LOST,
-                     text=group_text, span=(only.start, only.end), gap=(1, GAP_MAX_PLACES),
+                     text=group_text, span=(only.start, only.end), gap=(1, limits.GAP_MAX_PLACES),
                      form=(Form(role="run", pieces=(("[...]", "gap"),), **base),))]
     if gkind == "unitfrac":
         return [_unit_fraction(text, items, place, ascending, notes, base, group_text, span)]

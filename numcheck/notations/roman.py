@@ -30,7 +30,7 @@ from lark.exceptions import UnexpectedCharacters, UnexpectedInput
 
 from ..errors import LimitError, NumcheckSyntaxError, NumcheckWarning
 from ..grammar_loader import parser_for
-from ..limits import GAP_MAX_PLACES, MAX_LOST_LETTERS, MAX_PLACES
+from .. import limits
 from ..reading import Reading, Slot, Status
 from .marks import join_marked
 
@@ -132,8 +132,8 @@ def parse(text: str) -> Reading:
                          _EXPECTED) from None
         raise _error(text, where[min(pos, len(nfd))], "a mark in the wrong place", _EXPECTED) from None
     letters = _letters(text, nfd, where, tokens)
-    if len(letters) > MAX_PLACES:
-        raise LimitError("number of letters", len(letters), MAX_PLACES,
+    if len(letters) > limits.MAX_PLACES:
+        raise LimitError("number of letters", len(letters), limits.MAX_PLACES,
                          "Set numcheck.limits.MAX_PLACES higher to read it.")
     _check_j(text, letters)
     counted = [x for x in letters if x.status is not Status.SUPERFLUOUS]
@@ -328,10 +328,10 @@ def _repeats(counted: list[_Letter]) -> list[int]:
 def _damaged_slots(text: str, letters: list[_Letter]) -> list[Slot]:
     counted = [x for x in letters if x.status is not Status.SUPERFLUOUS]
     open_idx = [k for k, x in enumerate(counted) if x.status in _OPEN_KINDS]
-    widths = [range(1, GAP_MAX_PLACES + 1) if counted[k].kind == "gap" else (1,) for k in open_idx]
+    widths = [range(1, limits.GAP_MAX_PLACES + 1) if counted[k].kind == "gap" else (1,) for k in open_idx]
     most = sum(max(w) for w in widths)
-    if most > MAX_LOST_LETTERS:
-        raise LimitError("number of lost letters to try", most, MAX_LOST_LETTERS,
+    if most > limits.MAX_LOST_LETTERS:
+        raise LimitError("number of lost letters to try", most, limits.MAX_LOST_LETTERS,
                          "Set numcheck.limits.MAX_LOST_LETTERS higher to read it.")
     spellings: dict[int, tuple[str, ...]] = {}
     for counts in itertools.product(*widths):

@@ -14,7 +14,7 @@ from lark.exceptions import UnexpectedCharacters, UnexpectedEOF, UnexpectedInput
 
 from ..errors import NumcheckRangeError, NumcheckSyntaxError
 from ..grammar_loader import parser_for
-from ..limits import GAP_MAX_PLACES, MAX_PLACES
+from .. import limits
 from ..reading import Reading, Slot, Status
 from .marks import SEPARATOR, join_marked
 
@@ -127,9 +127,9 @@ def _build(text: str, tree: Tree, *, floating: bool, notation: str) -> Reading:
             whole = [list(p.children) for p in child.children if isinstance(p, Tree)]
         elif child.data == "fraction":
             fraction = [list(p.children) for p in child.children if isinstance(p, Tree)]
-    if len(whole) + len(fraction) > MAX_PLACES:
+    if len(whole) + len(fraction) > limits.MAX_PLACES:
         from ..errors import LimitError
-        raise LimitError("number of places", len(whole) + len(fraction), MAX_PLACES,
+        raise LimitError("number of places", len(whole) + len(fraction), limits.MAX_PLACES,
                          "Set numcheck.limits.MAX_PLACES higher to read it.")
 
     state = {"lost": None, "added": None, "superfluous": None}
@@ -214,7 +214,7 @@ def _place(text: str, tokens: list[Token], state: dict, capped: bool = True) -> 
                 f"Cannot read {text!r}: '[...]' (lost places, number unknown) must stand as a place of its own",
                 text, gap_token.start_pos, expected="',' before and after '[...]'")
         return (Slot(values=tuple(Fraction(v) for v in range(60)), status=Status.LOST,
-                           text=written, span=(start, end), gap=(1, GAP_MAX_PLACES),
+                           text=written, span=(start, end), gap=(1, limits.GAP_MAX_PLACES),
                            form=()))
     counted = [p for p in positions if p.kind is not Status.SUPERFLUOUS]
     if not positions:
