@@ -6,7 +6,8 @@ Each command lives in a module of :mod:`numcheck.commands` that offers
 prints its own readable table when ``--json`` is not given).
 
 Exit codes: 0 success, 2 bad input (a :class:`~numcheck.errors.NumcheckError`,
-one paragraph, no traceback), 1 an internal error.
+one paragraph, no traceback; or a file the system will not let numcheck read
+or write), 1 an internal error.
 """
 
 from __future__ import annotations
@@ -88,6 +89,14 @@ def main(argv: list[str] | None = None) -> int:
         return 2
     except KeyboardInterrupt:
         return 130
+    except OSError as err:  # the file system said no (permissions, a full disk): not a fault of numcheck
+        where = f" {err.filename!r}" if getattr(err, "filename", None) else ""
+        message = f"cannot read or write{where}: {err.strerror or err}."
+        if args.json:
+            sys.stdout.write(json.dumps({"error": type(err).__name__, "message": message},
+                                        ensure_ascii=False) + "\n")
+        sys.stderr.write(f"numcheck {args.command}: {message}\n")
+        return 2
     except Exception as err:  # an internal error: say so plainly, ask for a report
         sys.stderr.write(
             f"numcheck {args.command}: internal error ({type(err).__name__}: {err}). "

@@ -19,6 +19,8 @@ MAX_XML_DEPTH = 200
 MAX_XML_NUMS = 200_000
 #: Most files in one batch run (``annotate DIR``, ``audit DIR``).
 MAX_BATCH_FILES = 10_000
+#: Largest table file (TSV, CSV, aligned text) read by ``audit`` (bytes).
+MAX_TABLE_BYTES = 200_000_000
 #: Most cells in one table given to ``audit`` (rows times columns).
 MAX_TABLE_CELLS = 2_000_000
 #: Most readings of one damaged table cell enumerated when restoring it from its scheme.

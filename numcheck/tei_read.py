@@ -107,11 +107,22 @@ def parse_tei(path: str | os.PathLike, data: bytes | None = None) -> etree._Elem
     """
     if data is None:
         data = read_bytes(path)
+    if len(data) > limits.MAX_XML_BYTES:
+        raise LimitError(f"size of {str(path)!r}", f"{len(data)} bytes", f"{limits.MAX_XML_BYTES} bytes",
+                         "Set numcheck.limits.MAX_XML_BYTES higher to read it.")
     try:
         root = etree.fromstring(data, _parser())
     except etree.XMLSyntaxError as err:
         line = err.lineno if err.lineno else None
         msg = err.msg or str(err)
+        if "Excessive depth" in msg:
+            # libxml2's own guard (256 levels without its "huge" option) met
+            # before numcheck's: the same limit, said the same way.
+            raise LimitError(f"element nesting of {str(path)!r} (at line {line})", "over 256",
+                             min(limits.MAX_XML_DEPTH, 256),
+                             "numcheck's XML parser reads at most 256 levels "
+                             "(numcheck.limits.MAX_XML_DEPTH can only lower it); flatten the markup."
+                             ) from None
         msg = re.sub(r", line \d+, column \d+$", "", msg)
         col = f" (column {err.position[1]})" if getattr(err, "position", None) else ""
         raise TeiError(path, line, f"malformed XML{col}: {msg}. Fix the markup and run again.") from None

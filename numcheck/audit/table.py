@@ -142,6 +142,7 @@ def read_table(table, *, notation: str | None = None, columns=None) -> Table:
         from ..notations import notation_module
         notation_module(notation)   # an unknown name fails here, with suggestions
     if _is_dataframe(table):
+        _check_cells(table.shape[0] * table.shape[1])
         header = [str(c) for c in table.columns]
         rows = [[_frame_text(v, i, header[j]) for j, v in enumerate(rec)]
                 for i, rec in enumerate(table.itertuples(index=False), start=1)]
@@ -152,6 +153,11 @@ def read_table(table, *, notation: str | None = None, columns=None) -> Table:
             raise NumcheckError(f"There is no table at {str(path)!r}: the file does not exist.")
         if path.is_dir():
             raise NumcheckError(f"{str(path)!r} is a folder, not a table file.")
+        size = path.stat().st_size
+        if size > limits.MAX_TABLE_BYTES:
+            raise LimitError(f"size of the table {str(path)!r}", f"{size:,} bytes",
+                             f"{limits.MAX_TABLE_BYTES:,} bytes",
+                             "Set numcheck.limits.MAX_TABLE_BYTES higher to audit it, or split the table.")
         try:
             text = path.read_text(encoding="utf-8-sig")
         except UnicodeDecodeError as err:
@@ -162,6 +168,12 @@ def read_table(table, *, notation: str | None = None, columns=None) -> Table:
         raise NumcheckError(f"Expected a path to a table or a pandas DataFrame, got "
                             f"{type(table).__name__}.")
     return _build(header, rows, notation=notation, columns=columns, source=source)
+
+
+def _check_cells(cells: int) -> None:
+    if cells > limits.MAX_TABLE_CELLS:
+        raise LimitError("number of cells in the table", f"{cells:,}", f"{limits.MAX_TABLE_CELLS:,}",
+                         "Set numcheck.limits.MAX_TABLE_CELLS higher to audit it.")
 
 
 def _is_dataframe(obj) -> bool:
@@ -233,9 +245,7 @@ def _build(header, rows, *, notation, columns, source) -> Table:
     if not rows:
         raise NumcheckError(f"The table {source} is empty: it has a header ({', '.join(header)}) "
                             "but no data rows.")
-    if len(rows) * len(header) > limits.MAX_TABLE_CELLS:
-        raise LimitError("number of cells in the table", len(rows) * len(header), limits.MAX_TABLE_CELLS,
-                         "Set numcheck.limits.MAX_TABLE_CELLS higher to audit it.")
+    _check_cells(len(rows) * len(header))
     for j, name in enumerate(header):
         if not name:
             raise NumcheckError(f"The header of {source} has no name for column {j + 1}.")

@@ -251,6 +251,10 @@ def _group_slot(text: str, marks: list[_Mark], place: int, fractional: bool,
     opened = [m for m in counted if m.status in _OPEN]
     if opened and all(m.kind == "letter" for m in opened):
         editor = Fraction(sum(m.written for m in counted))
+        if fractional and editor > 59:
+            raise NumcheckRangeError(
+                f"The editor's restoration {written!r} is {editor}, but a sexagesimal place holds "
+                "0 to 59.", value=editor, legal="0 to 59", text=text, position=start)
     kinds = [m.status for m in counted] + [Status.DOUBTFUL for m in counted if m.doubtful]
     status = max(kinds, key=_KIND_RANK.__getitem__)
     return Slot(values=totals, place=place, status=status, text=written, span=(start, end),
