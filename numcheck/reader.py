@@ -1,6 +1,7 @@
 """``read``: the front door from a text to a Reading.
 
-Normalises the text (NFC), enforces the input limits, chooses the notation
+Normalises the text (NFC), names look-alike characters from another script
+(:mod:`numcheck.lookalikes`), enforces the input limits, chooses the notation
 (given, or detected from the characters) and hands over to that notation.  A
 text with unit words (``3 signs 12;30°``, ``6585 1/3 days``) is a mixed
 quantity: :mod:`numcheck.notations.quantity` reads each number in its
@@ -15,6 +16,7 @@ import unicodedata
 from dataclasses import replace
 
 from .errors import LimitError, NumcheckSyntaxError
+from .lookalikes import check_attic_scripts, check_lookalikes
 from . import limits
 from .notations import NOTATIONS, notation_module
 from .notations import quantity
@@ -39,7 +41,7 @@ def read(text: str, notation: str | None = None, unit: str | None = None) -> Rea
     if len(text) > limits.MAX_TEXT_LENGTH:
         raise LimitError("length of the text", f"{len(text)} characters", limits.MAX_TEXT_LENGTH,
                          "Set numcheck.limits.MAX_TEXT_LENGTH higher to read it.")
-    normal = unicodedata.normalize("NFC", text).strip()
+    normal = check_lookalikes(unicodedata.normalize("NFC", text).strip())
     if notation is not None and notation not in NOTATIONS:
         notation_module(notation)  # raises UnknownNameError with suggestions
     if notation == quantity.NAME or quantity.has_units(normal):
@@ -50,6 +52,8 @@ def read(text: str, notation: str | None = None, unit: str | None = None) -> Rea
             notation, why = detect_notation(normal)
             detected = f"{notation} ({why})"
         reading = notation_module(notation).parse(normal)
+        if reading.notation == "attic":
+            check_attic_scripts(normal)
         if detected is not None:
             reading = replace(reading, detected=detected)
     if unit is not None:

@@ -37,9 +37,9 @@ _ATTIC_ASCII = re.compile(r"[ΠP]\([ΔΗΧΜDHXM]\)")
 _GREEK_SIGNS = frozenset("\U0001018A\u014d\u0375\u2220") | frozenset(
     chr(c) for c in (0x10175, 0x10176, 0x10177, 0x10178, 0x1018B))
 _ROMAN = frozenset("IVXLCDMJivxlcdmj")
-_DIGIT_GROUPS = re.compile(r"[0-9xXn\]?]\s+[0-9xXn\[]")
+_DIGIT_GROUPS = re.compile(r"[0-9xXn\]?>⟩}\u0323]\s+[0-9xXn\[<⟨{]")
 # What a transliterated cuneiform number is made of (digits, x, n, Leiden marks).
-_CUNEIFORM_CHARS = re.compile(r"[0-9xXn\[\]<>{}?\u0323\s]+")
+_CUNEIFORM_CHARS = re.compile(r"[0-9xXn\[\]<>⟨⟩{}?\u0323\s]+")
 
 
 def _name(ch: str) -> str:
