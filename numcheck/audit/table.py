@@ -19,6 +19,7 @@ import functools
 import io
 import math
 import re
+import unicodedata
 from collections import Counter
 from dataclasses import dataclass, field
 from fractions import Fraction
@@ -170,6 +171,10 @@ def read_table(table, *, notation: str | None = None, columns=None) -> Table:
     return _build(header, rows, notation=notation, columns=columns, source=source)
 
 
+def _nfc(text: str) -> str:
+    return text if text.isascii() else unicodedata.normalize("NFC", text)
+
+
 def _check_cells(cells: int) -> None:
     if cells > limits.MAX_TABLE_CELLS:
         raise LimitError("number of cells in the table", f"{cells:,}", f"{limits.MAX_TABLE_CELLS:,}",
@@ -240,6 +245,12 @@ def _rejoin_signs(cells: list[str]) -> list[str]:
 
 
 def _build(header, rows, *, notation, columns, source) -> Table:
+    # One normal form (NFC) for every text, as numcheck.read uses: the same
+    # table typed with decomposed accents gives the same audit, word for word.
+    header = [_nfc(h) for h in header]
+    rows = [[_nfc(c) for c in r] for r in rows]
+    if columns is not None:
+        columns = _nfc(columns) if isinstance(columns, str) else [_nfc(c) for c in columns]
     if not header or all(not h for h in header):
         raise NumcheckError(f"The table {source} has no header row.")
     if not rows:
