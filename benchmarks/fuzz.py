@@ -15,7 +15,10 @@ that caused it, to be kept as a regression test in
 ``tests/test_regressions.py``.  An input that takes longer than ``--slow``
 seconds is reported as slow (a hang would show here).
 
-Run: ``python benchmarks/fuzz.py N [--seed S] [--only read,identify,...] [--slow 5]``
+An input still running after ``--timeout`` seconds (default 120) is stopped
+and counted as a crash (a hang).
+
+Run: ``python benchmarks/fuzz.py N [--seed S] [--only read,identify,...] [--slow 5] [--timeout 120]``
 """
 
 from __future__ import annotations
@@ -26,6 +29,7 @@ import io
 import json
 import os
 import random
+import signal
 import sys
 import tempfile
 import time
@@ -352,6 +356,14 @@ WEIGHTS = {"read": 35, "identify": 12, "restore": 12, "audit-frame": 12, "audit-
            "cli": 9}
 
 
+class Hang(Exception):
+    """An input that took longer than ``--timeout`` seconds (a crash too: numcheck must not hang)."""
+
+
+def _alarm(signum, frame):
+    raise Hang(f"still running after the time allowed ({LAST[0]!r})")
+
+
 def _where(err: BaseException) -> str:
     tb = traceback.extract_tb(err.__traceback__)
     frames = [f for f in tb if "numcheck" in f.filename] or tb
@@ -359,8 +371,10 @@ def _where(err: BaseException) -> str:
     return f"{Path(last.filename).name}:{last.lineno}" if last else "?"
 
 
-def run(n: int, seed: int, only: list[str], slow: float) -> int:
+def run(n: int, seed: int, only: list[str], slow: float, timeout: int = 120) -> int:
     rng = random.Random(seed)
+    if hasattr(signal, "SIGALRM"):
+        signal.signal(signal.SIGALRM, _alarm)
     names = [k for k in ENTRY_POINTS if not only or k in only]
     weights = [WEIGHTS[k] for k in names]
     counts: Counter[str] = Counter()
@@ -377,6 +391,8 @@ def run(n: int, seed: int, only: list[str], slow: float) -> int:
             case_rng = random.Random(case_seed)
             t0 = time.perf_counter()
             LAST[0] = None
+            if hasattr(signal, "SIGALRM"):
+                signal.alarm(timeout)
             try:
                 with warnings.catch_warnings():
                     warnings.simplefilter("ignore")
@@ -389,6 +405,9 @@ def run(n: int, seed: int, only: list[str], slow: float) -> int:
                     crashes[key] = (case_seed, f"{type(err).__name__}: {str(err)[:300]}")
                     print(f"CRASH {name} seed={case_seed} at {key[2]}: {crashes[key][1]}\n"
                           f"      input: {LAST[0]!r}", flush=True)
+            finally:
+                if hasattr(signal, "SIGALRM"):
+                    signal.alarm(0)
             took = time.perf_counter() - t0
             counts[name] += 1
             longest[name] = max(longest.get(name, 0.0), took)
@@ -420,13 +439,15 @@ def main(argv=None) -> int:
     parser.add_argument("--seed", type=int, default=1)
     parser.add_argument("--only", default="", help=f"comma-separated entry points: {', '.join(ENTRY_POINTS)}")
     parser.add_argument("--slow", type=float, default=5.0, help="report inputs slower than this (seconds)")
+    parser.add_argument("--timeout", type=int, default=120,
+                        help="an input still running after this many seconds is a hang (a crash)")
     parser.add_argument("--replay", nargs=2, metavar=("ENTRY", "SEED"), help="rerun one case with its traceback")
     args = parser.parse_args(argv)
     if args.replay:
         replay(args.replay[0], int(args.replay[1]))
         return 0
     os.environ.setdefault("MPLBACKEND", "Agg")
-    return run(args.n, args.seed, [s for s in args.only.split(",") if s], args.slow)
+    return run(args.n, args.seed, [s for s in args.only.split(",") if s], args.slow, args.timeout)
 
 
 if __name__ == "__main__":
