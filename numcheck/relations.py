@@ -237,8 +237,10 @@ class SpanRecord:
         return max(abs(c.residual_degrees) for c in self.counts)
 
     def to_dict(self) -> dict:
-        return {"span": self.span, "unit": self.unit, "span_days": decimal_text(self.span_days, 6),
-                "worst_degrees": decimal_text(self.worst_degrees, 4),
+        return {"span": self.span, "unit": self.unit, "span_days": exact_text(self.span_days),
+                "span_days_decimal": decimal_text(self.span_days, 6),
+                "worst_degrees": exact_text(self.worst_degrees),
+                "worst_degrees_decimal": decimal_text(self.worst_degrees, 4),
                 "counts": [c.to_dict() for c in self.counts],
                 "known": [k.to_dict() for k in self.known]}
 
