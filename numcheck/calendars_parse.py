@@ -79,7 +79,7 @@ def parse_date(text: str, calendar: str = "julian") -> CalendarDate:
         raise NumcheckSyntaxError(f"A date must be text, not {type(text).__name__}", "", 0)
     if len(text) > limits.MAX_TEXT_LENGTH:
         raise LimitError("length of the date text", len(text), limits.MAX_TEXT_LENGTH,
-                         "Give one date of a few words.")
+                         "Give one date of a few words (or set numcheck.limits.MAX_TEXT_LENGTH higher).")
     text = unicodedata.normalize("NFC", text)
     calendar = calendar_named(calendar)
     if not text.strip():
