@@ -36,6 +36,11 @@ CASES = [
     ("read", ("ل [ت]ه", None),
      "abjad: an editor's restoration over 59 in a fractional place gave a value outside "
      "min..max (now a range error, as in sexagesimal)"),
+    ("audit", {"A": ["2;14", "-6"], "B": ["0,7,41", "0,9,55"], "C": ["ακ", "α[.]"]},
+     "audit: a reciprocal scheme tried on a negative cell looped for ever (the magnitude of a "
+     "negative reciprocal grew without end)"),
+    ("audit", {"n": ["2", "-3", "4", "5"], "igi": ["30", "20", "15", "12"]},
+     "audit: a negative number in the column of a reciprocal table"),
 ]
 
 # Cases that still fail in code owned by another helper at the time of writing.

@@ -180,12 +180,16 @@ class ReciprocalScheme(Scheme):
             return written
         # Put the reciprocal at the magnitude the written cell has (the
         # floating value is read at the scale of its last place).
-        best = inv
+        # The magnitude is found on the absolute value (a negative n would
+        # otherwise grow without end), then the sign is put back.
+        best = abs(inv)
         if written:
             while best * 60 <= abs(written) and best * 60 <= s * 60 ** 12:
                 best *= 60
             while best > abs(written) * 60 and best > 0:
                 best /= 60
+        if inv < 0:
+            best = -best
         return best.numerator if best.denominator == 1 else best
 
     def params(self):
