@@ -41,10 +41,21 @@ CASES = [
      "negative reciprocal grew without end)"),
     ("audit", {"n": ["2", "-3", "4", "5"], "igi": ["30", "20", "15", "12"]},
      "audit: a negative number in the column of a reciprocal table"),
+    ("identify", ("n 30", None),
+     "identify: a floating number with an unknown place ('n') compared every catalogue multiple "
+     "across its whole range of readings (16 s; 60 readings, a factor of 100 between min and max)"),
+    ("identify", (".ϙ", None, "years"),
+     "identify: a Greek number with an unread letter of any rank (18 readings, 190 to 9090) "
+     "took 9 s the same way"),
+    ("identify", ("𒌋[x]", None), "identify: a cuneiform sign with a lost units digit (4 s)"),
 ]
 
-# Cases that still fail in code owned by another helper at the time of writing.
-XFAIL: dict[int, str] = {}
+# Cases that still fail in code owned by another helper at the time of writing
+# (not run: each would spend its full slowness in the suite).
+XFAIL: dict[int, str] = {
+    i: "slow in numcheck/identify/core.py (owned by the identify helper at the time)"
+    for i, (entry, _, _) in enumerate(CASES) if entry == "identify"
+}
 
 # Longest an entry point may take on one of these inputs (seconds): a hang is a bug too.
 TIME_LIMIT = 10.0
@@ -82,7 +93,7 @@ def _run(entry: str, data) -> None:
 
 def _params():
     for i, (entry, data, note) in enumerate(CASES):
-        marks = [pytest.mark.xfail(strict=False, reason=XFAIL[i])] if i in XFAIL else []
+        marks = [pytest.mark.xfail(strict=False, run=False, reason=XFAIL[i])] if i in XFAIL else []
         yield pytest.param(entry, data, note, id=f"{i}-{entry}", marks=marks)
 
 
