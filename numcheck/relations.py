@@ -157,14 +157,14 @@ def _positive(n, what: str = "N") -> Fraction:
         except (ValueError, ZeroDivisionError):
             try:
                 value = parse_number(text)
-            except ValueError:
+            except (ValueError, ZeroDivisionError):
                 raise NumcheckRangeError(
                     f"{what} = {n!r} is not a number numcheck can read here.", value=n,
                     legal="a positive number: 19, 6585 1/3, 19756/3, 6585.333 or 1,49,45;20") from None
     else:
         try:
             value = Fraction(n)
-        except (TypeError, ValueError):
+        except (TypeError, ValueError, OverflowError):
             raise NumcheckRangeError(f"{what} = {n!r} is not a number.", value=n,
                                      legal="a positive number of years, months or days") from None
     if value <= 0:

@@ -67,7 +67,11 @@ def parse_number(text: str) -> Fraction:
     if not m:
         raise NumcheckSyntaxError("Not a catalogue number", text, 0,
                                   expected="e.g. 12, 7.5, 1/24, 6585 1/3 or 29;31,50,8,20")
-    return _value(m)
+    try:
+        return _value(m)
+    except ZeroDivisionError:
+        raise NumcheckSyntaxError("A fraction with a zero denominator", text, text.find("/") + 1,
+                                  expected="a denominator of 1 or more") from None
 
 
 def _places(text: str) -> Fraction:

@@ -41,6 +41,9 @@ CASES = [
      "negative reciprocal grew without end)"),
     ("audit", {"n": ["2", "-3", "4", "5"], "igi": ["30", "20", "15", "12"]},
      "audit: a negative number in the column of a reciprocal table"),
+    ("cli", ["relate", "1/0", "--unit", "days"],
+     "relate: N = 1/0 raised ZeroDivisionError (exit 1)"),
+    ("relate", float("inf"), "relate: N = inf raised OverflowError"),
     ("identify", ("n 30", None),
      "identify: a floating number with an unknown place ('n') compared every catalogue multiple "
      "across its whole range of readings (16 s; 60 readings, a factor of 100 between min and max)"),
@@ -75,6 +78,8 @@ def _run(entry: str, data) -> None:
         numcheck.restore(text, notation=notation, unit=rest[0] if rest else None).to_dict()
     elif entry == "audit":
         numcheck.audit(pd.DataFrame(data, dtype=object)).to_dict()
+    elif entry == "relate":
+        numcheck.relate(data, "days").to_dict()
     elif entry == "annotate":
         from numcheck.tei import annotate_bytes
         annotate_bytes(data)[1].to_dict()
