@@ -342,18 +342,49 @@ def call_cli(rng, tmp: Path):
         raise AssertionError(f"exit {code} for {argv!r}: {err.getvalue()[-400:]}")
 
 
+SPANS = ["19", "6585 1/3", "1,49,45;20", "19756/3", "223", "8", "6585.333", "4267", "1/24", "0;59,8"]
+DATES = ["Nabonassar 1 Thoth 1", "747 BC Feb 26", "AD 1 Jan 1", "-746-02-26", "JD 1448638",
+         "Philip 1 Thoth 1", "1-01-01", "Nabonassar 748 Tybi 12", "Augustus 1 Thoth 1"]
+CALENDARS = ["julian", "egyptian", "alexandrian", "jd", "babylonian", "x"]
+
+
+def call_relate(rng):
+    n = rng.choice(SPANS) if rng.random() < 0.3 else mutate(rng, rng.choice(SPANS), rng.randrange(1, 3))
+    if rng.random() < 0.1:
+        n = rng.choice([float("inf"), float("nan"), -1, 0, 10 ** 400, 1e300, True, None, [1]])
+    unit = rng.choice(["years", "months", "days", "day", "x"])
+    kwargs = {}
+    if rng.random() < 0.3:
+        kwargs["values"] = rng.choice(["modern", "ancient", "x"])
+    if rng.random() < 0.2:
+        kwargs["tradition"] = rng.choice(["babylonian", "greek", "indian", "x"])
+    LAST[0] = (n, unit, kwargs)
+    _json(numcheck.relate(n, unit, **kwargs).to_dict())
+
+
+def call_interval(rng):
+    def date():
+        d = rng.choice(DATES)
+        return d if rng.random() < 0.3 else mutate(rng, d, rng.randrange(1, 3))
+    a, b, calendar = date(), date(), rng.choice(CALENDARS)
+    LAST[0] = (a, b, calendar)
+    _json(numcheck.interval(a, b, calendar=calendar).to_dict())
+
+
 ENTRY_POINTS = {
     "read": lambda rng, tmp: call_read(rng),
     "identify": lambda rng, tmp: call_identify(rng),
     "restore": lambda rng, tmp: call_restore(rng),
+    "relate": lambda rng, tmp: call_relate(rng),
+    "interval": lambda rng, tmp: call_interval(rng),
     "audit-frame": lambda rng, tmp: call_audit_frame(rng),
     "audit-file": call_audit_file,
     "annotate": call_annotate,
     "cli": call_cli,
 }
 # Share of the inputs each entry point gets (the cheap ones more).
-WEIGHTS = {"read": 35, "identify": 12, "restore": 12, "audit-frame": 12, "audit-file": 8, "annotate": 12,
-           "cli": 9}
+WEIGHTS = {"read": 30, "identify": 10, "restore": 10, "relate": 6, "interval": 6, "audit-frame": 12,
+           "audit-file": 8, "annotate": 12, "cli": 9}
 
 
 class Hang(Exception):

@@ -8,7 +8,7 @@ with another exception (exit 1).  The numbers mutated here are those of
 10^5 inputs; the hypothesis profile of ``tests/conftest.py`` keeps this part
 of the suite short (``NUMCHECK_HYPOTHESIS_PROFILE=long`` for a longer run).
 
-Two kinds of strategy: for ``read`` explicit ones (random text, edits of a
+Two kinds of strategy: for ``read`` (and ``relate``) explicit ones (random text, edits of a
 valid number, damage marks), and for the structured inputs (tables, XML,
 command lines) the generators of ``benchmarks/fuzz.py`` driven by a
 hypothesis ``randoms()`` source, so that hypothesis chooses (and shrinks)
@@ -167,15 +167,33 @@ def test_restore(text, notation, use_catalogue):
         assert sum(c["probability"] for c in d["candidates"]) <= 1 + 1e-9
 
 
+# -- relate and interval ------------------------------------------------------------
+
+@given(st.randoms(use_true_random=False))
+def test_relate(rng):
+    _quiet(fuzz.call_relate, rng)
+
+
+@given(st.randoms(use_true_random=False))
+def test_interval(rng):
+    _quiet(fuzz.call_interval, rng)
+
+
+@given(st.one_of(st.text(max_size=12), st.floats(), st.integers(), st.fractions()),
+       st.sampled_from(["years", "months", "days"]))
+def test_relate_any_number(n, unit):
+    _quiet(numcheck.relate, n, unit)
+
+
 # -- audit -------------------------------------------------------------------
 
-@_share(0.5)
+@_share(1.0)
 @given(st.randoms(use_true_random=False))
 def test_audit_random_dataframes(rng):
     _quiet(fuzz.call_audit_frame, rng)
 
 
-@_share(0.5)
+@_share(1.0)
 @given(st.randoms(use_true_random=False))
 def test_audit_random_table_files(rng):
     with tempfile.TemporaryDirectory() as tmp:
@@ -184,7 +202,7 @@ def test_audit_random_table_files(rng):
 
 # -- annotate ----------------------------------------------------------------
 
-@_share(0.5)
+@_share(1.0)
 @given(st.randoms(use_true_random=False))
 def test_annotate_random_xml(rng):
     with tempfile.TemporaryDirectory() as tmp:
@@ -199,7 +217,7 @@ def test_annotate_random_bytes(data):
 
 # -- the command line ------------------------------------------------------------
 
-@_share(0.5)
+@_share(1.0)
 @given(st.randoms(use_true_random=False))
 def test_cli_random_arguments(rng):
     """Exit 0 or 2, never 1 (an internal error), whatever the arguments."""
