@@ -19,6 +19,7 @@ output is written atomically; everything else in the file stays as it was.
 from __future__ import annotations
 
 import os
+import unicodedata
 import warnings
 from dataclasses import dataclass, field
 from fractions import Fraction
@@ -61,7 +62,8 @@ class NumResult:
     warnings: list[str] = field(default_factory=list)   # how the notation read odd letters
 
     def to_dict(self) -> dict:
-        out = {"line": self.line, "text": self.text, "notation": self.notation,
+        # The text as numcheck read it (NFC): decomposed accents give the same JSON.
+        out = {"line": self.line, "text": unicodedata.normalize("NFC", self.text), "notation": self.notation,
                "status": self.status, "damaged": self.damaged}
         if self.value is not None:
             out["value"] = exact_text(self.value)

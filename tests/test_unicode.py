@@ -197,3 +197,17 @@ def test_other_look_alikes_are_named_by_code_point(text, char):
     with pytest.raises(NumcheckError) as info:
         numcheck.read(text)
     assert _code(char) in str(info.value)
+
+
+def test_nfc_and_nfd_annotate_the_same():
+    from numcheck.tei import annotate_bytes
+
+    doc = ('<TEI xmlns="http://www.tei-c.org/ns/1.0"><text><body><ab><num>ρνζ ζ ō</num> '
+           '<num>ρ[ν]ζ ζ ō</num> <num>2 bēru 10 UŠ</num></ab></body></text></TEI>')
+    nfc, nfd = unicodedata.normalize("NFC", doc), unicodedata.normalize("NFD", doc)
+    assert nfc != nfd
+    a = annotate_bytes(nfc.encode(), alternatives=2)
+    b = annotate_bytes(nfd.encode(), alternatives=2)
+    assert a[1].to_dict() == b[1].to_dict()
+    # The editor's file keeps its own form: only the annotations are added.
+    assert unicodedata.normalize("NFD", "ō").encode() in b[0]
