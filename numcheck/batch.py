@@ -97,6 +97,9 @@ def _run(jobs: list[tuple], worker, progress: Progress | None, workers: int | No
     """Run *worker* over *jobs* (in a pool when there are many); results in job order."""
     total = len(jobs)
     n_workers = DEFAULT_WORKERS if workers is None else max(1, int(workers))
+    # More processes than files or than cores only costs: a pool of 100,000
+    # would spend minutes starting processes (and may exhaust the machine).
+    n_workers = min(n_workers, total or 1, max(1, os.cpu_count() or 1) * 4)
     results: list[dict | None] = [None] * total
     if total >= POOL_MIN_FILES and n_workers > 1:
         with ProcessPoolExecutor(max_workers=n_workers) as pool:

@@ -44,6 +44,9 @@ CASES = [
     ("cli", ["relate", "1/0", "--unit", "days"],
      "relate: N = 1/0 raised ZeroDivisionError (exit 1)"),
     ("relate", float("inf"), "relate: N = inf raised OverflowError"),
+    ("batch-workers", 100_000,
+     "annotate FOLDER --workers 100000 started a pool of 100,000 processes (ran past a minute); "
+     "the pool is now at most the number of files"),
     ("identify", ("n 30", None),
      "identify: a floating number with an unknown place ('n') compared every catalogue multiple "
      "across its whole range of readings (16 s; 60 readings, a factor of 100 between min and max)"),
@@ -80,6 +83,18 @@ def _run(entry: str, data) -> None:
         numcheck.audit(pd.DataFrame(data, dtype=object)).to_dict()
     elif entry == "relate":
         numcheck.relate(data, "days").to_dict()
+    elif entry == "batch-workers":
+        import tempfile
+        from pathlib import Path
+
+        from numcheck.batch import annotate_folder
+        with tempfile.TemporaryDirectory() as tmp:
+            src = Path(tmp) / "in"
+            src.mkdir()
+            demo = Path(numcheck.__file__).parent / "data" / "demo" / "papyrus.xml"
+            for i in range(3):
+                (src / f"p{i}.xml").write_bytes(demo.read_bytes())
+            annotate_folder(src, Path(tmp) / "out", workers=data)
     elif entry == "annotate":
         from numcheck.tei import annotate_bytes
         annotate_bytes(data)[1].to_dict()
