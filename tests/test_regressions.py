@@ -92,7 +92,8 @@ def _run(entry: str, data) -> None:
             src = Path(tmp) / "in"
             src.mkdir()
             demo = Path(numcheck.__file__).parent / "data" / "demo" / "papyrus.xml"
-            for i in range(3):
+            from numcheck.batch import POOL_MIN_FILES
+            for i in range(POOL_MIN_FILES):      # enough files for a pool
                 (src / f"p{i}.xml").write_bytes(demo.read_bytes())
             annotate_folder(src, Path(tmp) / "out", workers=data)
     elif entry == "annotate":
