@@ -133,10 +133,12 @@ def _build(text: str, tree: Tree, *, floating: bool, notation: str) -> Reading:
                          "Set numcheck.limits.MAX_PLACES higher to read it.")
 
     state = {"lost": None, "added": None, "superfluous": None}
-    # Scholarly usage writes a lone whole place in decimal beyond 59 when a
-    # fractional part follows (365;14,48 days, 359;59 degrees): only then is
-    # the place not capped at 59.
-    lone_whole = len(whole) == 1 and has_semi
+    # Scholarly usage writes a lone whole place in decimal beyond 59
+    # (365;14,48 days, 359;59 degrees, 6585 days): a single whole place is
+    # not capped at 59 when a fraction follows or when it is a plain integer
+    # with every digit read.  A damaged lone place without ';' ([x]5) stays
+    # one sexagesimal place, and so does every place of a floating number.
+    lone_whole = len(whole) == 1 and (has_semi or (not floating and _all_read(whole[0])))
     built_whole = [_place(text, toks, state, capped=not lone_whole) for toks in whole]
     built_frac = [_place(text, toks, state) for toks in fraction]
     for name, opened in state.items():
@@ -147,6 +149,11 @@ def _build(text: str, tree: Tree, *, floating: bool, notation: str) -> Reading:
     slots = assign_places(built_whole, built_frac)
     return Reading(text=text, notation=notation, slots=tuple(slots), base=60, sign=sign,
                    floating=floating and not has_semi)
+
+
+def _all_read(tokens: list[Token]) -> bool:
+    """Whether a place is written with plain digits only (no damage marks)."""
+    return all(tok.type == "DIGIT" for tok in tokens)
 
 
 def assign_places(whole: list[Slot], fraction: list[Slot]) -> list[Slot]:
