@@ -36,6 +36,9 @@ CASES = [
     ("read", ("ل [ت]ه", None),
      "abjad: an editor's restoration over 59 in a fractional place gave a value outside "
      "min..max (now a range error, as in sexagesimal)"),
+    ("read", ("6585 days 12;30 Taurus", "sexagesimal"),
+     "quantity: a longitude (zodiacal sign) after a quantity of time raised StopIteration "
+     "looking for the unit word that differs"),
     ("audit", {"A": ["2;14", "-6"], "B": ["0,7,41", "0,9,55"], "C": ["ακ", "α[.]"]},
      "audit: a reciprocal scheme tried on a negative cell looped for ever (the magnitude of a "
      "negative reciprocal grew without end)"),

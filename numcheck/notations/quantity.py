@@ -266,7 +266,10 @@ def _finest(text: str, components: list[tuple[_Piece, str]], pieces: list[_Piece
     names = [u for _, u in components]
     first = units.dimension(names[0])
     if any(units.dimension(u) != first for u in names):
-        bad = next(p for p in pieces if p.kind == "unit" and units.dimension(p.unit) != first)
+        # The first unit word that differs; else the first part whose unit
+        # differs (a zodiacal sign is a longitude in degrees, not a unit word).
+        bad = next((p for p in pieces if p.kind == "unit" and units.dimension(p.unit) != first),
+                   None) or next(p for p, u in components if units.dimension(u) != first)
         listed = ", ".join(f"{u} ({units.dimension(u)})" for u in dict.fromkeys(names))
         raise _syntax(text, bad.start, f"units that measure different things ({listed})",
                       f"units of {first} only: "
