@@ -217,3 +217,17 @@ def test_doctests():
 
     for mod in (core, targets):
         assert doctest.testmod(mod).failed == 0
+
+
+def test_damaged_reading_is_matched_reading_by_reading():
+    # 1,4[x],45;20 days allows 1,40,45;20 ... 1,49,45;20: the 223-month period
+    # 6585;20 days (Ptolemy, Almagest IV.2, tr. Toomer 1984) is one of them.
+    res = identify("1,4[x],45;20", unit="days", top=50)
+    saros = [m for m in res.matches if m.id == "saros_almagest" and m.factor == 1]
+    assert saros and saros[0].how == "damage"
+    assert "read as 1,49,45;20" in saros[0].explanation
+    # Every damage match agrees with one of the readings, not just lies in the range.
+    readings = set(read("1,4[x],45;20").readings())
+    for m in res.matches:
+        if m.how == "damage":
+            assert any(abs(r - m.target) < 1 for r in readings)

@@ -176,9 +176,12 @@ def _factor_text(factor: Fraction) -> str:
 
 
 def _explain(reading: Reading, m_how: str, factor: Fraction, item: _t.Item, scale: int,
-             residual: Fraction, rel: float, convention: str | None, unit_shown: str) -> str:
+             residual: Fraction, rel: float, convention: str | None, unit_shown: str,
+             compared: Fraction | None = None) -> str:
     shown = sexagesimal_text(reading.value * Fraction(60) ** scale,
                              fixed=True, max_places=8) if reading.floating else reading.text
+    if m_how == "damage" and compared is not None:
+        shown = f"{reading.text} read as {sexagesimal_text(compared, fixed=True, max_places=8)}"
     what = f"{_factor_text(factor)}{_t.number_text(item.value)} {item.unit}"
     where = (f"{item.label} of {item.entry.id}" if item.label != "the value"
              else f"{item.entry.id}") + f"; {_short_source(item.entry.source)}, {item.entry.confidence}"
@@ -186,7 +189,7 @@ def _explain(reading: Reading, m_how: str, factor: Fraction, item: _t.Item, scal
         "exact": "exact",
         "truncated": "the catalogue value cut at the last written place (texts truncate)",
         "rounded": "the catalogue value rounded at the last written place",
-        "damage": "within what the damage allows",
+        "damage": "agrees with a reading the damage allows",
         "near": f"off by {float(residual):+.3g} in the last written place ({rel:.1e} relative)",
     }[m_how]
     scale_text = f" read at 60^{scale}" if scale else ""
@@ -240,33 +243,46 @@ def identify(reading_or_text, *, notation: str | None = None, unit: str | None =
         notes.append(f"The damage allows {reading.count:,} readings: only the edition's value "
                      f"({sexagesimal_text(value, fixed=not reading.floating)}) was compared. "
                      "Use 'numcheck restore' to rank the readings the traces allow.")
-    lo_r, hi_r = (reading.min, reading.max) if use_range else (value, value)
     found: dict[tuple, tuple] = {}
     considered = 0
+    # A damaged reading is compared reading by reading: a catalogue number
+    # matches when it agrees (exactly, or cut or rounded at the last place)
+    # with one of the readings the damage allows -- not merely when it falls
+    # between the least and the greatest, which a wide damage makes almost
+    # any number do.
+    allowed = sorted(set(reading.readings())) if use_range else [value]
     for scale in _scales(reading):
         p = Fraction(60) ** scale
-        v, ulp = value * p, reading.ulp * p
-        tol = max(NEAR_ULPS * ulp, NEAR_RELATIVE * v)
-        window = _Window(use_range, lo_r * p, hi_r * p)
-        lo = float(min(v - tol, lo_r * p)) * (1 - 1e-12)
-        hi = float(max(v + tol, hi_r * p + ulp)) * (1 + 1e-12)
-        items, nums, dens = _t.candidates(tab, lo, hi)
-        considered += len(items)
-        for k in range(len(items)):
-            idx, factor = int(items[k]), Fraction(int(nums[k]), int(dens[k]))
-            item = tab.items[idx]
-            target = item.value * tab.factors[idx] * factor
-            # The relative tolerance compares values of different traditions;
-            # with a factor it would let almost any long number "match".
-            how = _classify(window, v, target, ulp, tol if factor == 1 else NEAR_ULPS * ulp)
-            if how is None:
-                continue
-            key = (item.entry.id, item.value, item.unit, factor, scale)
-            residual = (v - target) / ulp
-            rank = (_RANK[how], _t.factor_complexity(factor), abs(residual),
-                    -_t.CONFIDENCE_WEIGHT.get(item.entry.confidence, 0.5), abs(scale))
-            if key not in found or rank < found[key][0]:
-                found[key] = (rank, how, item, idx, factor, scale, target, residual, v)
+        ulp = reading.ulp * p
+        for r in allowed:
+            v = r * p
+            restored = r != value
+            tol = ulp if restored else max(NEAR_ULPS * ulp, NEAR_RELATIVE * v)
+            window = _Window(False, v, v)
+            lo = float(v - tol) * (1 - 1e-12)
+            hi = float(v + tol) * (1 + 1e-12)
+            # A number written to fewer than three significant figures (one
+            # unit of its last place is over 1% of it) is met by long whole
+            # multiples of almost any period: only simple factors say anything.
+            items, nums, dens = _t.candidates(tab, lo, hi, multiples=100 * ulp <= v)
+            considered += len(items)
+            for k in range(len(items)):
+                idx, factor = int(items[k]), Fraction(int(nums[k]), int(dens[k]))
+                item = tab.items[idx]
+                target = item.value * tab.factors[idx] * factor
+                # The relative tolerance compares values of different traditions;
+                # with a factor it would let almost any long number "match".
+                how = _classify(window, v, target, ulp, tol if factor == 1 else NEAR_ULPS * ulp)
+                if how is None or (restored and how == "near"):
+                    continue
+                if restored:
+                    how = "damage"
+                key = (item.entry.id, item.value, item.unit, factor, scale)
+                residual = (v - target) / ulp
+                rank = (_RANK[how], _t.factor_complexity(factor), abs(residual),
+                        -_t.CONFIDENCE_WEIGHT.get(item.entry.confidence, 0.5), abs(scale))
+                if key not in found or rank < found[key][0]:
+                    found[key] = (rank, how, item, idx, factor, scale, target, residual, v)
     ranked = sorted(found.values(), key=lambda t: t[0])[:top]
     matches = tuple(_match(reading, tab, *row[1:]) for row in ranked)
     nearest = () if matches else _nearest(reading, tab)
@@ -299,7 +315,8 @@ def _match(reading, tab, how, item, idx, factor, scale, target, residual, v) -> 
         what=f"{_factor_text(factor)}{_t.number_text(item.value)} {item.unit}",
         convention=convention, tradition=e.tradition, body=e.body, confidence=e.confidence,
         source=e.source,
-        explanation=_explain(reading, how, factor, item, scale, residual, rel, convention, unit_shown),
+        explanation=_explain(reading, how, factor, item, scale, residual, rel, convention, unit_shown,
+                             compared=v),
     )
 
 
