@@ -143,6 +143,25 @@ def test_read_damage_marks(notation, data):
         reading.to_dict()
 
 
+@pytest.mark.parametrize("notation", sorted(n for n in fuzz.SEEDS if n != "quantity"))
+@given(data=st.data())
+def test_written_back_reads_the_same(notation, data):
+    """A reading written back in its notation (marks included) reads to the same values."""
+    from numcheck.notations import format_reading, render_choice
+
+    text = data.draw(st.one_of(damaged(notation), edited(notation)))
+    reading = _quiet(numcheck.read, text, notation=notation)
+    if reading is None:
+        return
+    written = format_reading(reading)
+    again = _quiet(numcheck.read, written, notation=notation)
+    assert again is not None, (text, written)
+    assert (again.value, again.min, again.max, again.count) == \
+        (reading.value, reading.min, reading.max, reading.count), (text, written)
+    for _, (expansion, choice) in zip(range(3), reading.choices()):
+        render_choice(expansion, choice)
+
+
 @given(edited(), st.sampled_from(fuzz.UNITS))
 def test_read_with_a_unit(text, unit):
     _quiet(numcheck.read, text, unit=unit)

@@ -39,6 +39,12 @@ CASES = [
     ("read", ("6585 days 12;30 Taurus", "sexagesimal"),
      "quantity: a longitude (zodiacal sign) after a quantity of time raised StopIteration "
      "looking for the unit word that differs"),
+    ("roundtrip", ("α[.][..]", "greek"),
+     "greek: three lost letters written back as '[...]', which reads as lost places of unknown "
+     "number (1000..1999 became a different range)"),
+    ("roundtrip", ("Χ[.][..]ΗΔΔΙΙ", "attic"), "attic: the same"),
+    ("roundtrip", ("[...],[3]0", "sexagesimal"),
+     "sexagesimal: a gap beside a lost digit written back as '[...,3]0', which does not read"),
     ("audit", {"A": ["2;14", "-6"], "B": ["0,7,41", "0,9,55"], "C": ["ακ", "α[.]"]},
      "audit: a reciprocal scheme tried on a negative cell looped for ever (the magnitude of a "
      "negative reciprocal grew without end)"),
@@ -84,6 +90,13 @@ def _run(entry: str, data) -> None:
         numcheck.restore(text, notation=notation, unit=rest[0] if rest else None).to_dict()
     elif entry == "audit":
         numcheck.audit(pd.DataFrame(data, dtype=object)).to_dict()
+    elif entry == "roundtrip":
+        from numcheck.notations import format_reading
+        text, notation = data
+        reading = numcheck.read(text, notation=notation)
+        again = numcheck.read(format_reading(reading), notation=notation)
+        assert (again.value, again.min, again.max, again.count) == \
+            (reading.value, reading.min, reading.max, reading.count)
     elif entry == "relate":
         numcheck.relate(data, "days").to_dict()
     elif entry == "batch-workers":

@@ -32,24 +32,36 @@ def join_marked(pieces: Sequence[tuple[str, str | None]]) -> str:
     '5[x],8'
     >>> join_marked([("1", "["), (",", SEPARATOR), ("49", "[")])
     '[1,49]'
+    >>> join_marked([("α", None), (".", "["), (".", "["), (".", "[")])
+    'α[..][.]'
     """
     out: list[str] = []
     opened: str | None = None
+    start = 0      # where in *out* the open bracket stands
+
+    def close() -> None:
+        # Three lost letters in one bracket would read as '[...]', lost
+        # places of unknown number: write them '[..][.]' instead.
+        if opened == "[" and out[start + 1:] == [".", ".", "."]:
+            out[start + 1:] = ["..", "][", "."]
+        out.append(CLOSERS[opened])
+
     for i, (text, bracket) in enumerate(pieces):
         if bracket in (SEPARATOR, RAW):
             following = pieces[i + 1][1] if bracket == SEPARATOR and i + 1 < len(pieces) else None
             if opened and following != opened:
-                out.append(CLOSERS[opened])
+                close()
                 opened = None
             out.append(text)
             continue
         if bracket != opened:
             if opened:
-                out.append(CLOSERS[opened])
+                close()
             if bracket:
+                start = len(out)
                 out.append(bracket)
             opened = bracket
         out.append(text)
     if opened:
-        out.append(CLOSERS[opened])
+        close()
     return "".join(out)

@@ -16,7 +16,7 @@ from ..errors import NumcheckRangeError, NumcheckSyntaxError
 from ..grammar_loader import parser_for
 from .. import limits
 from ..reading import Reading, Slot, Status
-from .marks import SEPARATOR, join_marked
+from .marks import RAW, SEPARATOR, join_marked
 
 __all__ = ["NAME", "parse", "format", "render", "parse_places", "BAD_EXAMPLES"]
 
@@ -376,7 +376,7 @@ def _slot_chars(slot: Slot, chosen: Fraction | None) -> list[tuple[str, str | No
     if slot.gap is not None:
         if chosen is not None:
             return [(c, "[") for c in str(int(chosen))]
-        return [("...", "[")]
+        return [("[...]", RAW)]   # its own brackets: never merged with a lost place beside it
     if not slot.form:
         # A place made by expanding a gap [...] is lost: its chosen digits are a restoration.
         bracket = "[" if slot.status in (Status.LOST, Status.RESTORED) else None
