@@ -160,6 +160,15 @@ def call_read(rng):
     _json(r.to_dict())
     if not r.min <= r.value <= r.max:
         raise AssertionError(f"value {r.value} outside {r.min}..{r.max}")
+    # Written back in its notation, the reading reads the same (damage marks included).
+    from numcheck.notations import format_reading, render_choice
+    written = format_reading(r)
+    if r.notation != "quantity":
+        again = numcheck.read(written, notation=r.notation)
+        if (again.value, again.min, again.max, again.count) != (r.value, r.min, r.max, r.count):
+            raise AssertionError(f"written back as {written!r}, it reads differently")
+    for _, (expansion, choice) in zip(range(3), r.choices()):
+        render_choice(expansion, choice)
 
 
 def call_identify(rng):
