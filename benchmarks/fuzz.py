@@ -164,7 +164,10 @@ def call_read(rng):
     from numcheck.notations import format_reading, render_choice
     written = format_reading(r)
     if r.notation != "quantity":
-        again = numcheck.read(written, notation=r.notation)
+        try:
+            again = numcheck.read(written, notation=r.notation)
+        except NumcheckError as err:
+            raise AssertionError(f"written back as {written!r}, it does not read: {err}") from None
         if (again.value, again.min, again.max, again.count) != (r.value, r.min, r.max, r.count):
             raise AssertionError(f"written back as {written!r}, it reads differently")
     for _, (expansion, choice) in zip(range(3), r.choices()):
