@@ -66,11 +66,8 @@ CASES = [
 ]
 
 # Cases that still fail in code owned by another helper at the time of writing
-# (not run: each would spend its full slowness in the suite).
-XFAIL: dict[int, str] = {
-    i: "slow in numcheck/identify/core.py (owned by the identify helper at the time)"
-    for i, (entry, _, _) in enumerate(CASES) if entry == "identify"
-}
+# (marked xfail, not run: each would spend its full slowness in the suite).
+XFAIL: dict[int, str] = {}
 
 # Longest an entry point may take on one of these inputs (seconds): a hang is a bug too.
 TIME_LIMIT = 10.0
