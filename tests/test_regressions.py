@@ -45,6 +45,13 @@ CASES = [
     ("roundtrip", ("Χ[.][..]ΗΔΔΙΙ", "attic"), "attic: the same"),
     ("roundtrip", ("[...],[3]0", "sexagesimal"),
      "sexagesimal: a gap beside a lost digit written back as '[...,3]0', which does not read"),
+    ("audit", {"A": ["1" * 5000, "2", "3"]},
+     "audit: a plain cell of 5000 digits went past the reader's limits into int() "
+     "(ValueError: exceeds the limit for integer string conversion)"),
+    ("audit", {"A": ["1," * 3000 + "1", "2", "3"]},
+     "audit: a plain cell of 3001 places was read by the table's fast path past MAX_PLACES"),
+    ("audit", {"A": ["x " * 3000 + "Taurus", "2", "3"]},
+     "audit: a cell longer than MAX_TEXT_LENGTH went to the longitude pattern (quadratic)"),
     ("audit", {"A": ["2;14", "-6"], "B": ["0,7,41", "0,9,55"], "C": ["ακ", "α[.]"]},
      "audit: a reciprocal scheme tried on a negative cell looped for ever (the magnitude of a "
      "negative reciprocal grew without end)"),

@@ -35,6 +35,7 @@ __all__ = ["Cell", "Column", "Table", "read_table", "ZODIAC", "sign_index"]
 
 
 _PLAIN = re.compile(r"-?\d+(?:,\d+)*(?:;\d+(?:,\d+)*)?")
+_SEPARATORS = re.compile(r"[,;]")
 _LONGITUDE = re.compile(r"(?P<number>.*\S)\s+(?P<sign>\S+)")
 
 
@@ -299,6 +300,9 @@ def _cell(row: int, column: str, text: str, notation, source) -> Cell:
     if not text:
         raise NumcheckError(f"Row {row}, column {column!r} of {source} is empty. Write the "
                             "number, or mark a lost cell with '[...]'.")
+    if len(text) > limits.MAX_TEXT_LENGTH:
+        raise LimitError(f"length of row {row}, column {column!r} of {source}", f"{len(text):,} characters",
+                         f"{limits.MAX_TEXT_LENGTH:,}", "Set numcheck.limits.MAX_TEXT_LENGTH higher to read it.")
     sign_name = None
     number = text
     m = _LONGITUDE.fullmatch(text)
@@ -332,6 +336,11 @@ def _cell(row: int, column: str, text: str, notation, source) -> Cell:
 
 
 def _fast(row, column, number, notation, text) -> Cell | None:
+    # Too many places, or a place of more digits than the reader accepts:
+    # let the reader give its own error (the same limits as numcheck.read).
+    if number.count(",") + number.count(";") >= limits.MAX_PLACES or \
+            any(len(p) > 6 for p in _SEPARATORS.split(number.lstrip("-"))):
+        return None
     neg = number.startswith("-")
     whole, _, frac = (number[1:] if neg else number).partition(";")
     total = 0
