@@ -140,6 +140,10 @@ def number_text(rng: random.Random) -> tuple[str, str | None]:
         text = mutate(rng, rng.choice(SEEDS[notation]), 1)
     else:
         text = mutate(rng, rng.choice(SEEDS[notation]))
+    if rng.random() < 0.02:
+        # A long paste: the number (or a piece of it) many times over, past the limits.
+        piece = text or "1,"
+        text = piece * (rng.randrange(500, 7000) // len(piece) + 1)
     return text, (None if rng.random() < 0.6 else rng.choice(NOTATIONS))
 
 
@@ -215,6 +219,8 @@ def random_table(rng) -> pd.DataFrame:
                 cell = str(ri + 1)
             if rng.random() < 0.08:
                 cell = mutate(rng, cell, 1)
+            if rng.random() < 0.005:
+                cell = (cell or "1") * rng.randrange(100, 3000)
             column.append(cell)
         data[names[ci] + ("" if names[ci] not in data else str(ci))] = column
     if rng.random() < 0.05 and rows:
