@@ -42,7 +42,7 @@ def read(text: str, notation: str | None = None, unit: str | None = None) -> Rea
         raise LimitError("length of the text", f"{len(text)} characters", limits.MAX_TEXT_LENGTH,
                          "Set numcheck.limits.MAX_TEXT_LENGTH higher to read it.")
     normal = check_lookalikes(unicodedata.normalize("NFC", text).strip())
-    if notation is not None and notation not in NOTATIONS:
+    if notation is not None and (not isinstance(notation, str) or notation not in NOTATIONS):
         notation_module(notation)  # raises UnknownNameError with suggestions
     if notation == quantity.NAME or quantity.has_units(normal):
         reading = quantity.parse(normal, notation=None if notation == quantity.NAME else notation)

@@ -87,6 +87,8 @@ def _parser() -> etree.XMLParser:
 
 def read_bytes(path: str | os.PathLike) -> bytes:
     """The bytes of *path*, after checking the size limit (the file is only read)."""
+    if not isinstance(path, (str, os.PathLike)):
+        raise NumcheckError(f"Expected the path of an XML file, got {type(path).__name__}.")
     p = Path(path)
     if not p.is_file():
         raise TeiError(p, None, "no such file" if not p.exists() else "not a file")

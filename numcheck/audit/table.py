@@ -251,7 +251,11 @@ def _build(header, rows, *, notation, columns, source) -> Table:
     header = [_nfc(h) for h in header]
     rows = [[_nfc(c) for c in r] for r in rows]
     if columns is not None:
-        columns = _nfc(columns) if isinstance(columns, str) else [_nfc(c) for c in columns]
+        try:
+            columns = _nfc(columns) if isinstance(columns, str) else [_nfc(str(c)) for c in columns]
+        except TypeError:
+            raise NumcheckError(f"columns= must be a header name or a list of them, not "
+                                f"{type(columns).__name__}.") from None
     if not header or all(not h for h in header):
         raise NumcheckError(f"The table {source} has no header row.")
     if not rows:

@@ -31,7 +31,7 @@ NOTATIONS: dict[str, str] = {
 
 def notation_module(name: str) -> ModuleType:
     """The module for the notation called *name*."""
-    if name not in NOTATIONS:
+    if not isinstance(name, str) or name not in NOTATIONS:
         raise UnknownNameError("notation", name, NOTATIONS)
     return importlib.import_module(NOTATIONS[name])
 
