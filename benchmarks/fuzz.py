@@ -332,34 +332,6 @@ VALUES = ["days", "months", "years", "moon", "sun", "venus", "julian", "egyptian
           "Nabonassar 1 Thoth 1", "-747-02-26", "2000-01-01", "synodic,sidereal", "periods"]
 
 
-def call_cli(rng, tmp: Path):
-    from numcheck.cli import main
-    argv = [rng.choice(COMMANDS)]
-    for _ in range(rng.randrange(0, 5)):
-        r = rng.random()
-        if r < 0.35:
-            argv.append(rng.choice(OPTIONS))
-        elif r < 0.65:
-            argv.append(rng.choice(VALUES))
-        elif r < 0.9:
-            argv.append(number_text(rng)[0])
-        else:
-            argv.append(str(tmp / rng.choice(["t.tsv", "in.xml", "missing.xml", "out.html"])))
-    if rng.random() < 0.7:
-        argv.append("--json")
-    (tmp / "t.tsv").write_text("A\tB\n1;0\t2;0\n1;10\t2;20\n1;20\t2;4[x]\n", encoding="utf-8")
-    (tmp / "in.xml").write_bytes(random_xml(rng))
-    LAST[0] = argv
-    out, err = io.StringIO(), io.StringIO()
-    with contextlib.redirect_stdout(out), contextlib.redirect_stderr(err):
-        try:
-            code = main(argv)
-        except SystemExit as stop:
-            code = stop.code
-    if code not in (0, 2, None):
-        raise AssertionError(f"exit {code} for {argv!r}: {err.getvalue()[-400:]}")
-
-
 SPANS = ["19", "6585 1/3", "1,49,45;20", "19756/3", "223", "8", "6585.333", "4267", "1/24", "0;59,8"]
 DATES = ["Nabonassar 1 Thoth 1", "747 BC Feb 26", "AD 1 Jan 1", "-746-02-26", "JD 1448638",
          "Philip 1 Thoth 1", "1-01-01", "Nabonassar 748 Tybi 12", "Augustus 1 Thoth 1"]
@@ -387,6 +359,115 @@ def call_interval(rng):
     a, b, calendar = date(), date(), rng.choice(CALENDARS)
     LAST[0] = (a, b, calendar)
     _json(numcheck.interval(a, b, calendar=calendar).to_dict())
+
+
+def _plausible_argv(rng, tmp: Path) -> list[str]:
+    """A command line as a user would type it: the command, its arguments, some of its options."""
+    def num():
+        return number_text(rng)[0]
+
+    def pick(*values):
+        return rng.choice(values)
+
+    command = rng.choice(COMMANDS)
+    text, notation = number_text(rng)
+    if command in ("read", "identify", "restore"):
+        argv = [command, text]
+        if notation and rng.random() < 0.5:
+            argv += [pick("--notation", "-n"), notation]
+        if rng.random() < 0.4:
+            argv += [pick("--unit", "-u"), str(rng.choice(UNITS[1:]))]
+        if command != "read" and rng.random() < 0.3:
+            argv += [pick("--top", "-k"), pick("1", "3", "0", "-2", "100000", "x")]
+        if command == "restore" and rng.random() < 0.3:
+            argv += ["--expect", num()]
+        if command == "restore" and rng.random() < 0.3:
+            argv.append("--no-catalogue")
+    elif command == "audit":
+        argv = ["audit", str(tmp / pick("t.tsv", "t.tsv", "in.xml", "missing.tsv", "."))]
+        if rng.random() < 0.3:
+            argv += ["--csv", str(tmp / pick("f.csv", "t.tsv", "f.txt"))]
+        if rng.random() < 0.2:
+            argv += ["--report", str(tmp / pick("r.html", "t.tsv", "nofolder/r.html"))]
+        if rng.random() < 0.1:
+            argv += ["--plot", str(tmp / pick("p.png", "p.svg", "p.pdf"))]
+        if rng.random() < 0.2:
+            argv += ["--relation", pick("B = A + A", "B = prev(B) + A mod 360", "C = A * B", num())]
+        if rng.random() < 0.2:
+            argv += ["--columns", pick("A", "B", "A,B", "Z", "")]
+        if rng.random() < 0.2:
+            argv += ["--notation", rng.choice(NOTATIONS)]
+    elif command == "relate":
+        argv = ["relate"]
+        if rng.random() < 0.8:
+            argv += [pick(*SPANS) if rng.random() < 0.5 else mutate(rng, pick(*SPANS), 1),
+                     "--unit", pick("years", "months", "days", "weeks")]
+        else:
+            argv += ["--search", pick("venus", "moon", "mars", "sun", "x"),
+                     "--max-years", pick("50", "300", "0", "-1", "100000")]
+        if rng.random() < 0.3:
+            argv += ["--values", pick("modern", "ancient")]
+        if rng.random() < 0.2:
+            argv += ["--tradition", pick("babylonian", "greek", "indian", "x")]
+        if rng.random() < 0.2:
+            argv += ["--top", pick("1", "5", "0")]
+    elif command == "interval":
+        argv = ["interval", pick(*DATES) if rng.random() < 0.5 else mutate(rng, pick(*DATES), 1),
+                pick(*DATES) if rng.random() < 0.5 else mutate(rng, pick(*DATES), 1)]
+        if rng.random() < 0.4:
+            argv += ["--calendar", rng.choice(CALENDARS)]
+    elif command == "annotate":
+        argv = ["annotate", str(tmp / pick("in.xml", "in.xml", "missing.xml", "t.tsv"))]
+        if rng.random() < 0.5:
+            argv += ["-o", str(tmp / pick("out.xml", "in.xml", "nofolder/out.xml"))]
+        if rng.random() < 0.4:
+            argv += ["-k", pick("0", "1", "3", "-1")]
+        if rng.random() < 0.2:
+            argv.append("--fix")
+        if rng.random() < 0.2:
+            argv += ["--notation", rng.choice(NOTATIONS)]
+    else:
+        argv = ["catalogue"]
+        if rng.random() < 0.5:
+            argv += ["--body", pick("moon", "sun", "venus", "x", "calendar")]
+        if rng.random() < 0.3:
+            argv += ["--kind", pick("periods", "parameters", "relations")]
+        if rng.random() < 0.3:
+            argv += ["--tradition", pick("babylonian", "greek", "indian", "islamic", "modern", "x")]
+    return argv
+
+
+def call_cli(rng, tmp: Path):
+    from numcheck.cli import main
+    if rng.random() < 0.7:
+        argv = _plausible_argv(rng, tmp)
+    else:
+        argv = [rng.choice(COMMANDS)]
+        for _ in range(rng.randrange(0, 5)):
+            r = rng.random()
+            if r < 0.35:
+                argv.append(rng.choice(OPTIONS))
+            elif r < 0.65:
+                argv.append(rng.choice(VALUES))
+            elif r < 0.9:
+                argv.append(number_text(rng)[0])
+            else:
+                argv.append(str(tmp / rng.choice(["t.tsv", "in.xml", "missing.xml", "out.html"])))
+    if rng.random() < 0.7:
+        argv.append("--json")
+    (tmp / "t.tsv").write_text("A\tB\n1;0\t2;0\n1;10\t2;20\n1;20\t2;4[x]\n", encoding="utf-8")
+    (tmp / "in.xml").write_bytes(random_xml(rng))
+    LAST[0] = argv
+    out, err = io.StringIO(), io.StringIO()
+    with contextlib.redirect_stdout(out), contextlib.redirect_stderr(err):
+        try:
+            code = main(argv)
+        except SystemExit as stop:
+            code = stop.code
+    if code not in (0, 2, None):
+        raise AssertionError(f"exit {code} for {argv!r}: {err.getvalue()[-400:]}")
+    if "--json" in argv and code == 0:
+        json.loads(out.getvalue())
 
 
 ENTRY_POINTS = {
