@@ -29,6 +29,7 @@ import io
 import json
 import os
 import random
+import re
 import signal
 import sys
 import tempfile
@@ -227,6 +228,44 @@ def random_table(rng) -> pd.DataFrame:
         first = next(iter(data))
         data[first] = [rng.choice([None, 1.5, 3, float("nan")])] + data[first][1:]
     return pd.DataFrame(data, dtype=object)
+
+
+_DEMO_TABLE: list[list[str]] = []
+
+
+def _demo_rows() -> list[list[str]]:
+    """The lines of the demo ephemeris (an invented table computed by lunar System B)."""
+    if not _DEMO_TABLE:
+        path = Path(numcheck.__file__).parent / "data" / "demo" / "ephemeris.tsv"
+        lines = [ln for ln in path.read_text(encoding="utf-8").splitlines() if ln and not ln.startswith("#")]
+        _DEMO_TABLE.extend(ln.split("\t") for ln in lines)
+    return _DEMO_TABLE
+
+
+def call_audit_scheme(rng):
+    """A window of a real scheme table with random damage, slips and marks in its cells."""
+    rows = _demo_rows()
+    header, body = rows[0], rows[1:]
+    start = rng.randrange(0, len(body) - 3)
+    window = [list(r) for r in body[start:start + rng.randrange(3, 40)]]
+    for r in window:
+        for j in range(1, len(r)):
+            x = rng.random()
+            if x < 0.01:
+                r[j] = mutate(rng, r[j], 1)
+            elif x < 0.05:
+                k = rng.randrange(len(r[j]))
+                if r[j][k].isdigit():
+                    r[j] = r[j][:k] + rng.choice(["x", "[x]", f"[{r[j][k]}]", str((int(r[j][k]) + 1) % 10)]) + \
+                        r[j][k + 1:]
+            elif x < 0.06:   # the number lost, the sign name kept
+                r[j] = re.sub(r"^[\d;,]+", rng.choice(["[...]", "[x,x;x,x]", "x"]), r[j])
+    frame = pd.DataFrame({h: [r[i] for r in window] for i, h in enumerate(header)}, dtype=object)
+    kwargs = {}
+    if rng.random() < 0.2:
+        kwargs["relation"] = rng.choice(["B = prev(B) + A mod 360", "B = A + A", "A = B"])
+    LAST[0] = (frame.to_dict("list"), kwargs)
+    _json(numcheck.audit(frame, **kwargs).to_dict())
 
 
 def call_audit_frame(rng):
@@ -477,13 +516,14 @@ ENTRY_POINTS = {
     "relate": lambda rng, tmp: call_relate(rng),
     "interval": lambda rng, tmp: call_interval(rng),
     "audit-frame": lambda rng, tmp: call_audit_frame(rng),
+    "audit-scheme": lambda rng, tmp: call_audit_scheme(rng),
     "audit-file": call_audit_file,
     "annotate": call_annotate,
     "cli": call_cli,
 }
 # Share of the inputs each entry point gets (the cheap ones more).
-WEIGHTS = {"read": 30, "identify": 10, "restore": 10, "relate": 6, "interval": 6, "audit-frame": 12,
-           "audit-file": 8, "annotate": 12, "cli": 9}
+WEIGHTS = {"read": 30, "identify": 10, "restore": 10, "relate": 6, "interval": 6, "audit-frame": 8,
+           "audit-scheme": 6, "audit-file": 8, "annotate": 12, "cli": 9}
 
 
 class Hang(Exception):

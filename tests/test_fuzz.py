@@ -214,6 +214,13 @@ def test_audit_random_dataframes(rng):
 
 @_share(1.0)
 @given(st.randoms(use_true_random=False))
+def test_audit_damaged_scheme_tables(rng):
+    """Windows of a real scheme table (the demo ephemeris) with random damage and slips."""
+    _quiet(fuzz.call_audit_scheme, rng)
+
+
+@_share(1.0)
+@given(st.randoms(use_true_random=False))
 def test_audit_random_table_files(rng):
     with tempfile.TemporaryDirectory() as tmp:
         _quiet(fuzz.call_audit_file, rng, Path(tmp))
