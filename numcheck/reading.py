@@ -94,6 +94,10 @@ class Reading:
     unit: str | None = None
     warnings: tuple[str, ...] = ()
     detected: str | None = None   # how the notation was chosen, when it was not given
+    #: The factor a unit conversion multiplied the slot values by (a quantity
+    #: read in UŠ and given in months): one unit of the last written place is
+    #: then base**last_place times this.
+    unit_factor: Fraction = Fraction(1)
 
     # -- structure --------------------------------------------------------
     @property
@@ -193,8 +197,8 @@ class Reading:
 
     @property
     def ulp(self) -> Fraction:
-        """One unit of the last written place."""
-        return self._weight(self.last_place)
+        """One unit of the last written place (in the reading's unit, after any conversion)."""
+        return self._weight(self.last_place) * self.unit_factor
 
     def choices(self) -> Iterator[tuple["Reading", tuple[Fraction, ...]]]:
         """Lazily yield (expansion, one value per slot) for every reading."""

@@ -70,6 +70,9 @@ CASES = [
      "identify: a Greek number with an unread letter of any rank (18 readings, 190 to 9090) "
      "took 9 s the same way"),
     ("identify", ("𒌋[x]", None), "identify: a cuneiform sign with a lost units digit (4 s)"),
+    ("identify", ("1[x] UŠ", "cuneiform", "months"),
+     "a quantity converted to another unit kept one unit of its last place as 1 (in months, "
+     "not 1 UŠ in months): identify compared 800,000 candidates (19 s)"),
 ]
 
 # Cases that still fail in code owned by another helper at the time of writing
@@ -148,3 +151,12 @@ def test_regression(entry, data, note):
         except NumcheckError:
             pass
     assert time.perf_counter() - start < TIME_LIMIT, f"too slow: {note}"
+
+
+def test_a_converted_quantity_keeps_its_last_place_in_the_new_unit():
+    """One UŠ is 4 minutes (1/360 day; common practice): 1/15 hour."""
+    from fractions import Fraction
+
+    assert numcheck.read("2 bēru 10 UŠ", unit="hours").ulp == Fraction(1, 15)
+    assert numcheck.read("2 bēru 10 UŠ").ulp == 1
+    assert numcheck.read("3 signs 12;30°", unit="signs").ulp == Fraction(1, 60 * 30)

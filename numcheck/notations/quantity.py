@@ -384,7 +384,8 @@ def with_unit(reading: Reading, unit: str, convention: str | None = None) -> Rea
     notes = reading.warnings
     if converted.convention:
         notes += (f"converted from {reading.unit} to {target} with the convention {converted.convention}",)
-    return replace(reading, slots=slots, unit=target, warnings=notes)
+    return replace(reading, slots=slots, unit=target, warnings=notes,
+                   unit_factor=reading.unit_factor * factor)
 
 
 def _rescaled_form(form: tuple, factor: Fraction) -> tuple:
