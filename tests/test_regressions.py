@@ -52,6 +52,10 @@ CASES = [
      "audit: a plain cell of 3001 places was read by the table's fast path past MAX_PLACES"),
     ("audit", {"A": ["x " * 3000 + "Taurus", "2", "3"]},
      "audit: a cell longer than MAX_TEXT_LENGTH went to the longitude pattern (quadratic)"),
+    ("roundtrip", ("{29};31,50,8,20", "sexagesimal"),
+     "sexagesimal: a superfluous whole place written back as '{29},31,50,8,20' (an integer)"),
+    ("roundtrip", ("365{;14},4[x]", "sexagesimal"),
+     "sexagesimal: a superfluous place after ';' written back as '365,{14};4[x]', which does not read"),
     ("audit", {"A": ["2;14", "-6"], "B": ["0,7,41", "0,9,55"], "C": ["ακ", "α[.]"]},
      "audit: a reciprocal scheme tried on a negative cell looped for ever (the magnitude of a "
      "negative reciprocal grew without end)"),

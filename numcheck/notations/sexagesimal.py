@@ -350,9 +350,9 @@ def format(reading: Reading, choice: tuple[Fraction, ...] | None = None) -> str:
     for i, slot in enumerate(reading.slots):
         sep = ""
         if i:
-            sep = ";" if (not seen_units and slot.place < 0 and
-                          any(s.place >= 0 for s in reading.slots[:i] if s.counted)
-                          and slot.counted) else ","
+            # ';' before the first fractional place, superfluous or not (the
+            # scribe's extra sign stays where it was written: '{29};31', '365;{14},4').
+            sep = ";" if (not seen_units and slot.place < 0) else ","
             if sep == ";":
                 seen_units = True
         elif slot.place < 0 and not reading.floating:
