@@ -44,6 +44,9 @@ IDENTIFY_MAX_SIMPLE = 12
 IDENTIFY_MAX_TARGETS = 50_000
 #: Longest span, in years, that ``relate --search`` walks (months: this many years of them).
 RELATE_MAX_SEARCH_YEARS = 20_000
+#: Most catalogue candidates (values times factors) identify compares for one number; past
+#: it only simple parts and multiples are compared (long multiples left out, with a note).
+IDENTIFY_MAX_CANDIDATES = 100_000
 #: identify compares the whole range a damaged reading allows only up to this many readings.
 IDENTIFY_DAMAGE_READINGS = 60
 #: Most candidates a restoration lists (``top``).

@@ -84,7 +84,8 @@ COMMANDS = {
     "read quantity": ["read", "3 signs 1[x];30°", "--unit", "degrees"],
     "identify": ["identify", "1,49,45;20", "--unit", "days"],
     "identify floating": ["identify", "29,31,50,8,20"],
-    "identify no match": ["identify", "6,3[x]"],
+    "identify no match": ["identify", "7,7,7;7,7"],
+    "identify damaged": ["identify", "6,3[x]"],
     "restore": ["restore", "29;31,5[x],8,20", "--unit", "days"],
     "restore greek": ["restore", "ϛφπ[.] γʹ", "--unit", "days"],
     "restore expect": ["restore", "1,[x];30", "--expect", "1,5;30"],
@@ -115,19 +116,14 @@ def test_no_float_in_an_exact_field(label):
     assert _unknown(violations(result)) == []
 
 
-#: A violation in code another helper was still changing when this was written.
-KNOWN = ("nearest.residual",)
-
-
 def _unknown(found: list[str]) -> list[str]:
-    return [v for v in found if not v.startswith(KNOWN)]
+    return found
 
 
-@pytest.mark.xfail(strict=False, reason="identify's 'nearest' list gives its residual as a float "
-                   "(numcheck/identify/core.py _nearest), owned by the identify helper at the time")
 def test_identify_nearest_residual_is_exact():
     result = _json(COMMANDS["identify no match"])
     assert result["nearest"] and violations(result) == []
+    assert all(isinstance(n["residual_decimal"], float) for n in result["nearest"])
 
 
 def test_demo_files_have_no_float_in_an_exact_field(tmp_path):

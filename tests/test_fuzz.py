@@ -257,14 +257,8 @@ anything = st.one_of(st.none(), st.booleans(), st.integers(-5, 10 ** 20), st.flo
                      st.text(max_size=8), st.lists(st.integers(), max_size=2), st.binary(max_size=4))
 
 
-_OTHERS = pytest.mark.xfail(strict=False, run=False, reason="argument types not yet checked in code another "
-                            "helper was changing: identify top='3' or None (TypeError), restore "
-                            "expect=nan (ValueError), inf (OverflowError), [1] (TypeError)")
-
-
-@pytest.mark.parametrize("entry", ["read", pytest.param("identify", marks=_OTHERS),
-                                   pytest.param("restore", marks=_OTHERS), "relate", "interval",
-                                   "audit", "annotate"])
+@pytest.mark.parametrize("entry", ["read", "identify", "restore", "relate", "interval", "audit",
+                                   "annotate"])
 @given(data=st.data())
 def test_wrong_types_are_numcheck_errors(entry, data):
     """A value of the wrong type for any argument is a NumcheckError, not a TypeError."""

@@ -56,6 +56,15 @@ CASES = [
      "sexagesimal: a superfluous whole place written back as '{29},31,50,8,20' (an integer)"),
     ("roundtrip", ("365{;14},4[x]", "sexagesimal"),
      "sexagesimal: a superfluous place after ';' written back as '365,{14};4[x]', which does not read"),
+    ("restore", ("[Χ𐅅ΗΔΔΙΙ]", "attic"),
+     "restore: a wholly lost Attic number (10^7 readings) walked 33 million windows for 40 s "
+     "before its LimitError; the search now stops as soon as the matches pass the limit"),
+    ("restore", ("[τξε ιδ μη]", "greek"), "restore: a wholly lost Greek number, the same (9 s)"),
+    ("restore-expect", float("nan"), "restore: expect=nan raised ValueError"),
+    ("restore-expect", float("inf"), "restore: expect=inf raised OverflowError"),
+    ("restore-expect", [1], "restore: expect=[1] raised TypeError"),
+    ("identify-top", "3", "identify: top='3' raised TypeError"),
+    ("identify-top", None, "identify: top=None raised TypeError"),
     ("audit", {"A": ["2;14", "-6"], "B": ["0,7,41", "0,9,55"], "C": ["ακ", "α[.]"]},
      "audit: a reciprocal scheme tried on a negative cell looped for ever (the magnitude of a "
      "negative reciprocal grew without end)"),
@@ -108,6 +117,10 @@ def _run(entry: str, data) -> None:
         again = numcheck.read(format_reading(reading), notation=notation)
         assert (again.value, again.min, again.max, again.count) == \
             (reading.value, reading.min, reading.max, reading.count)
+    elif entry == "restore-expect":
+        numcheck.restore("1,2[x]", expect=data, use_catalogue=False).to_dict()
+    elif entry == "identify-top":
+        numcheck.identify("1,2[x]", top=data).to_dict()
     elif entry == "relate":
         numcheck.relate(data, "days").to_dict()
     elif entry == "batch-workers":

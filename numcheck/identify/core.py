@@ -225,8 +225,8 @@ def identify(reading_or_text, *, notation: str | None = None, unit: str | None =
     """
     from ..reader import read
 
-    if top < 1:
-        raise NumcheckError(f"--top must be at least 1, got {top}.")
+    if isinstance(top, bool) or not isinstance(top, int) or top < 1:
+        raise NumcheckError(f"--top must be a whole number, at least 1, got {top!r}.")
     reading = reading_or_text if isinstance(reading_or_text, Reading) else read(
         reading_or_text, notation=notation, unit=unit)
     unit = unit if unit is not None else reading.unit
@@ -240,7 +240,8 @@ def identify(reading_or_text, *, notation: str | None = None, unit: str | None =
     notes: list[str] = []
     use_range = reading.damaged and reading.count <= limits.IDENTIFY_DAMAGE_READINGS
     if reading.damaged and not use_range:
-        notes.append(f"The damage allows {reading.count:,} readings: only the edition's value "
+        notes.append(f"The damage allows {reading.count:,} readings (over numcheck.limits."
+                     f"IDENTIFY_DAMAGE_READINGS = {limits.IDENTIFY_DAMAGE_READINGS}): only the edition's value "
                      f"({sexagesimal_text(value, fixed=not reading.floating)}) was compared. "
                      "Use 'numcheck restore' to rank the readings the traces allow.")
     found: dict[tuple, tuple] = {}
@@ -251,6 +252,7 @@ def identify(reading_or_text, *, notation: str | None = None, unit: str | None =
     # between the least and the greatest, which a wide damage makes almost
     # any number do.
     allowed = sorted(set(reading.readings())) if use_range else [value]
+    crowded = False
     for scale in _scales(reading):
         p = Fraction(60) ** scale
         ulp = reading.ulp * p
@@ -264,7 +266,16 @@ def identify(reading_or_text, *, notation: str | None = None, unit: str | None =
             # A number written to fewer than three significant figures (one
             # unit of its last place is over 1% of it) is met by long whole
             # multiples of almost any period: only simple factors say anything.
-            items, nums, dens = _t.candidates(tab, lo, hi, multiples=100 * ulp <= v)
+            items, nums, dens = _t.candidates(tab, lo, hi, multiples=100 * ulp <= v and not crowded)
+            if considered + len(items) > limits.IDENTIFY_MAX_CANDIDATES and not crowded:
+                # Too many long multiples within reach (wide damage, many scales):
+                # compare simple parts and multiples only, and say so.
+                crowded = True
+                notes.append(f"More than {limits.IDENTIFY_MAX_CANDIDATES:,} catalogue multiples lie "
+                             "within reach of the readings (numcheck.limits.IDENTIFY_MAX_CANDIDATES): "
+                             "only simple parts and multiples were compared. Fewer lost places or the "
+                             "unit would narrow it; set the limit higher to compare them all.")
+                items, nums, dens = _t.candidates(tab, lo, hi, multiples=False)
             considered += len(items)
             for k in range(len(items)):
                 idx, factor = int(items[k]), Fraction(int(nums[k]), int(dens[k]))
@@ -350,7 +361,8 @@ def _nearest(reading: Reading, tab: _t.Table, count: int = 5) -> tuple[dict, ...
             "unit": (tab.unit + item.per) if tab.unit else item.unit,
             "scale": scale,
             "difference": decimal_text(diff, 9),
-            "residual": float(diff / (reading.ulp * Fraction(60) ** scale)),
+            "residual": exact_text(diff / (reading.ulp * Fraction(60) ** scale)),
+            "residual_decimal": float(diff / (reading.ulp * Fraction(60) ** scale)),
             "relative": f"{rel:.2%}" if rel >= 1e-4 else f"{rel:.1e}",
         })
         if len(out) == count:

@@ -222,5 +222,7 @@ def _space_notes(reading, space, targets, possible, notes) -> None:
         notes.append(
             f"{count:,} readings are possible and no evidence singles any out; the list shows the "
             f"readings the traces favour." + (
-                " An expected value (--expect), the unit (so that the catalogue of periods can be "
-                "consulted) or the values the table around it expects would narrow it." if wide else ""))
+                f" That is a wide space (over numcheck.limits.RESTORE_WIDE_SPACE = "
+                f"{limits.RESTORE_WIDE_SPACE:,} readings): an expected value (--expect), the unit (so "
+                "that the catalogue of periods can be consulted) or the values the table around it "
+                "expects would narrow it." if wide else ""))

@@ -101,7 +101,12 @@ def _expect_target(reading: Reading, expect, notation: str | None) -> Target:
         value = expected.value
         label = f"the expected value {expect}"
     else:
-        value = Fraction(expect)
+        try:
+            value = Fraction(expect)
+        except (TypeError, ValueError, OverflowError):
+            raise NumcheckRangeError(f"The expected value {expect!r} is not an exact number.", value=expect,
+                                     legal="a text in the number's notation, or an int or Fraction"
+                                     ) from None
         label = f"the expected value {_value_text(reading, value)}"
     return Target(value, None, scoring.EXPECT_WEIGHT, label, "expect", id="expect")
 

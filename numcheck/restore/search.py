@@ -256,8 +256,13 @@ def inside(merged: tuple[list[int], list[int]], V: int) -> bool:
     return i < len(los) and los[i] <= V
 
 
-def _search_grid(grid: Grid, windows: list[Window], budget: list[int]):
-    """Branch and bound over the prefix; binary search in the sorted suffix block."""
+def _search_grid(grid: Grid, windows: list[Window], budget: list[int], matched: int = 0):
+    """Branch and bound over the prefix; binary search in the sorted suffix block.
+
+    *matched* readings already agree with the evidence (earlier grids): the
+    search stops as soon as the total passes ``limits.RESTORE_MAX_MATCHES``
+    (the same error :func:`find_matches` would give at the end, given early).
+    """
     start = _split(grid)
     suffix = _Suffix(grid, start)
     prefix = [sorted(range(len(cs)), key=lambda i, cs=cs: (cs[i], i)) for cs in grid.contrib[:start]]
@@ -293,6 +298,9 @@ def _search_grid(grid: Grid, windows: list[Window], budget: list[int]):
                 b = int(np.searchsorted(suffix.sums, w.hi - S, side="right"))
                 if b > a:
                     leaves.append((S, prior, path, a, b, w))
+                    matched += b - a
+            if matched > limits.RESTORE_MAX_MATCHES:
+                _too_many_matches(matched)
             continue
         cs = pre_c[depth]
         children = set()
@@ -307,6 +315,12 @@ def _search_grid(grid: Grid, windows: list[Window], budget: list[int]):
             oi = order[ci]
             stack.append((depth + 1, S + cs[ci], prior * grid.priors[depth][oi], path + (oi,)))
     return suffix, leaves
+
+
+def _too_many_matches(total: int):
+    raise LimitError("number of readings that agree with the evidence", f"over {total:,}",
+                     f"{limits.RESTORE_MAX_MATCHES:,}",
+                     "Give narrower evidence, or set numcheck.limits.RESTORE_MAX_MATCHES higher.")
 
 
 def find_matches(space: Space, grids: list[Grid], windows: list[list[Window]],
@@ -337,12 +351,10 @@ def find_matches(space: Space, grids: list[Grid], windows: list[list[Window]],
                     norm[t] += grid.sub.mass * kv
                     reached.setdefault((t, grid.sub.index), {})[grid.const] = kv
             continue
-        suffix, leaves = _search_grid(grid, wins, budget)
+        suffix, leaves = _search_grid(grid, wins, budget, total)
         total += sum(b - a for _, _, _, a, b, _ in leaves)
         if total > limits.RESTORE_MAX_MATCHES:
-            raise LimitError("number of readings that agree with the evidence", f"over {total:,}",
-                             f"{limits.RESTORE_MAX_MATCHES:,}",
-                             "Give narrower evidence, or set numcheck.limits.RESTORE_MAX_MATCHES higher.")
+            _too_many_matches(total)
         found: dict[tuple, int] = {}
         for S, prior, path, a, b, w in leaves:
             V = S + suffix.sums[a:b]
