@@ -65,6 +65,9 @@ CASES = [
     ("restore-expect", [1], "restore: expect=[1] raised TypeError"),
     ("identify-top", "3", "identify: top='3' raised TypeError"),
     ("identify-top", None, "identify: top=None raised TypeError"),
+    ("read", ("{[...]}ακ", "greek-ascending"),
+     "greek: lost places of unknown number inside a superfluous sign were read as a letter "
+     "worth 0 and written back as '{.}' (now the error a lost letter inside { } already gave)"),
     ("audit", {"A": ["2;14", "-6"], "B": ["0,7,41", "0,9,55"], "C": ["ακ", "α[.]"]},
      "audit: a reciprocal scheme tried on a negative cell looped for ever (the magnitude of a "
      "negative reciprocal grew without end)"),

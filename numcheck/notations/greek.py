@@ -242,7 +242,7 @@ def _items(text: str, group: Tree, state: dict) -> list[Item]:
                       "the fraction signs after the letters of their group")
             if t == "GAP" and state["lost"] is not None:
                 fail(text, "'[...]' inside brackets", tok.start_pos, "'[...]' standing alone")
-            if t == "DOT" and (state["added"] is not None or state["superfluous"] is not None):
+            if t in ("DOT", "GAP") and (state["added"] is not None or state["superfluous"] is not None):
                 fail(text, "a lost letter inside < > or { }", tok.start_pos, "letters inside < > and { }")
             items.append(_make_item(tok, state, thousands))
             if thousands is not None and t not in ("LETTER", "DOT"):
