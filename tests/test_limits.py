@@ -220,3 +220,24 @@ def test_limit_errors_exit_2_at_the_command_line(capsys):
     assert main(["read", "1," * 3000 + "1"]) == 2
     err = capsys.readouterr().err
     assert "MAX_TEXT_LENGTH" in err and "Traceback" not in err
+
+
+def test_restore_wide_space_note_names_its_limit():
+    result = numcheck.restore("x,x,x,x", use_catalogue=False, top=2)
+    assert any("numcheck.limits.RESTORE_WIDE_SPACE" in n for n in result.notes)
+
+
+def test_identify_damage_readings(monkeypatch):
+    monkeypatch.setattr(limits, "IDENTIFY_DAMAGE_READINGS", 5)
+    result = numcheck.identify("6,3[x]")
+    assert any("numcheck.limits.IDENTIFY_DAMAGE_READINGS" in n for n in result.notes)
+
+
+def test_identify_candidates(monkeypatch):
+    """Past the limit only simple parts and multiples are compared, quickly, with a note."""
+    monkeypatch.setattr(limits, "IDENTIFY_MAX_CANDIDATES", 50)
+    start = time.perf_counter()
+    result = numcheck.identify("n 30")
+    assert time.perf_counter() - start < 5
+    assert any("numcheck.limits.IDENTIFY_MAX_CANDIDATES" in n for n in result.notes)
+    assert all("×" not in m.what or m.factor.denominator <= limits.IDENTIFY_MAX_SIMPLE for m in result.matches)
