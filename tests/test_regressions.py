@@ -60,6 +60,9 @@ CASES = [
      "restore: a wholly lost Attic number (10^7 readings) walked 33 million windows for 40 s "
      "before its LimitError; the search now stops as soon as the matches pass the limit"),
     ("restore", ("[τξε ιδ μη]", "greek"), "restore: a wholly lost Greek number, the same (9 s)"),
+    ("restore", ("ι[.] [..ʹ]", None),
+     "restore: a lost unit fraction (486 denominators up to 9900) gave sums of integers past the "
+     "range of a float (OverflowError in the kernel mass); now summed exactly"),
     ("restore-expect", float("nan"), "restore: expect=nan raised ValueError"),
     ("restore-expect", float("inf"), "restore: expect=inf raised OverflowError"),
     ("restore-expect", [1], "restore: expect=[1] raised TypeError"),

@@ -183,21 +183,38 @@ def kernel_mass(lo: int, hi: int, cn: int, cd: int, tol: Fraction) -> float:
 
     if hi < lo:
         return 0.0
-    if tol == 0:
-        return float(hi - lo + 1)
-    slope = (1.0 - KERNEL_EDGE) * tol.denominator / (cd * tol.numerator)
-    if hi - lo < 8:                 # the usual window: one or two places of the last digit
-        return float(sum(1.0 - slope * abs(V * cd - cn) for V in range(lo, hi + 1)))
+    try:
+        if tol == 0:
+            return float(hi - lo + 1)
+        slope = (1.0 - KERNEL_EDGE) * tol.denominator / (cd * tol.numerator)
+        if hi - lo < 8:                 # the usual window: one or two places of the last digit
+            return float(sum(1.0 - slope * abs(V * cd - cn) for V in range(lo, hi + 1)))
+        return float(hi - lo + 1) - slope * _twice_distance(lo, hi, cn, cd) / 2
+    except OverflowError:
+        # Integers past the range of a float (the fine common unit of unit
+        # fractions with large denominators): the same sum, exactly.
+        mass = Fraction(hi - lo + 1)
+        if tol:
+            edge = Fraction(1.0 - KERNEL_EDGE) * Fraction(tol.denominator, cd * tol.numerator)
+            mass -= edge * Fraction(_twice_distance(lo, hi, cn, cd), 2)
+        try:
+            return float(mass)
+        except OverflowError:
+            raise LimitError("number of readings in one window of the restoration search",
+                             "over 10^308", "10^308 (the range of a floating-point number)",
+                             "Give fewer lost letters at once, or an expected value that narrows "
+                             "the search; this limit cannot be raised.") from None
 
+
+def _twice_distance(lo: int, hi: int, cn: int, cd: int) -> int:
+    """Twice the sum of |V * cd - cn| over V = lo..hi, exactly in integers."""
     def total(a: int, b: int) -> int:       # twice the sum of V over a..b
         return (a + b) * (b - a + 1) if b >= a else 0
 
     f = cn // cd
     left_hi, right_lo = min(hi, f), max(lo, f + 1)
     n1, n2 = max(0, left_hi - lo + 1), max(0, hi - right_lo + 1)
-    # twice the sum of |V * cd - cn| over the run, exactly in integers
-    twice = (2 * n1 * cn - cd * total(lo, left_hi)) + (cd * total(right_lo, hi) - 2 * n2 * cn)
-    return float(hi - lo + 1) - slope * twice / 2
+    return (2 * n1 * cn - cd * total(lo, left_hi)) + (cd * total(right_lo, hi) - 2 * n2 * cn)
 
 
 def estimate(grid: Grid, window: Window) -> float:
