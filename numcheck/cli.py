@@ -60,6 +60,18 @@ def build_parser() -> argparse.ArgumentParser:
     return parser
 
 
+def _console_class():
+    from rich.console import Console
+
+    class _PipeAwareConsole(Console):
+        """rich exits 1 when the reader of a pipe goes away; for us that is no error."""
+
+        def on_broken_pipe(self) -> None:
+            raise BrokenPipeError
+
+    return _PipeAwareConsole
+
+
 def main(argv: list[str] | None = None) -> int:
     parser = build_parser()
     args = parser.parse_args(argv)
@@ -68,7 +80,8 @@ def main(argv: list[str] | None = None) -> int:
         return 2
     from rich.console import Console
 
-    console = Console(stderr=False, highlight=False, soft_wrap=False)
+    _Console = _console_class()
+    console = _Console(stderr=False, highlight=False, soft_wrap=False)
     err_console = Console(stderr=True, highlight=False)
     try:
         with warnings.catch_warnings(record=True) as caught:
@@ -89,6 +102,13 @@ def main(argv: list[str] | None = None) -> int:
         return 2
     except KeyboardInterrupt:
         return 130
+    except BrokenPipeError:
+        # The reader of our output went away (`numcheck catalogue | head`):
+        # nothing is wrong; silence the flush at exit and stop.
+        import os
+
+        os.dup2(os.open(os.devnull, os.O_WRONLY), sys.stdout.fileno())
+        return 0
     except OSError as err:  # the file system said no (permissions, a full disk): not a fault of numcheck
         where = f" {err.filename!r}" if getattr(err, "filename", None) else ""
         message = f"cannot read or write{where}: {err.strerror or err}."

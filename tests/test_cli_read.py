@@ -59,3 +59,14 @@ def test_console_script_runs():
                           capture_output=True, text=True, check=False)
     assert proc.returncode == 0, proc.stderr
     assert json.loads(proc.stdout)["value"] == "19756/3"
+
+
+def test_a_reader_that_stops_early_is_no_error():
+    # `numcheck catalogue | head -1`: the pipe closes under us; exit 0, no message.
+    proc = subprocess.Popen([sys.executable, "-m", "numcheck.cli", "catalogue"],
+                            stdout=subprocess.PIPE, stderr=subprocess.PIPE)
+    proc.stdout.readline()
+    proc.stdout.close()
+    _, err = proc.communicate(timeout=60)
+    assert proc.returncode == 0, err
+    assert b"Traceback" not in err
