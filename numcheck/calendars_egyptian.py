@@ -45,7 +45,7 @@ def _check(era: Era, year: int, month: int, day: int, epagomenal_days: int) -> N
     elif not 1 <= day <= 30:
         name = months("egyptian")[month - 1].name
         raise range_error(f"Day {day} of {name} does not exist.", "day", value=day,
-                                 legal=f"days 1 to 30 (every Egyptian month has 30 days)")
+                                 legal="days 1 to 30 (every Egyptian month has 30 days)")
 
 
 def egyptian_to_jdn(era: Era, year: int, month: int, day: int) -> int:

@@ -26,7 +26,7 @@ from fractions import Fraction
 from .errors import LimitError, NumcheckRangeError, UnknownNameError
 from . import limits
 from .reading import decimal_text, exact_text
-from .relations_cycles import BODIES, CYCLES, UNITS, PeriodSet, unit_named
+from .relations_cycles import BODIES, CYCLES, PeriodSet, unit_named
 from .relations_known import KnownRelation, matching, matching_spans
 from .relations_search import best_ratios, record_spans
 

@@ -4,7 +4,7 @@ from __future__ import annotations
 
 from ..reader import read
 from ..notations import format_reading
-from ..reading import decimal_text, exact_text, sexagesimal_text
+from ..reading import exact_text, sexagesimal_text
 
 NAME = "read"
 HELP = "read a number as written into its exact value, keeping what is lost or doubtful"

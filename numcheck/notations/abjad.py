@@ -35,7 +35,7 @@ from ..errors import LimitError, NumcheckRangeError, NumcheckSyntaxError
 from ..grammar_loader import parser_for
 from .. import limits
 from ..reading import Reading, Slot, Status
-from .marks import join_marked
+from .marks import join_marked, status_in, track_bracket
 
 __all__ = ["NAME", "MAGHRIBI", "parse", "format", "render", "letter_values", "BAD_EXAMPLES"]
 
@@ -168,36 +168,13 @@ def parse(text: str, *, notation: str = NAME) -> Reading:
     return Reading(text=text, notation=notation, slots=tuple(slots), base=60)
 
 
-_BRACKETS = {"LOST_OPEN": ("lost", True), "LOST_CLOSE": ("lost", False), "ADD_OPEN": ("added", True),
-             "ADD_CLOSE": ("added", False), "SUPERFLUOUS_OPEN": ("superfluous", True),
-             "SUPERFLUOUS_CLOSE": ("superfluous", False), "HALF_OPEN": ("half", True),
-             "HALF_CLOSE": ("half", False)}
-
-
-def _status(state: dict, unread: bool) -> Status:
-    if state["superfluous"] is not None:
-        return Status.SUPERFLUOUS
-    if state["lost"] is not None:
-        return Status.LOST if unread else Status.RESTORED
-    if unread:
-        return Status.UNREAD
-    return Status.ADDED if state["added"] is not None else Status.READ
-
-
 def _marks(text: str, tokens: list[Token], state: dict, values: dict, all_values: tuple) -> list[_Mark]:
     marks: list[_Mark] = []
     for tok in tokens:
         t, start, end = tok.type, tok.start_pos, tok.end_pos
-        if t in _BRACKETS:
-            name, opening = _BRACKETS[t]
-            if opening and state[name] is not None:
-                raise _error(text, start, "a bracket opened inside the same kind of bracket",
-                             "the bracket opened before it to be closed first")
-            if not opening and state[name] is None:
-                raise _error(text, start, "a closing bracket with no opening bracket",
-                             "an opening bracket before it")
-            state[name] = start if opening else None
-        elif t == "DOUBT":
+        if track_bracket(t, start, state, lambda pos, what, exp: _error(text, pos, what, exp)):
+            continue
+        if t == "DOUBT":
             if not marks or marks[-1].kind != "letter":
                 raise _error(text, start, "a doubt mark with no letter before it", "a letter before '?'")
             marks[-1] = replace(marks[-1], doubtful=True, end=end)
@@ -207,16 +184,16 @@ def _marks(text: str, tokens: list[Token], state: dict, values: dict, all_values
                 raise _error(text, start, f"a letter with no abjad value ({unicodedata.name(ch, '?')})",
                              "one of the 28 abjad letters or a Persian/Urdu form of one")
             info = _table()[ch]
-            status = _status(state, False)
+            status = status_in(state, False)
             doubtful = state["half"] is not None or info.kind == "dotless"
             # A restored letter is the editor's: the traces allow any letter there.
             options = all_values if status is Status.RESTORED else values[ch]
             marks.append(_Mark(ch, options, "letter", status, doubtful, state["half"] is not None,
                                start, end, written=values[ch][0]))
         elif t == "ZERO":
-            marks.append(_Mark(str(tok), (0,), "zero", _status(state, False), False, False, start, end))
+            marks.append(_Mark(str(tok), (0,), "zero", status_in(state, False), False, False, start, end))
         elif t == "UNREAD":
-            marks.append(_Mark("x", all_values, "unread", _status(state, True), False, False, start, end))
+            marks.append(_Mark("x", all_values, "unread", status_in(state, True), False, False, start, end))
         elif t == "LOST_LETTERS":
             if state["lost"] is not None:
                 raise _error(text, start, "lost-letter dots inside brackets", "'[.]' standing alone")

@@ -38,7 +38,7 @@ from .. import limits
 from ..reading import Reading, Slot, Status
 from . import sexagesimal
 from .sexagesimal import assign_places
-from .marks import join_marked
+from .marks import join_marked, status_in, track_bracket
 
 __all__ = ["NAME", "parse", "format", "render", "sign_table", "SignInfo", "BAD_EXAMPLES", "is_cuneiform_sign"]
 
@@ -240,37 +240,15 @@ def _parse_signs(text: str) -> Reading:
     return Reading(text=text, notation=NAME, slots=tuple(slots), base=60, floating=not has_semi)
 
 
-_BRACKETS = {"LOST_OPEN": ("lost", True), "LOST_CLOSE": ("lost", False),
-             "ADD_OPEN": ("added", True), "ADD_CLOSE": ("added", False),
-             "SUPERFLUOUS_OPEN": ("superfluous", True), "SUPERFLUOUS_CLOSE": ("superfluous", False)}
-
-
-def _status(state: dict, unread: bool) -> Status:
-    if state["superfluous"] is not None:
-        return Status.SUPERFLUOUS
-    if state["lost"] is not None:
-        return Status.LOST if unread else Status.RESTORED
-    if unread:
-        return Status.UNREAD
-    return Status.ADDED if state["added"] is not None else Status.READ
-
-
 def _sign_place(text: str, tokens: list[Token], state: dict) -> Slot:
     start, end = tokens[0].start_pos, tokens[-1].end_pos
     written = text[start:end]
     items: list[_Item] = []
     gap = None
     for tok in tokens:
-        if tok.type in _BRACKETS:
-            name, opening = _BRACKETS[tok.type]
-            if opening and state[name] is not None:
-                raise _syntax(text, tok.start_pos, "a bracket opened inside the same kind of bracket",
-                              f"the bracket opened at column {state[name] + 1} to be closed first")
-            if not opening and state[name] is None:
-                raise _syntax(text, tok.start_pos, "a closing bracket with no opening bracket",
-                              "an opening bracket before it")
-            state[name] = tok.start_pos if opening else None
-        elif tok.type == "DOUBT":
+        if track_bracket(tok.type, tok.start_pos, state, lambda pos, what, exp: _syntax(text, pos, what, exp)):
+            continue
+        if tok.type == "DOUBT":
             if not items:
                 raise _syntax(text, tok.start_pos, "a doubt mark with no sign before it",
                               "a sign before '?'")
@@ -281,7 +259,7 @@ def _sign_place(text: str, tokens: list[Token], state: dict) -> Slot:
             gap = tok
         elif tok.type in ("UNREAD", "UNKNOWN"):
             items.append(_Item(str(tok), "x" if tok.type == "UNREAD" else "n", "", 0,
-                               _status(state, True), False, tok.start_pos))
+                               status_in(state, True), False, tok.start_pos))
         else:
             items.append(_sign_item(text, tok, state))
     if gap is not None:
@@ -313,7 +291,7 @@ def _sign_item(text: str, tok: Token, state: dict) -> _Item:
         raise _syntax(text, tok.start_pos, f"{what} ({name})",
                       "the place-value signs DISH, MIN, THREE..NINE DISH (units), U, U U, U U U, "
                       "FOUR U, FIVE U (tens) or the vertical colon (an empty place)")
-    return _Item(ch, "sign", info.column, info.value, _status(state, False), False, tok.start_pos)
+    return _Item(ch, "sign", info.column, info.value, status_in(state, False), False, tok.start_pos)
 
 
 def _place_values(text: str, items: list[_Item]) -> tuple[tuple[Fraction, ...], Fraction | None]:

@@ -10,7 +10,9 @@ from __future__ import annotations
 
 from collections.abc import Sequence
 
-__all__ = ["CLOSERS", "SEPARATOR", "RAW", "join_marked"]
+from ..reading import Status
+
+__all__ = ["CLOSERS", "SEPARATOR", "RAW", "join_marked", "BRACKET_TOKENS", "track_bracket", "status_in"]
 
 #: The closing bracket of each opening bracket numcheck writes.
 CLOSERS = {"[": "]", "<": ">", "{": "}", "\u2e22": "\u2e23"}
@@ -65,3 +67,48 @@ def join_marked(pieces: Sequence[tuple[str, str | None]]) -> str:
     if opened:
         close()
     return "".join(out)
+
+
+#: Grammar token -> (the bracket it opens or closes, whether it opens).
+BRACKET_TOKENS = {
+    "LOST_OPEN": ("lost", True), "LOST_CLOSE": ("lost", False),
+    "ADD_OPEN": ("added", True), "ADD_CLOSE": ("added", False),
+    "SUPERFLUOUS_OPEN": ("superfluous", True), "SUPERFLUOUS_CLOSE": ("superfluous", False),
+    "HALF_OPEN": ("half", True), "HALF_CLOSE": ("half", False),
+}
+
+
+def track_bracket(token_type: str, position: int, state: dict, fail) -> bool:
+    """Follow the brackets open at *position*; False when the token is no bracket.
+
+    *state* maps a bracket name to the position where it was opened (or None);
+    *fail(position, what, expected)* makes the notation's syntax error, raised
+    for a bracket opened inside its own kind or closed without being opened.
+    """
+    entry = BRACKET_TOKENS.get(token_type)
+    if entry is None:
+        return False
+    name, opening = entry
+    if opening and state.get(name) is not None:
+        raise fail(position, "a bracket opened inside the same kind of bracket",
+                   f"the bracket opened at column {state[name] + 1} to be closed first")
+    if not opening and state.get(name) is None:
+        raise fail(position, "a closing bracket with no opening bracket", "an opening bracket before it")
+    state[name] = position if opening else None
+    return True
+
+
+def status_in(state: dict, unread: bool) -> Status:
+    """The status of a sign given the brackets open around it.
+
+    *unread* is true for a sign that stands for a digit or letter not read
+    (``x``, ``+``): lost inside ``[ ]``, unread outside.  A read sign inside
+    ``[ ]`` is the editor's restoration.
+    """
+    if state.get("superfluous") is not None:
+        return Status.SUPERFLUOUS
+    if state.get("lost") is not None:
+        return Status.LOST if unread else Status.RESTORED
+    if unread:
+        return Status.UNREAD
+    return Status.ADDED if state.get("added") is not None else Status.READ

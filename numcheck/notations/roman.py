@@ -32,7 +32,7 @@ from ..errors import LimitError, NumcheckSyntaxError, NumcheckWarning
 from ..grammar_loader import parser_for
 from .. import limits
 from ..reading import Reading, Slot, Status
-from .marks import join_marked
+from .marks import join_marked, status_in, track_bracket
 
 __all__ = ["NAME", "parse", "format", "render", "LETTERS", "BAD_EXAMPLES", "evaluate"]
 
@@ -149,22 +149,12 @@ def parse(text: str) -> Reading:
 def _letters(text: str, nfd: str, where: list[int], tokens) -> list[_Letter]:
     letters: list[_Letter] = []
     state: dict[str, int | None] = {"lost": None, "added": None, "superfluous": None}
-    brackets = {"LOST_OPEN": ("lost", True), "LOST_CLOSE": ("lost", False), "ADD_OPEN": ("added", True),
-                "ADD_CLOSE": ("added", False), "SUPERFLUOUS_OPEN": ("superfluous", True),
-                "SUPERFLUOUS_CLOSE": ("superfluous", False)}
     for tok in tokens:
         start, end = where[tok.start_pos], where[tok.end_pos]
         t = tok.type
-        if t in brackets:
-            name, opening = brackets[t]
-            if opening and state[name] is not None:
-                raise _error(text, start, "a bracket opened inside the same kind of bracket",
-                             "the bracket opened before it to be closed first")
-            if not opening and state[name] is None:
-                raise _error(text, start, "a closing bracket with no opening bracket",
-                             "an opening bracket before it")
-            state[name] = start if opening else None
-        elif t in ("DOUBT", "UNDERDOT"):
+        if track_bracket(t, start, state, lambda pos, what, exp: _error(text, pos, what, exp)):
+            continue
+        if t in ("DOUBT", "UNDERDOT"):
             if not letters or letters[-1].kind != "letter":
                 raise _error(text, start, "a doubt mark with no letter before it", "a letter before it")
             letters[-1] = replace(letters[-1], doubtful=True, end=max(letters[-1].end, end),
@@ -182,9 +172,9 @@ def _letters(text: str, nfd: str, where: list[int], tokens) -> list[_Letter]:
                 raise _error(text, start, "a Number Forms character with no value of its own "
                              f"({unicodedata.name(str(tok))})", _EXPECTED)
             letters.append(_Letter(text[start:end] if t == "FORM" else str(tok), value, "letter",
-                                   _status(state, False), False, start, end))
+                                   status_in(state, False), False, start, end))
         elif t == "ILLEGIBLE":
-            letters.append(_Letter("+", 0, "illegible", _status(state, True), False, start, end))
+            letters.append(_Letter("+", 0, "illegible", status_in(state, True), False, start, end))
         elif t == "LOST_LETTERS":
             if state["lost"] is not None:
                 raise _error(text, start, "lost-letter dots inside brackets", "'[.]' standing alone")
@@ -199,16 +189,6 @@ def _letters(text: str, nfd: str, where: list[int], tokens) -> list[_Letter]:
             raise _error(text, opened, "a bracket opened and never closed",
                          f"a closing bracket for the {name} part")
     return letters
-
-
-def _status(state: dict, unread: bool) -> Status:
-    if state["superfluous"] is not None:
-        return Status.SUPERFLUOUS
-    if state["lost"] is not None:
-        return Status.LOST if unread else Status.RESTORED
-    if unread:
-        return Status.UNREAD
-    return Status.ADDED if state["added"] is not None else Status.READ
 
 
 def _check_j(text: str, letters: list[_Letter]) -> None:
@@ -336,7 +316,7 @@ def _damaged_slots(text: str, letters: list[_Letter]) -> list[Slot]:
     spellings: dict[int, tuple[str, ...]] = {}
     for counts in itertools.product(*widths):
         for fill in itertools.product(_SEARCH_LETTERS, repeat=sum(counts)):
-            values, chosen, pos = [], [], 0
+            values, chosen = [], []
             fills = iter(fill)
             for k, x in enumerate(counted):
                 if k in open_idx:
