@@ -21,7 +21,7 @@ _LAZY = {
     "identify": "numcheck.identify",
     "restore": "numcheck.restore",
     "audit": "numcheck.audit",
-    "relate": "numcheck.relations",
+    "relate": "numcheck.cycles",
     "interval": "numcheck.calendars",
     "annotate": "numcheck.tei",
 }

@@ -29,7 +29,7 @@ POOL_MIN_FILES = 8
 #: Workers of the pool (this project's machines have 2 cores).
 DEFAULT_WORKERS = 2
 #: The files ``audit_folder`` treats as tables.
-TABLE_SUFFIXES = (".tsv", ".csv", ".xml")
+TABLE_SUFFIXES = (".tsv", ".csv", ".xml")   # .xml: the first TEI <table> (numcheck.tables)
 
 Progress = Callable[[int, int, str], None]
 
@@ -164,38 +164,18 @@ def annotate_folder(in_dir: str | os.PathLike, out_dir: str | os.PathLike, *,
 
 # -- audit ----------------------------------------------------------------
 
-def load_table(path: Path, notation: str | None):
-    """A table to give the audit, and the notation of its cells.
-
-    A TEI file gives its first ``<table>`` (its cells' notation read from the
-    letters and ``xml:lang`` when *notation* is None); any other file is
-    given as it is.
-    """
-    path = Path(path)
-    if path.suffix.lower() == ".xml":
-        from .tei_table import table_to_dataframe
-        frame = table_to_dataframe(path, notation=notation)
-        return frame, notation or frame.attrs.get("notation")
-    return str(path), notation
-
-
 def _audit_one(job: tuple) -> dict:
     src, rel, report_dir, notation, relation = job
     from .audit import audit
 
-    from .tei_read import NoTableError
+    from .tei.markup import NoTableError
 
     entry: dict = {"file": rel}
     try:
-        table, notation = load_table(Path(src), notation)
+        result = audit(Path(src), notation=notation, relation=relation)
     except NoTableError as err:
         entry["skipped"] = str(err)
         return entry
-    except NumcheckError as err:
-        entry["error"] = str(err)
-        return entry
-    try:
-        result = audit(table, notation=notation, relation=relation)
     except NumcheckError as err:
         entry["error"] = str(err)
         return entry

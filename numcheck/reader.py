@@ -1,7 +1,7 @@
 """``read``: the front door from a text to a Reading.
 
 Normalises the text (NFC), names look-alike characters from another script
-(:mod:`numcheck.lookalikes`), enforces the input limits, chooses the notation
+(:mod:`numcheck.notations.lookalikes`), enforces the input limits, chooses the notation
 (given, or detected from the characters) and hands over to that notation.  A
 text with unit words (``3 signs 12;30°``, ``6585 1/3 days``) is a mixed
 quantity: :mod:`numcheck.notations.quantity` reads each number in its
@@ -16,7 +16,7 @@ import unicodedata
 from dataclasses import replace
 
 from .errors import LimitError, NumcheckSyntaxError
-from .lookalikes import check_attic_scripts, check_lookalikes
+from .notations.lookalikes import check_attic_scripts, check_lookalikes
 from . import limits
 from .notations import NOTATIONS, notation_module
 from .notations import quantity

@@ -22,10 +22,10 @@ from hypothesis import given
 from hypothesis import strategies as st
 
 from numcheck.calendars import interval, parse_date
-from numcheck.calendars_egyptian import alexandrian_to_jdn, jdn_to_alexandrian
-from numcheck.calendars_julian import (iso_text, jdn_to_julian, julian_text, julian_to_jdn,
+from numcheck.calendars.egyptian import alexandrian_to_jdn, jdn_to_alexandrian
+from numcheck.calendars.julian import (iso_text, jdn_to_julian, julian_text, julian_to_jdn,
                                        month_length)
-from numcheck.calendars_names import era_named
+from numcheck.calendars.names import era_named
 
 #: From convertdate's midnight JD to numcheck's JDN of the civil day.
 HALF_DAY = Fraction(1, 2)

@@ -28,7 +28,7 @@ from fractions import Fraction
 import erfa
 import pytest
 
-from numcheck.relations import relate
+from numcheck.cycles import relate
 
 
 def _row(result, body, cycle):

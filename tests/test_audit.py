@@ -293,7 +293,7 @@ def test_greek_table_letter_confusion_and_expected_in_greek():
     vals = [29 + F(4 * k, 60) + F(9, 3600) for k in range(8)]
     G = [write_value(v, notation="greek") for v in vals]
     assert G[4] == "κθ ιϛ θ"
-    G[4] = "κθ ιϛ ε"   # Є (5) for Θ (9), confusion data of numcheck.confusions
+    G[4] = "κθ ιϛ ε"   # Є (5) for Θ (9), confusion data of numcheck.slips.confusions
     (f,) = audit(pd.DataFrame({"G": G})).flags
     assert (f["row"], f["kind"], f["expected"]) == (5, "letter-confusion", "κθ ιϛ θ")
 

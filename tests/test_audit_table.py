@@ -14,7 +14,7 @@ import pytest
 
 from numcheck import NumcheckError, read
 from numcheck.audit import audit
-from numcheck.audit.table import read_table, split_text
+from numcheck.tables import read_table, split_text
 
 
 def _write(tmp_path, name, text):  # noqa: D103 - a file for one test

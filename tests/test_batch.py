@@ -11,7 +11,7 @@ from lxml import etree
 from numcheck import batch
 from numcheck.cli import main
 from numcheck.errors import NumcheckError
-from numcheck.tei_read import TEI_NS
+from numcheck.tei.markup import TEI_NS
 
 DEMO = Path(__file__).resolve().parent.parent / "corpora_demo"
 

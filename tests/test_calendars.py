@@ -8,7 +8,7 @@ from hypothesis import strategies as st
 
 from numcheck import NumcheckError, NumcheckRangeError, NumcheckSyntaxError, UnknownNameError
 from numcheck.calendars import date_from_jdn, interval, parse_date
-from numcheck.calendars_names import months
+from numcheck.calendars.names import months
 from numcheck.cli import main
 
 # (text, calendar, expected JDN, note).  The epochs are Ptolemy's (Almagest,
@@ -121,7 +121,7 @@ def test_thirteen_months_of_the_egyptian_year():
 
 
 def test_every_era_and_month_row_has_a_source():
-    from numcheck.calendars_names import eras
+    from numcheck.calendars.names import eras
 
     assert {e.name for e in eras()} == {"Nabonassar", "Philip", "Diocletian"}
     assert all(e.source for e in eras())

@@ -10,7 +10,7 @@ import pytest
 
 from numcheck import catalogue
 from numcheck.errors import UnknownNameError
-from numcheck.statements import parse_number, parse_statement, side_unit_key
+from numcheck.catalogue.statements import parse_number, parse_statement, side_unit_key
 from numcheck.units import convert
 
 M = parse_number("29;31,50,8,20")   # ACT System B; Almagest IV.3
@@ -217,7 +217,7 @@ def test_doctests():
     import doctest
 
     import numcheck.catalogue
-    import numcheck.statements
+    import numcheck.catalogue.statements
 
-    for mod in (numcheck.catalogue, numcheck.statements):
+    for mod in (numcheck.catalogue, numcheck.catalogue.statements):
         assert doctest.testmod(mod).failed == 0

@@ -16,7 +16,7 @@ import pytest
 from hypothesis import given
 from hypothesis import strategies as st
 
-from numcheck.confusions import Alternative, alternatives, confusion_table, letter_confusion
+from numcheck.slips.confusions import Alternative, alternatives, confusion_table, letter_confusion
 from numcheck.errors import NumcheckError
 
 F = Fraction

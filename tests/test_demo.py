@@ -19,7 +19,7 @@ from lxml import etree
 from numcheck.cli import main
 from numcheck.demo import demo_data, run_demo
 from numcheck.errors import NumcheckError
-from numcheck.tei_read import TEI_NS
+from numcheck.tei.markup import TEI_NS
 
 ROOT = Path(__file__).resolve().parent.parent
 CORPUS = ROOT / "corpora_demo"

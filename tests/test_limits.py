@@ -189,7 +189,7 @@ def test_xml_parser_settings(tmp_path):
     """numcheck's parser resolves no entity and loads no DTD (no file, no network)."""
     from lxml import etree
 
-    from numcheck.tei_read import _parser
+    from numcheck.tei.markup import _parser
     secret = tmp_path / "s.txt"
     secret.write_text("SECRET", encoding="utf-8")
     doc = (f'<!DOCTYPE a SYSTEM "http://example.invalid/a.dtd" [<!ENTITY x SYSTEM "file://{secret}">]>'
@@ -210,7 +210,7 @@ def test_batch_files(monkeypatch, tmp_path):
 
 
 def test_relate_search_years():
-    from numcheck.relations import search
+    from numcheck.cycles import search
     with pytest.raises(LimitError, match="RELATE_MAX_SEARCH_YEARS"):
         search(["venus"], max_years=limits.RELATE_MAX_SEARCH_YEARS + 1)
 

@@ -7,7 +7,7 @@ from pathlib import Path
 import pytest
 
 import numcheck
-from numcheck.grammar_loader import grammar_dir
+from numcheck.notations.grammars import grammar_dir
 
 
 def test_front_door_is_pinned():

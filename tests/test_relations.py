@@ -9,11 +9,11 @@ from hypothesis import given
 from hypothesis import strategies as st
 
 from numcheck import LimitError, NumcheckError, NumcheckRangeError, UnknownNameError
-from numcheck import relations_cycles
+from numcheck.cycles import periods as relations_cycles
 from numcheck.cli import main
-from numcheck.relations import relate, search
-from numcheck.relations_cycles import CYCLES, statement_cycle
-from numcheck.relations_search import best_ratios, continued_fraction, convergents, record_spans
+from numcheck.cycles import relate, search
+from numcheck.cycles.periods import CYCLES, statement_cycle
+from numcheck.cycles.convergents import best_ratios, continued_fraction, convergents, record_spans
 
 # ---- exact arithmetic, with invented periods (the catalogue monkeypatched) --
 

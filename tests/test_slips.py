@@ -6,7 +6,8 @@ from fractions import Fraction as F
 
 import pytest
 
-from numcheck.slips import KINDS, classify, digits_of, mantissa, write_value
+from numcheck.placevalue import digits_of, mantissa
+from numcheck.slips import KINDS, classify, write_value
 
 from tablegen import sx
 
@@ -51,7 +52,7 @@ def test_floating_digits_compare_without_magnitude():
 
 
 def test_letter_confusion_greek():
-    # Є (5) for Θ (9): a closed epsilon reads as theta (confusion data of numcheck.confusions).
+    # Є (5) for Θ (9): a closed epsilon reads as theta (confusion data of numcheck.slips.confusions).
     got = classify(F(5), F(9), notation="greek")
     assert got.kind == "letter-confusion"
 

@@ -12,9 +12,9 @@ from lxml import etree
 import numcheck
 from numcheck.errors import LimitError, NumcheckError
 from numcheck.tei import annotate, annotate_bytes, default_output
-from numcheck.tei_read import Piece, leiden_text, num_pieces
-from numcheck.tei_table import table_to_dataframe
-from numcheck.tei_write import scan_elements
+from numcheck.tei.markup import Piece, leiden_text, num_pieces
+from numcheck.tables.tei import table_to_dataframe
+from numcheck.tei.write import scan_elements
 
 NS = {"t": "http://www.tei-c.org/ns/1.0"}
 HEAD = '<?xml version="1.0" encoding="UTF-8"?>\n<TEI xmlns="http://www.tei-c.org/ns/1.0"><text><body>\n'

@@ -18,7 +18,7 @@ from hypothesis import strategies as st
 
 import numcheck
 from numcheck.errors import NumcheckError, NumcheckSyntaxError, NumcheckWarning
-from numcheck.lookalikes import ANGLE_BRACKETS, CYRILLIC_LOOKALIKES
+from numcheck.notations.lookalikes import ANGLE_BRACKETS, CYRILLIC_LOOKALIKES
 
 _spec = importlib.util.spec_from_file_location(
     "numcheck_fuzz", Path(__file__).resolve().parents[1] / "benchmarks" / "fuzz.py")

@@ -22,7 +22,7 @@ from .detect import detect_schemes, make_frame
 from .diagnose import diagnose
 from .restoration import restore_cells
 from .result import SUGGESTION, AuditResult
-from .table import read_table
+from ..tables import read_table
 
 __all__ = ["audit", "AuditResult", "SUGGESTION"]
 

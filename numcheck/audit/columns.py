@@ -14,7 +14,7 @@ from __future__ import annotations
 from fractions import Fraction
 from itertools import permutations
 
-from ..slips import mantissa
+from ..placevalue import mantissa
 from .schemes import Scheme, support_chained, support_row, value_text
 
 __all__ = ["RunningSumScheme", "ProductScheme", "QuotientScheme", "MultipleScheme", "ReciprocalScheme",

@@ -15,7 +15,7 @@ from .relation import RelationScheme, parse_relation
 from .schemes import (ConstantScheme, Frame, LinearScheme, Scheme, lcm_all, support_chained,
                       support_row)
 from .steps import StepDifferenceScheme, StepScheme
-from .table import Table
+from ..tables import Table
 from .zigzag import ZigzagScheme
 
 __all__ = ["make_frame", "detect_schemes"]

@@ -20,10 +20,11 @@ from __future__ import annotations
 
 from dataclasses import dataclass, field
 
-from ..slips import Diagnosis, classify, mantissa
+from ..placevalue import mantissa
+from ..slips import Diagnosis, classify
 from .columns import ReciprocalScheme
 from .schemes import Frame, Scheme
-from .table import Table
+from ..tables import Table
 
 __all__ = ["Finding", "Pending", "diagnose"]
 

@@ -17,7 +17,7 @@ from fractions import Fraction
 from ..reading import exact_text
 from .diagnose import Pending
 from .schemes import Frame
-from .table import Table, sign_index
+from ..tables import Table, sign_index
 
 __all__ = ["Restoration", "restore_cells"]
 
@@ -70,7 +70,7 @@ def restore_cells(table: Table, frame: Frame, pending: list[Pending], top: int =
 
 
 def _same_digits(a: Fraction, b: Fraction) -> bool:
-    from ..slips import mantissa
+    from ..placevalue import mantissa
     return mantissa(a) == mantissa(b)
 
 

@@ -8,7 +8,7 @@ from ..reading import exact_text
 from .diagnose import Finding
 from .restoration import Restoration
 from .schemes import Frame, Scheme
-from .table import Table
+from ..tables import Table
 
 __all__ = ["AuditResult", "SUGGESTION"]
 

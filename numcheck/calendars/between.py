@@ -6,7 +6,7 @@ Philip (Ptolemy's), the Alexandrian calendar (era of Diocletian), the
 proleptic Julian calendar, and Julian Day Numbers.  All counting is in whole
 days with exact integers; a date comes to the JDN of its civil day (the
 integer JD at its noon).  The date syntax is described in
-:mod:`numcheck.calendars_parse`.
+:mod:`numcheck.calendars.parse`.
 
 >>> interval("Nabonassar 1 Thoth 1", "Philip 1 Thoth 1").days
 154760
@@ -17,9 +17,9 @@ from __future__ import annotations
 from dataclasses import dataclass
 from fractions import Fraction
 
-from .calendars_dates import CALENDARS, CalendarDate, calendar_named, date_from_jdn, date_from_parts
-from .calendars_parse import DATE_EXAMPLES, parse_date
-from .reading import exact_text
+from .dates import CALENDARS, CalendarDate, calendar_named, date_from_jdn, date_from_parts
+from .parse import DATE_EXAMPLES, parse_date
+from ..reading import exact_text
 
 __all__ = ["interval", "IntervalResult", "CalendarDate", "parse_date", "date_from_parts",
            "date_from_jdn", "CALENDARS", "DATE_EXAMPLES", "calendar_named"]

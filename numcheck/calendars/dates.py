@@ -2,7 +2,7 @@
 
 A :class:`CalendarDate` is what a date written in a text comes to: the
 calendar and era it is counted in, its year, month and day as written, and the
-JDN of the civil day (see :mod:`numcheck.calendars_julian` for the
+JDN of the civil day (see :mod:`numcheck.calendars.julian` for the
 convention).  Its ``to_dict`` gives the same day in the other calendars too,
 because a historian checking an interval usually wants to see both.
 """
@@ -11,11 +11,11 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
-from .calendars_egyptian import (EPAGOMENAL, alexandrian_to_jdn, egyptian_text, egyptian_to_jdn,
+from .egyptian import (EPAGOMENAL, alexandrian_to_jdn, egyptian_text, egyptian_to_jdn,
                                  jdn_to_alexandrian, jdn_to_egyptian)
-from .calendars_julian import iso_text, jdn_to_julian, julian_text, julian_to_jdn
-from .calendars_names import Era, era_named, months
-from .errors import UnknownNameError
+from .julian import iso_text, jdn_to_julian, julian_text, julian_to_jdn
+from .names import Era, era_named, months
+from ..errors import UnknownNameError
 
 __all__ = ["CALENDARS", "CalendarDate", "calendar_named", "date_from_parts", "date_from_jdn"]
 
@@ -117,7 +117,7 @@ def date_from_parts(calendar: str, year: int, month: int, day: int, *, era: Era 
 
 
 def _eras_of(calendar: str):
-    from .calendars_names import eras
+    from .names import eras
 
     return [e for e in eras() if e.calendar == calendar]
 

@@ -18,8 +18,8 @@ Months are numbered 1-12; the epagomenal days count as month 13.
 
 from __future__ import annotations
 
-from .calendars_julian import jdn_to_julian, julian_to_jdn, range_error
-from .calendars_names import Era, months
+from .julian import jdn_to_julian, julian_to_jdn, range_error
+from .names import Era, months
 
 __all__ = ["EPAGOMENAL", "egyptian_to_jdn", "jdn_to_egyptian", "alexandrian_to_jdn",
            "jdn_to_alexandrian", "alexandrian_thoth1", "egyptian_text"]
@@ -51,7 +51,7 @@ def _check(era: Era, year: int, month: int, day: int, epagomenal_days: int) -> N
 def egyptian_to_jdn(era: Era, year: int, month: int, day: int) -> int:
     """The JDN of an Egyptian date counted in *era* (Nabonassar or Philip).
 
-    >>> from numcheck.calendars_names import era_named
+    >>> from numcheck.calendars.names import era_named
     >>> egyptian_to_jdn(era_named("Nabonassar"), 425, 1, 1)
     1603398
     """
@@ -78,7 +78,7 @@ def alexandrian_thoth1(julian_year: int) -> int:
 
     August 29, or August 30 when the next Julian year is a leap year.
 
-    >>> from numcheck.calendars_julian import jdn_to_julian
+    >>> from numcheck.calendars.julian import jdn_to_julian
     >>> jdn_to_julian(alexandrian_thoth1(283)), jdn_to_julian(alexandrian_thoth1(284))
     ((283, 8, 30), (284, 8, 29))
     """
@@ -95,7 +95,7 @@ def _alexandrian_year(era: Era, year: int) -> tuple[int, int]:
 def alexandrian_to_jdn(era: Era, year: int, month: int, day: int) -> int:
     """The JDN of an Alexandrian date counted in *era* (Diocletian).
 
-    >>> from numcheck.calendars_names import era_named
+    >>> from numcheck.calendars.names import era_named
     >>> alexandrian_to_jdn(era_named("Diocletian"), 1, 1, 1)
     1825030
     """
@@ -118,7 +118,7 @@ def jdn_to_alexandrian(jdn: int, era: Era) -> tuple[int, int, int]:
 def egyptian_text(era: Era, year: int, month: int, day: int) -> str:
     """An Egyptian or Alexandrian date as numcheck writes it.
 
-    >>> from numcheck.calendars_names import era_named
+    >>> from numcheck.calendars.names import era_named
     >>> egyptian_text(era_named("Philip"), 1, 13, 5)
     'Philip 1 epagomenal day 5'
     """

@@ -15,8 +15,8 @@ tests/test_against_convertdate.py).
 
 from __future__ import annotations
 
-from .calendars_names import months
-from .errors import NumcheckRangeError
+from .names import months
+from ..errors import NumcheckRangeError
 
 __all__ = ["range_error", "is_leap", "month_length", "julian_to_jdn", "jdn_to_julian", "year_label",
            "julian_text", "iso_text", "check_julian"]

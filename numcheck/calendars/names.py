@@ -15,7 +15,7 @@ import unicodedata
 from dataclasses import dataclass
 from importlib import resources
 
-from .errors import UnknownNameError
+from ..errors import UnknownNameError
 
 __all__ = ["Month", "Era", "normalise", "months", "month_named", "eras", "era_named", "find_era",
            "is_month_name"]

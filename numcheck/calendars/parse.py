@@ -26,10 +26,10 @@ import difflib
 import re
 import unicodedata
 
-from .calendars_dates import CalendarDate, calendar_named, date_from_parts
-from .calendars_names import eras, find_era, is_month_name, month_named, normalise
-from .errors import LimitError, NumcheckRangeError, NumcheckSyntaxError, UnknownNameError
-from . import limits
+from .dates import CalendarDate, calendar_named, date_from_parts
+from .names import eras, find_era, is_month_name, month_named, normalise
+from ..errors import LimitError, NumcheckRangeError, NumcheckSyntaxError, UnknownNameError
+from .. import limits
 
 __all__ = ["parse_date", "DATE_EXAMPLES"]
 
@@ -244,6 +244,6 @@ def _which_is_year(text, items, nums, month_index, marks):
 
 
 def _julian_month_names() -> list[str]:
-    from .calendars_names import months
+    from .names import months
 
     return [m.name for m in months("julian")]

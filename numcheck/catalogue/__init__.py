@@ -5,7 +5,7 @@ from published sources, one row per period, parameter or relation, each with
 its source and an honest confidence) and ``data/periods_modern.csv`` (mean
 periods at J2000.0 generated from the IERS 2003 fundamental arguments by
 ``data/make_modern_periods.py``).  Every row states what it asserts in the
-``statement`` column, which :mod:`numcheck.statements` reads into sides, so
+``statement`` column, which :mod:`numcheck.catalogue.statements` reads into sides, so
 that identify can match every side of a relation.
 
 The loader gives a pandas DataFrame (:func:`frame`) and typed lookups
@@ -19,7 +19,7 @@ from fractions import Fraction
 from functools import lru_cache
 from importlib import resources
 
-from .errors import NumcheckError, UnknownNameError
+from ..errors import NumcheckError, UnknownNameError
 from .statements import Side, parse_number, parse_statement
 
 __all__ = [
@@ -69,7 +69,7 @@ class Entry:
 
     def to_dict(self) -> dict:
         """The row for JSON (exact value as a string)."""
-        from .reading import exact_text
+        from ..reading import exact_text
 
         return {
             "id": self.id, "body": self.body, "kind": self.kind, "tradition": self.tradition,

@@ -20,7 +20,7 @@ import re
 from dataclasses import dataclass
 from fractions import Fraction
 
-from .errors import NumcheckSyntaxError
+from ..errors import NumcheckSyntaxError
 
 __all__ = ["Term", "Side", "parse_statement", "parse_number", "side_unit_key"]
 

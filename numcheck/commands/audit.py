@@ -37,10 +37,8 @@ def run(args, console) -> dict:
     for out in outputs:
         check_distinct(path, out)
     columns = [c.strip() for c in args.columns.split(",")] if args.columns else None
-    from ..batch import load_table
-
-    table, notation = load_table(path, args.notation)   # a TEI file: its <table>
-    result = audit(table, notation=notation, relation=args.relation, columns=columns)
+    # A TEI file gives its first <table> (numcheck.tables reads every source).
+    result = audit(path, notation=args.notation, relation=args.relation, columns=columns)
     from .. import report
 
     written = {}

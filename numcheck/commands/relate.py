@@ -3,8 +3,8 @@
 from __future__ import annotations
 
 from ..errors import NumcheckRangeError
-from ..relations import DEFAULT_SEARCH_YEARS, relate, search
-from ..relations_cycles import BODIES, UNITS, VALUE_SETS
+from ..cycles import DEFAULT_SEARCH_YEARS, relate, search
+from ..cycles.periods import BODIES, UNITS, VALUE_SETS
 
 NAME = "relate"
 HELP = "count the cycles of moon, sun and planets in N years, months or days, or search for period relations"

@@ -4,7 +4,7 @@ A relation found by arithmetic is worth more to a historian when it is
 attested: "8 years = 5 synodic periods of Venus" is the Babylonian goal-year
 period (Sachs 1948; Gray & Steele 2008).  This module reads the ``relation``
 rows of the catalogue, splits each statement into its counts (with
-:func:`numcheck.statements.parse_statement`), and answers: which relations
+:func:`numcheck.catalogue.statements.parse_statement`), and answers: which relations
 state this span together with this count of that cycle?
 """
 
@@ -14,7 +14,7 @@ import functools
 from dataclasses import dataclass
 from fractions import Fraction
 
-from .relations_cycles import statement_cycle
+from .periods import statement_cycle
 
 __all__ = ["KnownRelation", "known_relations", "matching", "matching_spans"]
 
@@ -48,7 +48,7 @@ class KnownRelation:
 
 def _relation_rows():
     """The relation rows of the catalogue (:class:`numcheck.catalogue.Entry`)."""
-    from . import catalogue
+    from .. import catalogue
 
     return catalogue.entries(kind="relation")
 

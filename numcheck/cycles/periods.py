@@ -14,7 +14,7 @@ from __future__ import annotations
 from dataclasses import dataclass, field
 from fractions import Fraction
 
-from .errors import NumcheckRangeError, UnknownNameError
+from ..errors import NumcheckRangeError, UnknownNameError
 
 __all__ = ["CYCLES", "BODIES", "UNITS", "VALUE_SETS", "PeriodSet", "statement_cycle", "unit_named"]
 
@@ -33,7 +33,7 @@ _UNIT_ALIASES = {"year": "years", "y": "years", "yr": "years", "yrs": "years", "
                  "m": "months", "mo": "months", "day": "days", "d": "days"}
 VALUE_SETS = ("modern", "ancient")
 
-# How catalogue statements name the cycles (see numcheck.statements): the unit
+# How catalogue statements name the cycles (see numcheck.catalogue.statements): the unit
 # of a term, lower case and plural, to (body, cycle).  Planetary "tropical
 # revolutions" (Ptolemy's) are matched to the sidereal row: the count of whole
 # revolutions is the same, and the table says which was stated.
@@ -73,7 +73,7 @@ def unit_named(unit: str) -> str:
 
 def _catalogue_entry(body: str, cycle: str, tradition: str):
     """The standard catalogue row for this period in *tradition*, or None."""
-    from . import catalogue
+    from .. import catalogue
 
     found = catalogue.periods(body, cycle, tradition)
     return found[0] if found else None

@@ -7,7 +7,7 @@ whole number, and what is left over (in days and in degrees of the cycle),
 sorted by closeness, with the relations the catalogue attests marked with
 their source.  :func:`search` finds the good relations themselves, from the
 continued fraction of each cycle against the year and from spans that close
-several cycles at once (:mod:`numcheck.relations_search`).
+several cycles at once (:mod:`numcheck.cycles.convergents`).
 
 Periods come from the catalogue: modern mean values at J2000.0 (pyerfa), or
 with ``values="ancient"`` the periods of one tradition, to judge a relation
@@ -23,12 +23,12 @@ import math
 from dataclasses import dataclass
 from fractions import Fraction
 
-from .errors import LimitError, NumcheckRangeError, UnknownNameError
-from . import limits
-from .reading import decimal_text, exact_text
-from .relations_cycles import BODIES, CYCLES, PeriodSet, unit_named
-from .relations_known import KnownRelation, matching, matching_spans
-from .relations_search import best_ratios, record_spans
+from ..errors import LimitError, NumcheckRangeError, UnknownNameError
+from .. import limits
+from ..reading import decimal_text, exact_text
+from .periods import BODIES, CYCLES, PeriodSet, unit_named
+from .known import KnownRelation, matching, matching_spans
+from .convergents import best_ratios, record_spans
 
 __all__ = ["relate", "search", "RelateResult", "SearchResult", "CycleCount", "SpanRecord",
            "DEFAULT_SEARCH_YEARS"]
@@ -149,7 +149,7 @@ def _positive(n, what: str = "N") -> Fraction:
         raise NumcheckRangeError(f"{what} must be a number, not {n!r}.", value=n,
                                  legal="a positive number of years, months or days")
     if isinstance(n, str):
-        from .statements import parse_number
+        from ..catalogue.statements import parse_number
 
         text = n.strip()
         try:

@@ -25,7 +25,7 @@ import numpy as np
 from .. import catalogue
 from .. import limits
 from ..errors import NumcheckError
-from ..statements import side_unit_key
+from ..catalogue.statements import side_unit_key
 from ..units import UNITS, canonical_unit, convert
 
 __all__ = ["Item", "Table", "Target", "number_text", "table", "catalogue_targets", "candidates", "simple_factors",

@@ -32,7 +32,7 @@ from lark import Token
 from lark.exceptions import UnexpectedCharacters, UnexpectedInput
 
 from ..errors import LimitError, NumcheckRangeError, NumcheckSyntaxError
-from ..grammar_loader import parser_for
+from .grammars import parser_for
 from .. import limits
 from ..reading import Reading, Slot, Status
 from .marks import join_marked, status_in, track_bracket

@@ -36,7 +36,7 @@ from lark import Token
 from lark.exceptions import UnexpectedCharacters, UnexpectedInput
 
 from ..errors import LimitError, NumcheckSyntaxError, NumcheckWarning
-from ..grammar_loader import parser_for
+from .grammars import parser_for
 from .. import limits
 from ..reading import Reading, Slot, Status
 from .marks import RAW, join_marked

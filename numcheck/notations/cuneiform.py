@@ -33,7 +33,7 @@ from lark import Token, Tree
 from lark.exceptions import UnexpectedCharacters, UnexpectedInput
 
 from ..errors import LimitError, NumcheckRangeError, NumcheckSyntaxError
-from ..grammar_loader import parser_for
+from .grammars import parser_for
 from .. import limits
 from ..reading import Reading, Slot, Status
 from . import sexagesimal

@@ -25,7 +25,7 @@ def grammar_dir() -> Path:
             return folder
     except ModuleNotFoundError:
         pass
-    checkout = Path(__file__).resolve().parent.parent / "grammars"
+    checkout = Path(__file__).resolve().parents[2] / "grammars"
     if (checkout / "common.lark").is_file():
         return checkout
     raise RuntimeError("numcheck's grammars are missing from this installation")

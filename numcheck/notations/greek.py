@@ -3,7 +3,7 @@
 The strict path only: this module reads what is written (letters, numeral
 signs, the zero sign, fraction signs and the Leiden damage marks), marks what
 is lost or doubtful, and writes a Reading back.  It never guesses what was
-meant; :mod:`numcheck.confusions` offers the alternatives to a doubtful letter.
+meant; :mod:`numcheck.slips.confusions` offers the alternatives to a doubtful letter.
 
 What it accepts (letter values in :mod:`numcheck.notations.greek_letters`):
 
@@ -50,7 +50,7 @@ from lark import Token, Tree
 from lark.exceptions import UnexpectedCharacters, UnexpectedInput
 
 from ..errors import LimitError, NumcheckSyntaxError, NumcheckWarning
-from ..grammar_loader import parser_for
+from .grammars import parser_for
 from .. import limits
 from ..reading import Reading, Slot, Status
 from .greek_build import group_slots

@@ -17,7 +17,7 @@ from __future__ import annotations
 import unicodedata
 import warnings
 
-from .errors import NumcheckSyntaxError, NumcheckWarning
+from ..errors import NumcheckSyntaxError, NumcheckWarning
 
 __all__ = ["check_lookalikes", "check_attic_scripts", "describe"]
 

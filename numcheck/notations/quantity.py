@@ -25,7 +25,7 @@ from lark.exceptions import UnexpectedInput
 
 from .. import units
 from ..errors import NumcheckRangeError, NumcheckSyntaxError, UnknownNameError
-from ..grammar_loader import parser_for
+from .grammars import parser_for
 from ..reading import Reading, Slot, sexagesimal_text
 
 __all__ = ["NAME", "parse", "format", "render", "has_units", "with_unit", "VULGAR_FRACTIONS",

@@ -29,7 +29,7 @@ from fractions import Fraction
 from lark.exceptions import UnexpectedCharacters, UnexpectedInput
 
 from ..errors import LimitError, NumcheckSyntaxError, NumcheckWarning
-from ..grammar_loader import parser_for
+from .grammars import parser_for
 from .. import limits
 from ..reading import Reading, Slot, Status
 from .marks import join_marked, status_in, track_bracket

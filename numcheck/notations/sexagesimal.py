@@ -13,7 +13,7 @@ from lark import Token, Tree
 from lark.exceptions import UnexpectedCharacters, UnexpectedEOF, UnexpectedInput, UnexpectedToken
 
 from ..errors import NumcheckRangeError, NumcheckSyntaxError
-from ..grammar_loader import parser_for
+from .grammars import parser_for
 from .. import limits
 from ..reading import Reading, Slot, Status
 from .marks import RAW, SEPARATOR, join_marked

@@ -15,7 +15,7 @@ readings is known in closed form:
   one candidate among the others, and evidence can overturn it;
 * a doubtful digit keeps :data:`DOUBT_READ_MASS` for the value read; the rest
   goes to its alternatives in proportion to the weights of the confusion data
-  (``numcheck.confusions``: wedge miscounts, look-alike letters);
+  (``numcheck.slips.confusions``: wedge miscounts, look-alike letters);
 * an unknown gap ``[...]`` of *n* places more than its fewest weighs
   ``GAP_DECAY ** n``; every magnitude of a floating number in the window
   ``numcheck.limits.RESTORE_FLOAT_FIRST_PLACE`` is equally likely

@@ -132,7 +132,7 @@ def _alternatives(notation: str, value: Fraction, place_max: int | None, place: 
     a notation with no confusion data offers no alternative.
     """
     try:
-        from ..confusions import alternatives
+        from ..slips.confusions import alternatives
     except ImportError:
         alternatives = None
     if alternatives is not None:

@@ -19,9 +19,10 @@ from __future__ import annotations
 from dataclasses import dataclass
 from fractions import Fraction
 
-from .reading import sexagesimal_text
+from ..placevalue import digits_of, mantissa
+from ..reading import sexagesimal_text
 
-__all__ = ["KINDS", "Diagnosis", "classify", "digits_of", "mantissa", "write_value"]
+__all__ = ["KINDS", "Diagnosis", "classify", "write_value"]
 
 #: The flag kinds of DESIGN.md, in the order they are tried.
 KINDS = (
@@ -39,58 +40,6 @@ class Diagnosis:
 
     kind: str
     reason: str
-
-
-def mantissa(value: Fraction) -> Fraction | None:
-    """A floating value with its magnitude removed: no trailing empty places.
-
-    Returns None for a value that does not end in base 60 (1/7).
-
-    >>> mantissa(Fraction(1, 2)), mantissa(Fraction(216000))
-    (Fraction(30, 1), Fraction(1, 1))
-    """
-    value = Fraction(value)
-    if value == 0:
-        return Fraction(0)
-    sign = -1 if value < 0 else 1
-    value = abs(value)
-    for _ in range(40):
-        if value.denominator == 1:
-            break
-        value *= _BASE
-    else:
-        return None
-    n = value.numerator
-    while n % _BASE == 0:
-        n //= _BASE
-    return Fraction(sign * n)
-
-
-def digits_of(value: Fraction, places: int) -> tuple[list[int], int] | None:
-    """The sexagesimal places of |value| with *places* fractional places.
-
-    Returns (digits, number of whole places), or None when the value does not
-    end within those places.
-
-    >>> digits_of(Fraction(3606, 60), 1)
-    ([1, 0, 6], 2)
-    """
-    value = abs(Fraction(value))
-    scaled = value * _BASE ** places
-    if scaled.denominator != 1:
-        return None
-    n = scaled.numerator
-    digits: list[int] = []
-    for _ in range(places):
-        n, d = divmod(n, _BASE)
-        digits.append(d)
-    whole = []
-    while True:
-        n, d = divmod(n, _BASE)
-        whole.append(d)
-        if not n:
-            break
-    return list(reversed(whole)) + list(reversed(digits)), len(whole)
 
 
 def _needed_places(value: Fraction, most: int = 12) -> int | None:
@@ -116,7 +65,7 @@ def write_value(value: Fraction, *, notation: str = "sexagesimal", places: int =
     """
     value = Fraction(value)
     if longitude:
-        from .units import ZODIAC, zodiac_index
+        from ..units import ZODIAC, zodiac_index
         value = value % 360
         index = int(value // 30)
         degrees = value - 30 * index
@@ -162,10 +111,10 @@ def _other_notation(value: Fraction, notation: str, places: int) -> str | None:
     groups = [whole_value] + digits[whole:]
     try:
         if notation in ("greek", "greek-ascending"):
-            from .notations.greek_build import letter_text
+            from ..notations.greek_build import letter_text
             text = " ".join(letter_text(g) if g else "\u014d" for g in groups)
         elif notation in ("abjad", "abjad-maghribi"):
-            from .notations.abjad import _spell
+            from ..notations.abjad import _spell
             if 0 in groups:
                 return None
             text = " ".join("".join(_spell(notation, g)) for g in groups)
@@ -175,7 +124,7 @@ def _other_notation(value: Fraction, notation: str, places: int) -> str | None:
             text = _roman(groups[0])
         else:
             return None
-        from .reader import read
+        from ..reader import read
         if read(text, notation=notation).value != value:
             return None
     except Exception:   # a writer the notation does not offer: sexagesimal instead

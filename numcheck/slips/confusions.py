@@ -21,7 +21,7 @@ from dataclasses import dataclass
 from fractions import Fraction
 from importlib import resources
 
-from .errors import UnknownNameError
+from ..errors import UnknownNameError
 
 __all__ = ["Alternative", "Confusion", "alternatives", "letter_confusion", "confusion_table",
            "NOTATIONS_WITH_CONFUSIONS"]
@@ -117,7 +117,7 @@ def alternatives(notation: str, value: int | Fraction, *, place_max: int | None 
     """
     notation = _ALIASES.get(notation, notation)
     if notation not in NOTATIONS_WITH_CONFUSIONS:
-        from .notations import NOTATIONS
+        from ..notations import NOTATIONS
         if notation in NOTATIONS:
             return []   # a notation we have no confusion data for (Attic, quantities)
         raise UnknownNameError("notation", notation, set(NOTATIONS) | set(NOTATIONS_WITH_CONFUSIONS))
@@ -218,7 +218,7 @@ def _descending(parts: list[tuple[int, int, int]]) -> bool:
 
 
 def _swap_letters(parts: list[tuple[int, int, int]], pairs, name) -> list[Alternative]:
-    from .notations.greek_letters import exponent
+    from ..notations.greek_letters import exponent
     value = sum(letter * mult for _, letter, mult in parts)
     out = []
     for i, (e, letter, mult) in enumerate(parts):
@@ -256,7 +256,7 @@ def _row_name(row: Confusion, letter: int) -> str:
 def _greek(value: Fraction, place: int | None) -> list[Alternative]:
     out: list[Alternative] = []
     if value.denominator == 1 and value >= 1:
-        from .notations.greek_letters import spell_parts
+        from ..notations.greek_letters import spell_parts
         out += _swap_letters(spell_parts(int(value)), _pairs("greek"), _row_name)
     if place in (None, 0):
         for row in _rows("greek", "tick"):
@@ -273,7 +273,7 @@ def _greek(value: Fraction, place: int | None) -> list[Alternative]:
 def _letters(notation: str, value: Fraction) -> list[Alternative]:
     if value.denominator != 1 or value < 1 or value >= 2000:
         return []
-    from .notations.greek_letters import spell_parts
+    from ..notations.greek_letters import spell_parts
     n = int(value)
     # Abjad writes 1000 with a letter of its own (ghayn, or shin in the west).
     parts = [(3, 1000, 1)] if n >= 1000 else []

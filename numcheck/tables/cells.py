@@ -1,4 +1,4 @@
-"""Read a table (TSV, CSV, aligned text or a DataFrame) into cells of exact values.
+"""The cells of a table: exact values, their notation, and how to write a correction back.
 
 A table has a header row and one number per cell, in any notation numcheck
 reads.  Each cell keeps its text, its exact value (``None`` when damage leaves
@@ -14,16 +14,12 @@ second.  Everything else goes through :func:`numcheck.read`.
 
 from __future__ import annotations
 
-import csv
 import functools
-import io
-import math
 import re
 import unicodedata
 from collections import Counter
 from dataclasses import dataclass, field
 from fractions import Fraction
-from pathlib import Path
 
 from ..errors import LimitError, NumcheckError, UnknownNameError
 from .. import limits
@@ -31,7 +27,7 @@ from ..reader import read
 from ..reading import Reading
 from ..units import ZODIAC, zodiac_index
 
-__all__ = ["Cell", "Column", "Table", "read_table", "ZODIAC", "sign_index"]
+__all__ = ["Cell", "Column", "Table", "build_table", "check_cells", "ZODIAC", "sign_index"]
 
 
 _PLAIN = re.compile(r"-?\d+(?:,\d+)*(?:;\d+(?:,\d+)*)?")
@@ -133,119 +129,18 @@ class Table:
     header: list[str] = field(default_factory=list)
 
 
-def read_table(table, *, notation: str | None = None, columns=None) -> Table:
-    """Read *table* (a path to TSV/CSV/aligned text, or a DataFrame) into a Table.
-
-    *columns* limits the audit to those header names (the others, e.g. month
-    names, are not read as numbers).  Errors name the row and the column.
-    """
-    source = "<DataFrame>"
-    if notation is not None:
-        from ..notations import notation_module
-        notation_module(notation)   # an unknown name fails here, with suggestions
-    if _is_dataframe(table):
-        _check_cells(table.shape[0] * table.shape[1])
-        header = [str(c) for c in table.columns]
-        rows = [[_frame_text(v, i, header[j]) for j, v in enumerate(rec)]
-                for i, rec in enumerate(table.itertuples(index=False), start=1)]
-    elif isinstance(table, (str, Path)):
-        path = Path(table)
-        source = str(path)
-        if not path.exists():
-            raise NumcheckError(f"There is no table at {str(path)!r}: the file does not exist.")
-        if path.is_dir():
-            raise NumcheckError(f"{str(path)!r} is a folder, not a table file.")
-        size = path.stat().st_size
-        if size > limits.MAX_TABLE_BYTES:
-            raise LimitError(f"size of the table {str(path)!r}", f"{size:,} bytes",
-                             f"{limits.MAX_TABLE_BYTES:,} bytes",
-                             "Set numcheck.limits.MAX_TABLE_BYTES higher to audit it, or split the table.")
-        try:
-            text = path.read_text(encoding="utf-8-sig")
-        except UnicodeDecodeError as err:
-            raise NumcheckError(f"The table {str(path)!r} is not UTF-8 text "
-                                f"(byte {err.start} cannot be decoded).") from err
-        header, rows = split_text(text, suffix=path.suffix.lower())
-    else:
-        raise NumcheckError(f"Expected a path to a table or a pandas DataFrame, got "
-                            f"{type(table).__name__}.")
-    return _build(header, rows, notation=notation, columns=columns, source=source)
-
-
 def _nfc(text: str) -> str:
     return text if text.isascii() else unicodedata.normalize("NFC", text)
 
 
-def _check_cells(cells: int) -> None:
+def check_cells(cells: int) -> None:
     if cells > limits.MAX_TABLE_CELLS:
         raise LimitError("number of cells in the table", f"{cells:,}", f"{limits.MAX_TABLE_CELLS:,}",
                          "Set numcheck.limits.MAX_TABLE_CELLS higher to audit it.")
 
 
-def _is_dataframe(obj) -> bool:
-    return type(obj).__name__ == "DataFrame" and hasattr(obj, "itertuples")
-
-
-def _frame_text(v, row: int, column: str) -> str:
-    """The text of a DataFrame cell; a float that is not whole is refused (it is not exact)."""
-    if _isna(v):
-        return ""
-    if isinstance(v, float) or type(v).__name__.startswith("float"):
-        if float(v).is_integer():
-            return str(int(v))
-        raise NumcheckError(
-            f"Row {row}, column {column!r} of the DataFrame holds the float {v!r}: a float is "
-            "not the exact number the scribe wrote. Give the cells as text, as the edition "
-            "prints them (e.g. read the file with dtype=str).")
-    return str(v)
-
-
-def _isna(v) -> bool:
-    try:
-        return v is None or (isinstance(v, float) or type(v).__name__.startswith("float")) and math.isnan(v)
-    except TypeError:
-        return False
-
-
-def split_text(text: str, *, suffix: str = "") -> tuple[list[str], list[list[str]]]:
-    """Split the text of a table into a header and rows of cell texts.
-
-    Tabs make a TSV; a ``.csv`` file, or a header with commas and no double
-    spaces, is CSV (quote the sexagesimal cells: ``"29;31,50"``); anything
-    else is a whitespace-aligned table whose columns are separated by two or
-    more spaces (by single spaces when the header has no double space).
-    Blank lines and lines starting with ``#`` (notes) are skipped; rows are
-    counted from the first data row, as in the audit's output.
-    """
-    lines = [ln for ln in text.splitlines() if ln.strip() and not ln.lstrip().startswith("#")]
-    if not lines:
-        raise NumcheckError("The table is empty: no header row and no data rows were found.")
-    first = lines[0]
-    if "\t" in first:
-        records = [ln.split("\t") for ln in lines]
-    elif suffix == ".csv" or ("," in first and "  " not in first.strip() and suffix != ".tsv"):
-        records = list(csv.reader(io.StringIO("\n".join(lines)), skipinitialspace=True))
-    else:
-        splitter = re.compile(r"\s{2,}") if re.search(r"\S\s{2,}\S", first) else re.compile(r"\s+")
-        records = [splitter.split(ln.strip()) for ln in lines]
-        if splitter.pattern == r"\s+":
-            records = [_rejoin_signs(r) for r in records]
-    records = [[c.strip() for c in r] for r in records]
-    return records[0], records[1:]
-
-
-def _rejoin_signs(cells: list[str]) -> list[str]:
-    # In a single-space table "14;11 Libra" was split in two: put it back.
-    out: list[str] = []
-    for c in cells:
-        if out and sign_index(c) is not None:
-            out[-1] = f"{out[-1]} {c}"
-        else:
-            out.append(c)
-    return out
-
-
-def _build(header, rows, *, notation, columns, source) -> Table:
+def build_table(header, rows, *, notation, columns, source) -> Table:
+    """Cells of exact values from a *header* and *rows* of cell texts, however they were read."""
     # One normal form (NFC) for every text, as numcheck.read uses: the same
     # table typed with decomposed accents gives the same audit, word for word.
     header = [_nfc(h) for h in header]
@@ -261,7 +156,7 @@ def _build(header, rows, *, notation, columns, source) -> Table:
     if not rows:
         raise NumcheckError(f"The table {source} is empty: it has a header ({', '.join(header)}) "
                             "but no data rows.")
-    _check_cells(len(rows) * len(header))
+    check_cells(len(rows) * len(header))
     for j, name in enumerate(header):
         if not name:
             raise NumcheckError(f"The header of {source} has no name for column {j + 1}.")

@@ -3,7 +3,7 @@
 Damage markup in a cell becomes Leiden text, so the audit reads the cell as
 it reads the same cell in a TSV.  The same reading lets ``annotate`` rank
 the restorations of a damaged ``<num>`` in a table by the table's scheme
-(what the audit finds) rather than by the number alone.
+(:mod:`numcheck.tei.table_context`) rather than by the number alone.
 """
 
 from __future__ import annotations
@@ -11,11 +11,10 @@ from __future__ import annotations
 import os
 from dataclasses import dataclass, field
 
-from .errors import NumcheckError
-from .tei_read import (TEI_NS, NoTableError, TeiError, choose_notation, leiden_text, local_name,
+from ..tei.markup import (TEI_NS, NoTableError, TeiError, choose_notation, leiden_text, local_name,
                        num_pieces, parse_tei, plain_text, tei_elements)
 
-__all__ = ["TableCells", "table_frame", "table_to_dataframe", "table_restorations"]
+__all__ = ["TableCells", "table_frame", "table_to_dataframe"]
 
 _XML_ID = "{http://www.w3.org/XML/1998/namespace}id"
 
@@ -122,42 +121,3 @@ def table_to_dataframe(path: str | os.PathLike, *, table: int | str = 0,
             raise TeiError(path, None, f"asked for table {table + 1}, but the file has {len(tables)}")
         el = tables[table]
     return table_frame(el, path, notation).frame
-
-
-def table_restorations(root, nums, *, notation: str | None = None, top: int = 3,
-                       notes: list[str] | None = None) -> dict[int, list]:
-    """Restorations of damaged ``<num>`` in TEI tables, ranked by the table's scheme.
-
-    Audits each ``<table>`` that holds one of *nums* and returns, for each
-    ``<num>`` alone in a cell the audit restored, the audit's restorations
-    (best first), keyed by ``id(num)``.  A table the audit cannot read is
-    passed over (with a line in *notes*); its numbers keep their own
-    restorations.
-    """
-    from .audit import audit
-
-    wanted = {id(n): n for n in nums}
-    out: dict[int, list] = {}
-    for el in tei_elements(root, "table"):
-        inside = [n for n in el.iter(f"{{{TEI_NS}}}num") if id(n) in wanted]
-        if not inside:
-            continue
-        try:
-            read = table_frame(el, "<table>", notation)
-            result = audit(read.frame, notation=notation or read.frame.attrs.get("notation"))
-        except NumcheckError as err:
-            if notes is not None:
-                notes.append(f"the table at line {el.sourceline} could not be audited, so its numbers "
-                             f"were restored one by one: {str(err).splitlines()[0]}")
-            continue
-        by_cell: dict[tuple[int, str], list] = {}
-        for r in result.to_dict().get("restorations", []):
-            by_cell.setdefault((r["row"], r["column"]), []).append(r)
-        for key, restorations in by_cell.items():
-            cell = read.cells.get(key)
-            if cell is None:
-                continue
-            cell_nums = list(cell.iter(f"{{{TEI_NS}}}num"))
-            if len(cell_nums) == 1 and id(cell_nums[0]) in wanted:
-                out[id(cell_nums[0])] = restorations[:top]
-    return out

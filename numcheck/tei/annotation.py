@@ -27,16 +27,17 @@ from pathlib import Path
 
 from lxml import etree
 
-from . import limits
-from .errors import LimitError, NumcheckError, NumcheckWarning
-from .files import check_distinct, write_atomic
-from .reader import read
-from .reading import Reading, exact_text
-from .tei_read import (TEI_NS, TeiError, leiden_text, local_name, notation_hint, num_pieces,
+from .. import limits
+from ..errors import LimitError, NumcheckError, NumcheckWarning
+from ..files import check_distinct, write_atomic
+from ..reader import read
+from ..reading import Reading, exact_text
+from .markup import (TEI_NS, TeiError, leiden_text, local_name, notation_hint, num_pieces,
                        parse_tei, plain_text, read_bytes)
-from .tei_table import table_restorations, table_to_dataframe
-from .tei_values import decide, is_unit_fraction, unresolved
-from .tei_write import Edit, apply_edits, apply_edits_tree, decode_source, scan_elements
+from ..tables.tei import table_to_dataframe
+from .table_context import table_restorations
+from .values import decide, is_unit_fraction, unresolved
+from .write import Edit, apply_edits, apply_edits_tree, decode_source, scan_elements
 
 __all__ = ["annotate", "annotate_bytes", "AnnotateResult", "NumResult", "TeiError",
            "table_to_dataframe", "TEI_NS"]
@@ -189,7 +190,7 @@ def _restore_function(alternatives: int, nums) -> tuple[object, list[str]]:
     if not alternatives or not nums:
         return None, []
     try:
-        from .restore import restore
+        from ..restore import restore
     except ImportError as err:
         note = (f"alternatives were not written: the restoration module is not available ({err}).")
         warnings.warn(note, NumcheckWarning, stacklevel=3)
@@ -255,7 +256,7 @@ def _read_num(el, name, line, pieces, plain: str, notation: str | None):
     else:
         candidates = []
         if plain:
-            from .notations.detect import detect_notation
+            from ..notations.detect import detect_notation
             candidates.append(detect_notation(plain)[0])
         hint = notation_hint(el)
         if hint is not None and hint not in candidates:

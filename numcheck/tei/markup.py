@@ -21,8 +21,8 @@ from pathlib import Path
 
 from lxml import etree
 
-from . import limits
-from .errors import LimitError, NumcheckError
+from .. import limits
+from ..errors import LimitError, NumcheckError
 
 __all__ = [
     "TEI_NS",
@@ -329,8 +329,8 @@ def choose_notation(plain: str, el) -> str:
     read that way and the ``xml:lang`` in force suggests another notation
     that reads them, that one is taken.
     """
-    from .notations.detect import detect_notation
-    from .reader import read
+    from ..notations.detect import detect_notation
+    from ..reader import read
 
     hint = notation_hint(el)
     if not plain:

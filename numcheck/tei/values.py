@@ -10,8 +10,8 @@ from __future__ import annotations
 
 from fractions import Fraction
 
-from .reading import Reading, Status, exact_text
-from .tei_write import Edit
+from ..reading import Reading, Status, exact_text
+from .write import Edit
 
 __all__ = ["unresolved", "is_unit_fraction", "decide"]
 

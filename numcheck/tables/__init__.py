@@ -1,0 +1,52 @@
+"""Every table source read into one :class:`Table` of exact cells, for the audit and the batch.
+
+A table may come as a TSV, CSV or whitespace-aligned text file, as the first
+``<table>`` of a TEI/EpiDoc file, or as a pandas DataFrame of cell texts:
+each source gives a header and rows of cell texts, and :func:`build_table`
+reads them all the same way.
+"""
+
+from __future__ import annotations
+
+from pathlib import Path
+
+from ..errors import NumcheckError
+from .cells import ZODIAC, Cell, Column, Table, build_table, sign_index
+from .frame import frame_rows, is_dataframe
+from .text import read_text_file, split_text
+
+__all__ = ["read_table", "Table", "Column", "Cell", "split_text", "sign_index", "ZODIAC",
+           "TEI_SUFFIXES"]
+
+#: File suffixes read as TEI/EpiDoc (their first ``<table>``).
+TEI_SUFFIXES = (".xml",)
+
+
+def read_table(table, *, notation: str | None = None, columns=None) -> Table:
+    """Read *table* (a path to a TSV/CSV/aligned text or TEI file, or a DataFrame) into a Table.
+
+    *notation* is the notation of every cell (read from the characters, and
+    in TEI from ``xml:lang``, when None).  *columns* limits the audit to those
+    header names (the others, e.g. month names, are not read as numbers).
+    Errors name the row and the column.
+    """
+    if notation is not None:
+        from ..notations import notation_module
+        notation_module(notation)   # an unknown name fails here, with suggestions
+    if is_dataframe(table):
+        header, rows = frame_rows(table)
+        source = str(table.attrs.get("source", "<DataFrame>"))
+    elif isinstance(table, (str, Path)):
+        path = Path(table)
+        source = str(path)
+        if path.suffix.lower() in TEI_SUFFIXES and path.is_file():
+            from .tei import table_to_dataframe
+            frame = table_to_dataframe(path, notation=notation)
+            notation = notation or frame.attrs.get("notation")
+            header, rows = frame_rows(frame)
+        else:
+            header, rows = split_text(read_text_file(path), suffix=path.suffix.lower())
+    else:
+        raise NumcheckError(f"Expected a path to a table or a pandas DataFrame, got "
+                            f"{type(table).__name__}.")
+    return build_table(header, rows, notation=notation, columns=columns, source=source)
