@@ -10,7 +10,7 @@ is a multiple of 1/12).
 Every character the Greek and Attic grammars accept that has a numeric value
 in the database is checked here; the Greek letters have none (conventions.md
 §3.1: 0 of 135 in the Greek and Coptic block), which is why numcheck carries
-its own letter table (numcheck/notations/greek_letters.py).
+its own letter table (numcheck/notations/greek/letters.py).
 """
 
 import unicodedata
@@ -20,8 +20,8 @@ import pytest
 
 from numcheck.notations.attic import SIGN_VALUES, parse as parse_attic
 from numcheck.notations.greek import parse as parse_greek
-from numcheck.notations.greek_letters import LETTER_VALUES
-from numcheck.notations.greek_model import FRACTION_SIGNS, ZERO_SIGNS
+from numcheck.notations.greek.letters import LETTER_VALUES
+from numcheck.notations.greek.model import FRACTION_SIGNS, ZERO_SIGNS
 
 UCD = unicodedata.unidata_version
 

@@ -55,3 +55,40 @@ def test_restore_through_the_front_door_twice():
     second = numcheck.restore("29;31,5[x],8,20", unit="days")
     assert first.to_dict() == second.to_dict()
     assert first.candidates[0].text == "29;31,5[0],8,20"
+
+
+# ---- the layout: one package per concern (DEVELOPERS.md, "Layout") --------
+
+PACKAGE = Path(numcheck.__file__).parent
+
+
+def test_the_package_root_holds_few_modules():
+    modules = sorted(p.name for p in PACKAGE.glob("*.py"))
+    assert len(modules) <= 14, modules
+
+
+def test_no_family_of_prefix_named_modules_at_any_level():
+    # calendars_x.py, calendars_y.py, calendars_z.py belong in a package calendars/.
+    for folder in [PACKAGE, *(p for p in PACKAGE.iterdir() if (p / "__init__.py").is_file())]:
+        stems = [p.stem for p in folder.glob("*.py") if not p.stem.startswith("_")]
+        for stem in stems:
+            family = [s for s in stems if s.startswith(stem + "_")]
+            assert len(family) < 2, (folder.name, stem, family)
+
+
+def test_the_core_imports_no_command_line_and_no_display_library():
+    import ast
+
+    core = [p for p in PACKAGE.rglob("*.py")
+            if not {"commands", "report"} & set(p.relative_to(PACKAGE).parts)
+            and p.name not in ("cli.py", "demo.py", "batch.py")]
+    for path in core:
+        tree = ast.parse(path.read_text(encoding="utf-8"))
+        for node in ast.walk(tree):
+            names = ([a.name for a in node.names] if isinstance(node, ast.Import) else
+                     [node.module or ""] if isinstance(node, ast.ImportFrom) else [])
+            for name in names:
+                top = name.split(".")[0]
+                assert top not in ("rich", "matplotlib"), (path, name)
+                assert not (isinstance(node, ast.ImportFrom) and node.level and
+                            name.split(".")[0] in ("commands", "cli", "report")), (path, name)

@@ -24,7 +24,7 @@ NOTATIONS: dict[str, str] = {
     "abjad-maghribi": "numcheck.notations.abjad_maghribi",
     "quantity": "numcheck.notations.quantity",
     "greek": "numcheck.notations.greek",
-    "greek-ascending": "numcheck.notations.greek_ascending",
+    "greek-ascending": "numcheck.notations.greek.ascending",
     "attic": "numcheck.notations.attic",
 }
 

@@ -111,7 +111,7 @@ def _other_notation(value: Fraction, notation: str, places: int) -> str | None:
     groups = [whole_value] + digits[whole:]
     try:
         if notation in ("greek", "greek-ascending"):
-            from ..notations.greek_build import letter_text
+            from ..notations.greek.build import letter_text
             text = " ".join(letter_text(g) if g else "\u014d" for g in groups)
         elif notation in ("abjad", "abjad-maghribi"):
             from ..notations.abjad import _spell

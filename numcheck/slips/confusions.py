@@ -218,7 +218,7 @@ def _descending(parts: list[tuple[int, int, int]]) -> bool:
 
 
 def _swap_letters(parts: list[tuple[int, int, int]], pairs, name) -> list[Alternative]:
-    from ..notations.greek_letters import exponent
+    from ..notations.greek.letters import exponent
     value = sum(letter * mult for _, letter, mult in parts)
     out = []
     for i, (e, letter, mult) in enumerate(parts):
@@ -256,7 +256,7 @@ def _row_name(row: Confusion, letter: int) -> str:
 def _greek(value: Fraction, place: int | None) -> list[Alternative]:
     out: list[Alternative] = []
     if value.denominator == 1 and value >= 1:
-        from ..notations.greek_letters import spell_parts
+        from ..notations.greek.letters import spell_parts
         out += _swap_letters(spell_parts(int(value)), _pairs("greek"), _row_name)
     if place in (None, 0):
         for row in _rows("greek", "tick"):
@@ -273,7 +273,7 @@ def _greek(value: Fraction, place: int | None) -> list[Alternative]:
 def _letters(notation: str, value: Fraction) -> list[Alternative]:
     if value.denominator != 1 or value < 1 or value >= 2000:
         return []
-    from ..notations.greek_letters import spell_parts
+    from ..notations.greek.letters import spell_parts
     n = int(value)
     # Abjad writes 1000 with a letter of its own (ghayn, or shin in the west).
     parts = [(3, 1000, 1)] if n >= 1000 else []

@@ -5,8 +5,8 @@ from __future__ import annotations
 from dataclasses import dataclass
 from fractions import Fraction
 
-from ..errors import NumcheckSyntaxError
-from ..reading import Status
+from ...errors import NumcheckSyntaxError
+from ...reading import Status
 
 __all__ = ["FRACTION_SIGNS", "ZERO_SIGNS", "ZERO", "KERAIA", "UNDERDOT", "Item", "Form", "fail", "RANK_NAMES", "STATUS_ORDER"]
 

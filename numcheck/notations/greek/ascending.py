@@ -8,9 +8,9 @@ neighbours in that order.
 
 from __future__ import annotations
 
-from ..reading import Reading
-from .greek import format, render
-from .greek import parse as _parse
+from ...reading import Reading
+from . import format, render
+from . import parse as _parse
 
 __all__ = ["NAME", "parse", "format", "render"]
 

@@ -11,11 +11,11 @@ from __future__ import annotations
 
 from fractions import Fraction
 
-from ..reading import Reading, Slot, Status
-from .greek_build import letter_text
-from .greek_letters import CANONICAL, spell_parts
-from .greek_model import KERAIA, UNDERDOT, ZERO
-from .marks import RAW, join_marked
+from ...reading import Reading, Slot, Status
+from .build import letter_text
+from .letters import CANONICAL, spell_parts
+from .model import KERAIA, UNDERDOT, ZERO
+from ..marks import RAW, join_marked
 
 __all__ = ["format", "render"]
 

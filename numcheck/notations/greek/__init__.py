@@ -5,7 +5,7 @@ signs, the zero sign, fraction signs and the Leiden damage marks), marks what
 is lost or doubtful, and writes a Reading back.  It never guesses what was
 meant; :mod:`numcheck.slips.confusions` offers the alternatives to a doubtful letter.
 
-What it accepts (letter values in :mod:`numcheck.notations.greek_letters`):
+What it accepts (letter values in :mod:`numcheck.notations.greek.letters`):
 
 * Groups separated by spaces.  The first group is the whole part; a later
   group with a numeral sign (keraia) is a unit fraction (``γʹ`` = 1/3); a later
@@ -49,14 +49,14 @@ from fractions import Fraction
 from lark import Token, Tree
 from lark.exceptions import UnexpectedCharacters, UnexpectedInput
 
-from ..errors import LimitError, NumcheckSyntaxError, NumcheckWarning
-from .grammars import parser_for
-from .. import limits
-from ..reading import Reading, Slot, Status
-from .greek_build import group_slots
-from .greek_format import format, render
-from .greek_letters import BARRED, letter_value
-from .greek_model import FRACTION_SIGNS, ZERO_SIGNS, fail, Item
+from ...errors import LimitError, NumcheckSyntaxError, NumcheckWarning
+from ..grammars import parser_for
+from ... import limits
+from ...reading import Reading, Slot, Status
+from .build import group_slots
+from .writing import format, render
+from .letters import BARRED, letter_value
+from .model import FRACTION_SIGNS, ZERO_SIGNS, fail, Item
 
 __all__ = ["NAME", "parse", "format", "render", "BAD_EXAMPLES", "FRACTION_SIGNS", "ZERO_SIGNS"]
 

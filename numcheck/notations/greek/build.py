@@ -16,11 +16,11 @@ from fractions import Fraction
 
 from lark import Tree
 
-from ..errors import NumcheckRangeError
-from .. import limits
-from ..reading import Slot, Status
-from .greek_letters import CANONICAL, exponent
-from .greek_model import RANK_NAMES, STATUS_ORDER, UNDERDOT, ZERO, Form, Item, fail
+from ...errors import NumcheckRangeError
+from ... import limits
+from ...reading import Slot, Status
+from .letters import CANONICAL, exponent
+from .model import RANK_NAMES, STATUS_ORDER, UNDERDOT, ZERO, Form, Item, fail
 
 __all__ = ["group_slots", "letter_text", "widen"]
 
