@@ -1,37 +1,86 @@
-"""Batch runs: annotate or audit every file of a folder, and sum up.
+"""Batch runs over folders and whole corpora: pool, progress, resume, summaries.
 
-An edition is rarely one file.  ``annotate_folder`` and ``audit_folder`` run
-the one-file functions over a whole folder (subfolders included), keep going
-past a bad file (its error is reported with the others), and return one
-summary: files, numbers read, damaged, flagged, restored.  Many files go to a
-small process pool.  The library returns data; progress bars belong to the
-command line, which passes a ``progress(done, total, name)`` callback.
+An edition is rarely one file, and a databank is tens of thousands.
+``annotate_folder`` and ``audit_folder`` run the one-file functions over a
+whole folder (subfolders included, symbolic links that lead out of it left
+out), keep going past a bad file (its error is reported with the others), and
+return one summary: files, numbers read, damaged, flagged, restored.
+
+Whole corpora:
+
+- Many files go to a process pool no larger than the machine's cores, fed a
+  few files at a time (memory stays flat for 10^5 files).
+- With a summary folder (the output folder of ``annotate``, the report folder
+  of ``audit``, or ``summary_dir``) the run keeps a journal there
+  (``.numcheck-run/``): each finished file's entry is recorded, written
+  atomically in small parts.  A run stopped by Ctrl-C or SIGTERM records
+  everything finished; after ``kill -9`` at most the last
+  ``limits.BATCH_JOURNAL_SECONDS`` of work is done again.  Running the same
+  command again resumes: files already done (same size and modification time)
+  are not redone, and the summary is the same as an uninterrupted run's.
+- The summary folder gets ``numcheck-files.csv`` (one row per file, its
+  counts), ``numcheck-summary.json`` (the whole batch) and
+  ``numcheck-findings.csv`` (every contradiction, slip and restoration of the
+  corpus, one row each, with the same columns for sorting).
+
+The library returns data; progress bars belong to the command line, which
+passes a ``progress(done, total, name)`` callback.
 """
 
 from __future__ import annotations
 
+import csv
+import hashlib
 import html
+import io
+import json
 import os
+import signal
+import time
 from collections.abc import Callable
-from concurrent.futures import ProcessPoolExecutor
 from dataclasses import dataclass, field
 from pathlib import Path
 
 from . import limits
 from .errors import LimitError, NumcheckError
-from .files import OutputError, same_file, write_atomic
+from .files import OutputError, check_distinct, same_file, short, write_atomic
 
 __all__ = ["BatchResult", "annotate_folder", "audit_folder", "find_files", "POOL_MIN_FILES",
-           "TABLE_SUFFIXES", "write_index"]
+           "TABLE_SUFFIXES", "write_index", "display_name", "machine_workers",
+           "SUMMARY_FILES"]
 
 #: Use a process pool from this many files on (below it, starting the pool costs more).
 POOL_MIN_FILES = 8
-#: Workers of the pool (this project's machines have 2 cores).
-DEFAULT_WORKERS = 2
+#: Workers of the pool when none are asked for: the cores the machine gives this process.
+DEFAULT_WORKERS = None
 #: The files ``audit_folder`` treats as tables.
 TABLE_SUFFIXES = (".tsv", ".csv", ".xml")   # .xml: the first TEI <table> (numcheck.tables)
+#: The summary files of a batch run (in the summary folder).
+SUMMARY_FILES = ("numcheck-files.csv", "numcheck-summary.json", "numcheck-findings.csv")
+#: The journal of a batch run, inside the summary folder.
+JOURNAL_DIR = ".numcheck-run"
 
 Progress = Callable[[int, int, str], None]
+
+
+def machine_workers() -> int:
+    """The cores this process may use (its CPU affinity, else ``os.cpu_count()``)."""
+    try:
+        return max(1, len(os.sched_getaffinity(0)))
+    except (AttributeError, OSError):
+        return max(1, os.cpu_count() or 1)
+
+
+def display_name(text: str) -> str:
+    """A file name as valid Unicode text: bytes that are not UTF-8 become U+FFFD.
+
+    File names on Linux are bytes; Python keeps the undecodable ones as lone
+    surrogates, which cannot be written as UTF-8 (JSON, HTML, CSV).
+
+    >>> display_name("a" + chr(0xDCFF) + ".xml")
+    'a\ufffd.xml'
+    """
+    return text.encode("utf-8", "surrogateescape").decode("utf-8", "replace")
 
 
 @dataclass
@@ -43,6 +92,8 @@ class BatchResult:
     out: str | None
     files: list[dict] = field(default_factory=list)
     index: str | None = None
+    resumed: int = 0
+    summary_dir: str | None = None
 
     @property
     def summary(self) -> dict:
@@ -57,6 +108,34 @@ class BatchResult:
             "restored": sum(f.get("restored", 0) for f in ok),
         }
 
+    def findings(self) -> list[dict]:
+        """Every contradiction, slip and restoration of the run, one flat row each, sorted.
+
+        The columns are the same for every row (``FINDING_COLUMNS``), so the
+        list sorts by any of them; here by file, then row or line.
+        """
+        rows = []
+        for f in self.files:
+            for n in f.get("contradictions", []):
+                rows.append({"file": f["file"], "kind": n.get("status", "contradiction"),
+                             "row": n.get("line") or "", "column": "", "written": n.get("text", ""),
+                             "expected": n.get("value", ""),
+                             "detail": short(n.get("message", ""))})
+            for g in f.get("flags", []):
+                rows.append({"file": f["file"], "kind": g.get("kind", ""), "row": g.get("row", ""),
+                             "column": g.get("column", ""), "written": g.get("written", ""),
+                             "expected": g.get("expected", ""), "detail": "slip (a suggestion)"})
+            for r in f.get("restorations", []):
+                rows.append({"file": f["file"], "kind": "restoration", "row": r.get("row", ""),
+                             "column": r.get("column", ""), "written": "",
+                             "expected": r.get("text", ""),
+                             "detail": f"value {r.get('value', '')}, probability "
+                                       f"{r.get('probability', '')} (a suggestion)"})
+        for row in rows:
+            row.update({k: str(v) for k, v in row.items()})
+        rows.sort(key=lambda r: (r["file"], int(r["row"]) if r["row"].isdigit() else 0, r["column"]))
+        return rows
+
     def to_dict(self) -> dict:
         out = {"kind": self.kind, "folder": self.folder, "summary": self.summary,
                "files": self.files}
@@ -64,7 +143,17 @@ class BatchResult:
             out["out"] = self.out
         if self.index is not None:
             out["index"] = self.index
+        if self.resumed:
+            out["resumed"] = self.resumed
+        if self.summary_dir is not None:
+            out["summary_files"] = [str(Path(self.summary_dir) / n) for n in SUMMARY_FILES]
         return out
+
+
+#: The columns of ``numcheck-findings.csv`` (and of each row of ``findings()``).
+FINDING_COLUMNS = ("file", "kind", "row", "column", "written", "expected", "detail")
+#: The columns of ``numcheck-files.csv``.
+FILE_COLUMNS = ("file", "status", "numbers", "damaged", "flagged", "restored", "message")
 
 
 def find_files(folder: str | os.PathLike, suffixes: tuple[str, ...],
@@ -72,64 +161,259 @@ def find_files(folder: str | os.PathLike, suffixes: tuple[str, ...],
     """The files under *folder* (subfolders too) with one of *suffixes*, sorted.
 
     Hidden files and folders (names starting with ".") and anything inside
-    *exclude* (an output folder placed inside the input) are left out.
+    *exclude* are left out.  Symbolic links are followed only when they stay
+    inside *folder*: a batch never reads a file outside the folder it was given.
     """
     root = Path(folder)
     if not root.is_dir():
-        raise NumcheckError(f"{str(root)!r} is not a folder.")
-    skip = Path(exclude).resolve() if exclude is not None else None
+        raise NumcheckError(f"{short(display_name(str(root)))!r} is not a folder.")
+    real_root = Path(os.path.realpath(root))
+    skip = Path(os.path.realpath(exclude)) if exclude is not None else None
     found = []
-    for path in sorted(root.rglob("*")):
-        rel = path.relative_to(root)
-        if any(part.startswith(".") for part in rel.parts):
-            continue
-        if skip is not None and (path.resolve() == skip or skip in path.resolve().parents):
-            continue
-        if path.is_file() and path.suffix.lower() in suffixes:
+    for dirpath, dirnames, filenames in os.walk(root, followlinks=False):
+        dirnames[:] = sorted(d for d in dirnames if not d.startswith("."))
+        for name in filenames:
+            if name.startswith(".") or Path(name).suffix.lower() not in suffixes:
+                continue
+            path = Path(dirpath) / name
+            real = Path(os.path.realpath(path))
+            if real_root not in real.parents:
+                continue            # a link that leads out of the folder
+            if skip is not None and (real == skip or skip in real.parents):
+                continue
+            if not path.is_file():
+                continue            # a FIFO, a device, a dangling link
             found.append(path)
-    if len(found) > limits.MAX_BATCH_FILES:
-        raise LimitError(f"number of files in {str(root)!r}", len(found), limits.MAX_BATCH_FILES,
-                         "Set numcheck.limits.MAX_BATCH_FILES higher, or run on a subfolder.")
+            if len(found) > limits.MAX_BATCH_FILES:
+                raise LimitError(f"number of files in {short(display_name(str(root)))!r}",
+                                 f"over {limits.MAX_BATCH_FILES}", limits.MAX_BATCH_FILES,
+                                 "Set numcheck.limits.MAX_BATCH_FILES higher, or run on a subfolder.")
+    found.sort(key=lambda p: p.relative_to(root).as_posix())
     return found
 
 
-def _run(jobs: list[tuple], worker, progress: Progress | None, workers: int | None) -> list[dict]:
-    """Run *worker* over *jobs* (in a pool when there are many); results in job order."""
+def _no_files(root: Path, suffixes: tuple[str, ...]) -> NumcheckError:
+    return NumcheckError(
+        f"No {' or '.join(suffixes)} files were found in {short(display_name(str(root)))!r} "
+        "(hidden files and folders, and links that lead out of the folder, are left out); "
+        "nothing was done.")
+
+
+# -- the journal: what is done, so that a stopped run resumes ----------------
+
+def _stamp(path: str) -> list:
+    st = os.stat(path)
+    return [st.st_size, st.st_mtime_ns]
+
+
+class _Journal:
+    """The entries of finished files, recorded in the summary folder in atomic parts."""
+
+    def __init__(self, folder: Path | None, key: dict):
+        self.folder = folder / JOURNAL_DIR if folder is not None else None
+        self.key = key
+        self.done: dict[str, dict] = {}
+        self._pending: list[dict] = []
+        self._last = time.monotonic()
+        self._part = 0
+
+    def load(self) -> None:
+        """Read the journal of an earlier run with the same key (command, folder, options)."""
+        if self.folder is None or not self.folder.is_dir():
+            return
+        try:
+            key = json.loads((self.folder / "key.json").read_text(encoding="utf-8"))
+        except (OSError, ValueError):
+            key = None
+        if key != self.key:
+            self.clear()
+            return
+        for part in sorted(self.folder.glob("part-*.jsonl")):
+            try:
+                lines = part.read_text(encoding="utf-8").splitlines()
+            except (OSError, UnicodeDecodeError):
+                continue
+            for line in lines:
+                try:
+                    record = json.loads(line)
+                    self.done[record["rel"]] = record
+                except (ValueError, KeyError, TypeError):
+                    continue
+            self._part = max(self._part, int(part.stem.split("-")[1]) + 1)
+
+    def clear(self) -> None:
+        if self.folder is None or not self.folder.is_dir():
+            return
+        for part in self.folder.iterdir():
+            if part.is_file() and (part.name.startswith("part-") or part.name == "key.json"):
+                part.unlink()
+
+    def start(self) -> None:
+        if self.folder is None:
+            return
+        self.folder.mkdir(parents=True, exist_ok=True)
+        write_atomic(self.folder / "key.json", json.dumps(self.key, sort_keys=True) + "\n")
+
+    def finished(self, rel: str, stamp: list, entry: dict) -> None:
+        record = {"rel": rel, "stamp": stamp, "entry": entry}
+        self.done[rel] = record
+        if self.folder is None:
+            return
+        self._pending.append(record)
+        if (len(self._pending) >= limits.BATCH_JOURNAL_ENTRIES
+                or time.monotonic() - self._last >= limits.BATCH_JOURNAL_SECONDS):
+            self.flush()
+
+    def flush(self) -> None:
+        if self.folder is None or not self._pending:
+            return
+        text = "".join(json.dumps(r, ensure_ascii=False) + "\n" for r in self._pending)
+        write_atomic(self.folder / f"part-{self._part:06d}.jsonl", text)
+        self._part += 1
+        self._pending = []
+        self._last = time.monotonic()
+
+
+def _quiet_worker() -> None:
+    """In a pool worker: Ctrl-C is the parent's to handle; die with the parent (Linux)."""
+    signal.signal(signal.SIGINT, signal.SIG_IGN)
+    signal.signal(signal.SIGTERM, _raise_exit)
+    try:
+        import ctypes
+
+        libc = ctypes.CDLL(None)
+        libc.prctl(1, signal.SIGKILL)        # PR_SET_PDEATHSIG: a kill -9 of the parent ends us too
+    except (OSError, AttributeError):       # not Linux: the parent's shutdown ends us
+        pass
+
+
+def _raise_exit(signum, frame):
+    raise SystemExit(128 + signum)
+
+
+def _run(jobs: list[tuple], worker, progress: Progress | None, workers: int | None,
+         journal: _Journal, stamps: list) -> list[dict]:
+    """Run *worker* over *jobs* (in a bounded pool when there are many); entries in job order.
+
+    ``jobs[i][0]`` is the file's relative name (the key of the journal).
+    Files the journal already holds with the same stamp are not run again.
+    """
     total = len(jobs)
-    n_workers = DEFAULT_WORKERS if workers is None else max(1, int(workers))
+    results: list[dict | None] = [None] * total
+    todo = []
+    for i, job in enumerate(jobs):
+        record = journal.done.get(job[0])
+        if record is not None and record.get("stamp") == stamps[i]:
+            results[i] = record["entry"]
+        else:
+            todo.append(i)
+    done = total - len(todo)
+    if progress and done:
+        progress(done, total, "(resumed)")
+    n_workers = machine_workers() if workers is None else max(1, int(workers))
     # More processes than files or than cores only costs: a pool of 100,000
     # would spend minutes starting processes (and may exhaust the machine).
-    n_workers = min(n_workers, total or 1, max(1, os.cpu_count() or 1) * 4)
-    results: list[dict | None] = [None] * total
-    if total >= POOL_MIN_FILES and n_workers > 1:
-        with ProcessPoolExecutor(max_workers=n_workers) as pool:
-            futures = {pool.submit(worker, job): i for i, job in enumerate(jobs)}
-            from concurrent.futures import as_completed
-            for done, fut in enumerate(as_completed(futures), 1):
-                i = futures[fut]
-                results[i] = fut.result()
+    n_workers = min(n_workers, len(todo) or 1, machine_workers())
+    try:
+        if len(todo) >= POOL_MIN_FILES and n_workers > 1:
+            done = _run_pool(jobs, todo, worker, n_workers, results, journal, stamps,
+                             progress, done, total)
+        else:
+            for i in todo:
+                results[i] = worker(jobs[i])
+                journal.finished(jobs[i][0], stamps[i], results[i])
+                done += 1
                 if progress:
                     progress(done, total, results[i]["file"])
-    else:
-        for i, job in enumerate(jobs):
-            results[i] = worker(job)
-            if progress:
-                progress(i + 1, total, results[i]["file"])
+    finally:
+        journal.flush()
     return results  # type: ignore[return-value]
+
+
+def _run_pool(jobs, todo, worker, n_workers, results, journal, stamps, progress, done, total):
+    from concurrent.futures import FIRST_COMPLETED, ProcessPoolExecutor, wait
+
+    pool = ProcessPoolExecutor(max_workers=n_workers, initializer=_quiet_worker)
+    window = n_workers * 4          # files in flight: memory stays flat however many there are
+    pending: dict = {}
+    queue = iter(todo)
+    try:
+        for i in queue:
+            pending[pool.submit(worker, jobs[i])] = i
+            if len(pending) >= window:
+                break
+        while pending:
+            finished, _ = wait(pending, return_when=FIRST_COMPLETED)
+            for fut in finished:
+                i = pending.pop(fut)
+                results[i] = fut.result()
+                journal.finished(jobs[i][0], stamps[i], results[i])
+                done += 1
+                if progress:
+                    progress(done, total, results[i]["file"])
+                nxt = next(queue, None)
+                if nxt is not None:
+                    pending[pool.submit(worker, jobs[nxt])] = nxt
+    except BaseException:
+        # Stopped (Ctrl-C, SIGTERM): what finished is in the journal; end the
+        # workers now (their outputs are written atomically, so none is torn).
+        for proc in list(getattr(pool, "_processes", {}).values()):
+            try:
+                proc.terminate()
+            except (OSError, AttributeError):
+                pass
+        pool.shutdown(wait=False, cancel_futures=True)
+        raise
+    pool.shutdown(wait=True)
+    return done
+
+
+def _write_summary(result: BatchResult, folder: Path) -> None:
+    """``numcheck-files.csv``, ``numcheck-summary.json`` and ``numcheck-findings.csv`` in *folder*."""
+    buf = io.StringIO()
+    w = csv.DictWriter(buf, fieldnames=FILE_COLUMNS, lineterminator="\n")
+    w.writeheader()
+    for f in result.files:
+        status = "failed" if "error" in f else "skipped" if "skipped" in f else "ok"
+        w.writerow({"file": f["file"], "status": status, "numbers": f.get("numbers", ""),
+                    "damaged": f.get("damaged", ""), "flagged": f.get("flagged", ""),
+                    "restored": f.get("restored", ""),
+                    "message": short(f.get("error") or f.get("skipped") or "")})
+    write_atomic(folder / SUMMARY_FILES[0], buf.getvalue())
+    data = result.to_dict()
+    data["findings"] = result.findings()
+    write_atomic(folder / SUMMARY_FILES[1], json.dumps(data, ensure_ascii=False, indent=1) + "\n")
+    buf = io.StringIO()
+    w = csv.DictWriter(buf, fieldnames=FINDING_COLUMNS, lineterminator="\n")
+    w.writeheader()
+    w.writerows(result.findings())
+    write_atomic(folder / SUMMARY_FILES[2], buf.getvalue())
+
+
+def _prepare(src_root: Path, out: Path | None, what: str) -> None:
+    """Refuse an output (or summary) folder that is, holds or lies inside the input folder."""
+    if out is None:
+        return
+    if out.exists() and same_file(src_root, out):
+        raise OutputError(f"The {what} {short(display_name(str(out)))!r} is the input folder; "
+                          "numcheck never writes over its inputs. Give another folder.")
+    check_distinct([src_root], out)
+    if out.exists() and not out.is_dir():
+        raise OutputError(f"The {what} {short(display_name(str(out)))!r} is a file, not a folder.")
 
 
 # -- annotate -------------------------------------------------------------
 
 def _annotate_one(job: tuple) -> dict:
-    src, dst, rel, alternatives, fix, notation = job
+    rel, src, dst, alternatives, fix, notation = job
     from .tei import annotate
 
-    entry = {"file": rel, "output": str(dst)}
+    entry = {"file": display_name(rel), "output": display_name(str(dst))}
     try:
         Path(dst).parent.mkdir(parents=True, exist_ok=True)
         result = annotate(src, dst, alternatives=alternatives, fix=fix, notation=notation)
     except NumcheckError as err:
-        entry["error"] = str(err)
+        entry["error"] = short(str(err), limits.MAX_ECHO * 4)
         return entry
     d = result.to_dict()
     entry.update({k: d[k] for k in ("numbers", "damaged", "flagged", "restored", "statuses")})
@@ -141,43 +425,71 @@ def _annotate_one(job: tuple) -> dict:
 
 def annotate_folder(in_dir: str | os.PathLike, out_dir: str | os.PathLike, *,
                     alternatives: int = 0, fix: bool = False, notation: str | None = None,
-                    workers: int | None = None, progress: Progress | None = None) -> BatchResult:
+                    workers: int | None = None, progress: Progress | None = None,
+                    summary_dir: str | os.PathLike | None = None,
+                    fresh: bool = False) -> BatchResult:
     """Annotate every ``.xml`` file under *in_dir* into the same place under *out_dir*.
 
-    *out_dir* must differ from *in_dir* (inputs are never written over).  A
+    *out_dir* must be apart from *in_dir*: not the same folder, not inside
+    it, not holding it (inputs are never written over); this is checked
+    before any work.  A folder without a single ``.xml`` file is an error.  A
     file that fails is reported in its entry (``error``) and the run goes on.
+    The summary files and the journal go to *summary_dir* (default:
+    *out_dir*); a run stopped midway resumes where it stopped unless *fresh*.
     """
     src_root, dst_root = Path(in_dir), Path(out_dir)
-    if dst_root.exists() and same_file(src_root, dst_root):
-        raise OutputError(f"The output folder {str(dst_root)!r} is the input folder; numcheck never "
-                          "writes over its inputs. Give another folder (-o).")
-    files = find_files(src_root, (".xml",), exclude=dst_root)
+    _prepare(src_root, dst_root, "output folder")
+    sdir = Path(summary_dir) if summary_dir is not None else dst_root
+    _prepare(src_root, sdir, "summary folder")
+    files = find_files(src_root, (".xml",))
+    if not files:
+        raise _no_files(src_root, (".xml",))
     dst_root.mkdir(parents=True, exist_ok=True)
-    jobs = []
+    sdir.mkdir(parents=True, exist_ok=True)
+    jobs, stamps = [], []
     for path in files:
-        rel = path.relative_to(src_root)
-        jobs.append((str(path), str(dst_root / rel), rel.as_posix(), alternatives, fix, notation))
-    result = BatchResult("annotate", str(src_root), str(dst_root))
-    result.files = _run(jobs, _annotate_one, progress, workers)
+        rel = path.relative_to(src_root).as_posix()
+        jobs.append((rel, str(path), str(dst_root / rel), alternatives, fix, notation))
+        stamps.append(_stamp(str(path)))
+    key = {"kind": "annotate", "input": display_name(os.path.realpath(src_root)),
+           "output": display_name(os.path.realpath(dst_root)), "alternatives": alternatives,
+           "fix": bool(fix), "notation": notation}
+    journal = _Journal(sdir, key)
+    if not fresh:
+        journal.load()
+        for job in jobs:        # an output deleted since is made again
+            record = journal.done.get(job[0])
+            if record and "error" not in record["entry"] and not Path(job[2]).is_file():
+                del journal.done[job[0]]
+    else:
+        journal.clear()
+    journal.start()
+    result = BatchResult("annotate", display_name(str(src_root)), display_name(str(dst_root)),
+                         summary_dir=display_name(str(sdir)))
+    already = sum(1 for i, j in enumerate(jobs)
+                  if journal.done.get(j[0], {}).get("stamp") == stamps[i])
+    result.files = _run(jobs, _annotate_one, progress, workers, journal, stamps)
+    result.resumed = already
+    _write_summary(result, sdir)
     return result
 
 
 # -- audit ----------------------------------------------------------------
 
 def _audit_one(job: tuple) -> dict:
-    src, rel, report_dir, notation, relation = job
+    rel, src, report_dir, notation, relation = job
     from .audit import audit
 
     from .tei.markup import NoTableError
 
-    entry: dict = {"file": rel}
+    entry: dict = {"file": display_name(rel)}
     try:
         result = audit(Path(src), notation=notation, relation=relation)
     except NoTableError as err:
-        entry["skipped"] = str(err)
+        entry["skipped"] = short(str(err), limits.MAX_ECHO * 4)
         return entry
     except NumcheckError as err:
-        entry["error"] = str(err)
+        entry["error"] = short(str(err), limits.MAX_ECHO * 4)
         return entry
     d = result.to_dict()
     flags, restorations = d.get("flags", []), d.get("restorations", [])
@@ -192,7 +504,7 @@ def _audit_one(job: tuple) -> dict:
         "restorations": restorations,
     })
     if report_dir is not None:
-        entry["reports"] = _write_reports(result, Path(report_dir), rel)
+        entry["reports"] = _write_reports(result, Path(report_dir), display_name(rel))
     return entry
 
 
@@ -216,7 +528,7 @@ def _cell_counts(result) -> tuple[int, int]:
 
 def _report_stem(rel: str) -> str:
     """A flat, unique name for a file's reports (``sub/a.tsv`` -> ``sub__a.tsv``)."""
-    return rel.replace("/", "__")
+    return rel.replace("/", "__").replace("\ufffd", "_")
 
 
 def _write_reports(result, report_dir: Path, rel: str) -> dict:
@@ -231,7 +543,7 @@ def _write_reports(result, report_dir: Path, rel: str) -> dict:
         try:
             fn(result, path)
         except NumcheckError as err:
-            out[key + "_error"] = str(err)
+            out[key + "_error"] = short(str(err), limits.MAX_ECHO * 4)
             continue
         out[key] = path.name
     return out
@@ -239,30 +551,56 @@ def _write_reports(result, report_dir: Path, rel: str) -> dict:
 
 def audit_folder(in_dir: str | os.PathLike, *, report_dir: str | os.PathLike | None = None,
                  notation: str | None = None, relation=None, workers: int | None = None,
-                 progress: Progress | None = None) -> dict:
+                 progress: Progress | None = None, summary_dir: str | os.PathLike | None = None,
+                 fresh: bool = False) -> dict:
     """Audit every table (``.tsv``, ``.csv``, a TEI ``.xml`` with a ``<table>``) under *in_dir*.
 
     With *report_dir*, each file gets its HTML report, plot and flags CSV
-    there, and ``index.html`` links them all.  Returns the JSON object of the
-    batch (``summary``, ``files``, ``index``).
+    there, and ``index.html`` links them all.  The summary files and the
+    journal go to *summary_dir* (default: *report_dir*; none without either),
+    and a run stopped midway resumes there unless *fresh*.  The report and
+    summary folders must lie apart from *in_dir* (checked before any work); a
+    folder without a single table is an error.  Returns the JSON object of
+    the batch (``summary``, ``files``, ``index``).
     """
     src_root = Path(in_dir)
-    files = find_files(src_root, TABLE_SUFFIXES,
-                       exclude=report_dir if report_dir is not None else None)
-    if report_dir is not None:
-        rdir = Path(report_dir)
-        if rdir.exists() and same_file(rdir, src_root):
-            raise OutputError(f"The report folder {str(rdir)!r} is the input folder; give another one.")
-        rdir.mkdir(parents=True, exist_ok=True)
-    jobs = [(str(p), p.relative_to(src_root).as_posix(),
-             str(report_dir) if report_dir is not None else None, notation, relation)
-            for p in files]
-    result = BatchResult("audit", str(src_root), str(report_dir) if report_dir is not None else None)
-    result.files = _run(jobs, _audit_one, progress, workers)
-    if report_dir is not None:
-        index = Path(report_dir) / "index.html"
+    rdir = Path(report_dir) if report_dir is not None else None
+    _prepare(src_root, rdir, "report folder")
+    sdir = Path(summary_dir) if summary_dir is not None else rdir
+    _prepare(src_root, sdir, "summary folder")
+    files = find_files(src_root, TABLE_SUFFIXES)
+    if not files:
+        raise _no_files(src_root, TABLE_SUFFIXES)
+    for folder in (rdir, sdir):
+        if folder is not None:
+            folder.mkdir(parents=True, exist_ok=True)
+    jobs, stamps = [], []
+    for p in files:
+        jobs.append((p.relative_to(src_root).as_posix(), str(p),
+                     str(rdir) if rdir is not None else None, notation, relation))
+        stamps.append(_stamp(str(p)))
+    key = {"kind": "audit", "input": display_name(os.path.realpath(src_root)),
+           "reports": display_name(os.path.realpath(rdir)) if rdir is not None else None,
+           "notation": notation, "relation": relation if isinstance(relation, str) else repr(relation)}
+    journal = _Journal(sdir, key)
+    if fresh:
+        journal.clear()
+    else:
+        journal.load()
+    journal.start()
+    result = BatchResult("audit", display_name(str(src_root)),
+                         display_name(str(rdir)) if rdir is not None else None,
+                         summary_dir=display_name(str(sdir)) if sdir is not None else None)
+    already = sum(1 for i, j in enumerate(jobs)
+                  if journal.done.get(j[0], {}).get("stamp") == stamps[i])
+    result.files = _run(jobs, _audit_one, progress, workers, journal, stamps)
+    result.resumed = already
+    if rdir is not None:
+        index = rdir / "index.html"
         write_index(result, index)
-        result.index = str(index)
+        result.index = display_name(str(index))
+    if sdir is not None:
+        _write_summary(result, sdir)
     return result.to_dict()
 
 

@@ -72,12 +72,108 @@ def _console_class():
     return _PipeAwareConsole
 
 
+def _safe_streams() -> None:
+    """Let standard output and error carry any text: what the encoding cannot hold is escaped.
+
+    Under ``PYTHONIOENCODING=cp1252`` (or ``ascii``) Greek letters become
+    ``\\u03ba`` instead of an UnicodeEncodeError; a file name that is not
+    UTF-8 (a lone surrogate in Python) is escaped the same way, so the output
+    stays valid text in its encoding.
+    """
+    for stream in (sys.stdout, sys.stderr):
+        reconfigure = getattr(stream, "reconfigure", None)
+        if reconfigure is not None:
+            try:
+                reconfigure(errors="backslashreplace")
+            except (ValueError, OSError):      # a closed or detached stream
+                pass
+
+
+def _stream_is_utf8(stream) -> bool:
+    encoding = (getattr(stream, "encoding", None) or "").lower().replace("_", "-")
+    return encoding in ("utf-8", "utf8", "utf-8-sig")
+
+
+def _json_text(data: dict) -> str:
+    # JSON stays exact and valid in any encoding: ASCII escapes where the
+    # output cannot hold the characters.
+    return json.dumps(data, ensure_ascii=not _stream_is_utf8(sys.stdout), sort_keys=False) + "\n"
+
+
+def _silence_stdout() -> None:
+    """After a failed write, send what is left in Python's buffer to /dev/null (no noise at exit)."""
+    import os
+
+    try:
+        os.dup2(os.open(os.devnull, os.O_WRONLY), sys.stdout.fileno())
+    except (OSError, ValueError, AttributeError):
+        pass
+
+
+def _say(text: str) -> None:
+    """A line on standard error, if there is one."""
+    if sys.stderr is not None:
+        try:
+            sys.stderr.write(text)
+            sys.stderr.flush()
+        except (OSError, ValueError):
+            pass
+
+
+def _on_terminate(signum, frame):
+    # SIGTERM or SIGHUP: unwind like Ctrl-C, so that temporary files are
+    # removed and a batch run records what it finished.
+    raise SystemExit(128 + signum)
+
+
 def main(argv: list[str] | None = None) -> int:
+    import signal
+
     parser = build_parser()
     args = parser.parse_args(argv)
     if not getattr(args, "_module", None):
         parser.print_help()
         return 2
+    if sys.stdout is None or getattr(sys.stdout, "closed", False):
+        _say(f"numcheck {args.command}: standard output is closed, so the result has nowhere "
+             "to go; nothing was done. Run it with standard output open (or > FILE).\n")
+        return 2
+    _safe_streams()
+    previous = {}
+    for sig in (signal.SIGTERM, getattr(signal, "SIGHUP", None)):
+        if sig is None:
+            continue
+        try:
+            previous[sig] = signal.signal(sig, _on_terminate)
+        except (ValueError, OSError):          # not the main thread
+            pass
+    try:
+        code = _main(args)
+        sys.stdout.flush()
+        return code
+    except BrokenPipeError:
+        # The reader of our output went away (`numcheck catalogue | head`):
+        # nothing is wrong; silence the flush at exit and stop.
+        _silence_stdout()
+        return 0
+    except OSError as err:         # standard output itself failed (/dev/full)
+        _silence_stdout()
+        _say(f"numcheck {args.command}: cannot write the output: {err.strerror or err}.\n")
+        return 2
+    except SystemExit as stop:
+        if stop.code in (128 + signal.SIGTERM, 128 + getattr(signal, "SIGHUP", 1)):
+            _say(f"numcheck {args.command}: stopped by a signal; temporary files removed "
+                 "(a folder run resumes when run again).\n")
+        raise
+    finally:
+        for sig, handler in previous.items():
+            try:
+                signal.signal(sig, handler)
+            except (ValueError, OSError, TypeError):
+                pass
+
+
+def _main(args) -> int:
     from rich.console import Console
 
     _Console = _console_class()
@@ -88,41 +184,50 @@ def main(argv: list[str] | None = None) -> int:
             warnings.simplefilter("always")
             result = args._module.run(args, console if not args.json else None)
         if args.json:
-            sys.stdout.write(json.dumps(result, ensure_ascii=False, sort_keys=False) + "\n")
+            sys.stdout.write(_json_text(result))
         else:
             for w in caught:
                 err_console.print(f"[yellow]warning:[/yellow] {w.message}", markup=True)
+        sys.stdout.flush()
         return 0
     except NumcheckError as err:
         message = str(err)
         if args.json:
-            sys.stdout.write(json.dumps({"error": type(err).__name__, "message": message},
-                                        ensure_ascii=False) + "\n")
-        sys.stderr.write(f"numcheck {args.command}: {message}\n")
+            sys.stdout.write(_json_text({"error": type(err).__name__, "message": message}))
+        _say(f"numcheck {args.command}: {message}\n")
         return 2
     except KeyboardInterrupt:
+        _say(f"numcheck {args.command}: stopped (Ctrl-C); temporary files removed "
+             "(a folder run resumes when run again).\n")
         return 130
     except BrokenPipeError:
-        # The reader of our output went away (`numcheck catalogue | head`):
-        # nothing is wrong; silence the flush at exit and stop.
-        import os
-
-        os.dup2(os.open(os.devnull, os.O_WRONLY), sys.stdout.fileno())
-        return 0
+        raise
     except OSError as err:  # the file system said no (permissions, a full disk): not a fault of numcheck
+        if _is_stdout_error(err):
+            raise
         where = f" {err.filename!r}" if getattr(err, "filename", None) else ""
         message = f"cannot read or write{where}: {err.strerror or err}."
         if args.json:
-            sys.stdout.write(json.dumps({"error": type(err).__name__, "message": message},
-                                        ensure_ascii=False) + "\n")
-        sys.stderr.write(f"numcheck {args.command}: {message}\n")
+            sys.stdout.write(_json_text({"error": type(err).__name__, "message": message}))
+        _say(f"numcheck {args.command}: {message}\n")
         return 2
     except Exception as err:  # an internal error: say so plainly, ask for a report
-        sys.stderr.write(
-            f"numcheck {args.command}: internal error ({type(err).__name__}: {err}). "
-            "This is a fault in numcheck, not in your input; please report it with the command "
-            "you ran.\n")
+        _say(
+            f"numcheck {args.command}: internal error ({type(err).__name__}: "
+            f"{_short(str(err))}). This is a fault in numcheck, not in your input; please report "
+            "it with the command you ran.\n")
         return 1
+
+
+def _is_stdout_error(err: OSError) -> bool:
+    """Whether *err* came from writing standard output (no file name: not a file of the user's)."""
+    return getattr(err, "filename", None) is None and err.errno in (28, 5, 9, 27, 122)
+
+
+def _short(text: str) -> str:
+    from .files import short
+
+    return short(text)
 
 
 if __name__ == "__main__":  # pragma: no cover

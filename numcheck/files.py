@@ -1,26 +1,44 @@
-"""Safe output files: write atomically, never over an input.
+"""Safe files: write atomically, never over an input; read only regular files of a sane size.
 
 An editor's source files are precious.  numcheck never opens an input for
 writing; every output is written to a temporary file in the same folder and
 renamed over the target in one step, so that an interrupted run leaves either
-the old file or the new one, never half a file.  An output path that is the
-same file as one of the inputs is refused before anything is written.
+the old file or the new one, never half a file.  An output path that is, holds
+or lies inside one of the inputs (a file or a folder) is refused before any
+work is done.  A temporary file left by a run that was killed (``kill -9``
+cannot be caught) is swept the next time the same target is written.
+
+On the reading side :func:`check_input_file` looks at what a path *is* before
+a byte is read: a device (``/dev/zero``), a FIFO (which would block for ever),
+a folder or a binary file is refused with a message, and so is a file over
+its size limit.
 """
 
 from __future__ import annotations
 
 import os
+import stat
 import tempfile
+import time
 from collections.abc import Iterable
 from pathlib import Path
 
-from .errors import NumcheckError
+from . import limits
+from .errors import LimitError, NumcheckError
 
-__all__ = ["OutputError", "write_atomic", "check_distinct", "same_file"]
+__all__ = ["OutputError", "InputFileError", "write_atomic", "check_distinct", "same_file",
+           "check_input_file", "sweep_stale_temporaries", "TEMP_MARK"]
+
+#: Every temporary file numcheck writes is named ``.<target>.numcheck-<pid>-<random>.tmp``.
+TEMP_MARK = ".numcheck-"
 
 
 class OutputError(NumcheckError):
     """An output cannot be written where it was asked for (it is an input, or the folder is missing)."""
+
+
+class InputFileError(NumcheckError):
+    """An input path is not a regular file numcheck can read (a device, a FIFO, a binary file)."""
 
 
 def same_file(a: str | os.PathLike, b: str | os.PathLike) -> bool:
@@ -35,29 +53,149 @@ def same_file(a: str | os.PathLike, b: str | os.PathLike) -> bool:
             return os.path.samefile(pa, pb)
     except OSError:
         pass
-    return os.path.normcase(os.path.realpath(pa)) == os.path.normcase(os.path.realpath(pb))
+    return _real(pa) == _real(pb)
+
+
+def _real(path: Path) -> Path:
+    return Path(os.path.normcase(os.path.realpath(path)))
+
+
+def _inside(inner: Path, outer: Path) -> bool:
+    """Whether the real path *inner* lies strictly inside the real path *outer*."""
+    return outer in inner.parents
 
 
 def check_distinct(inputs: Iterable[str | os.PathLike] | str | os.PathLike,
                    output: str | os.PathLike) -> None:
-    """Refuse an *output* path that is one of the *inputs*.
+    """Refuse an *output* path that is, holds or lies inside one of the *inputs*.
 
-    Raises :class:`OutputError` naming both paths; returns None when they differ.
+    Files and folders alike: ``annotate ed -o ed/sub`` (the output inside the
+    input folder, where it would write over ``ed/sub/*.xml``) and ``annotate
+    ed/sub -o ed`` (the input inside the output) are both refused.  Raises
+    :class:`OutputError` naming both paths; returns None when they are apart.
     """
     if isinstance(inputs, (str, os.PathLike)):
         inputs = [inputs]
+    out_real = _real(Path(output))
     for path in inputs:
         if same_file(path, output):
             raise OutputError(
                 f"The output {str(output)!r} is the same file as the input {str(path)!r}; "
                 "numcheck never writes over an input. Give another output path (-o).")
+        in_real = _real(Path(path))
+        if _inside(out_real, in_real):
+            raise OutputError(
+                f"The output {str(output)!r} lies inside the input folder {str(path)!r}; "
+                "numcheck could write over an input there. Give an output path outside it.")
+        if _inside(in_real, out_real):
+            raise OutputError(
+                f"The input {str(path)!r} lies inside the output {str(output)!r}; numcheck "
+                "could write over an input there. Give an output path outside the input.")
+
+
+def check_input_file(path: str | os.PathLike, *, max_bytes: int | None = None,
+                     what: str = "file", limit_name: str | None = None) -> int:
+    """Refuse an input that is not a regular, readable, text file within its size limit.
+
+    Looks at the kind of the file first (``os.stat``: no byte is read from a
+    device or a FIFO), then its size against *max_bytes* (the limit named
+    *limit_name*), then its first bytes: a NUL byte in them marks a binary
+    file (UTF-16 text with a byte-order mark is let through).  Returns the size.
+    """
+    p = Path(path)
+    a_what = ("an " if what[:1].lower() in "aeiou" or what.startswith("XML") else "a ") + what
+    try:
+        st = os.stat(p)
+    except FileNotFoundError:
+        raise InputFileError(f"No such {what}: {short(str(p))!r}.") from None
+    except OSError as err:
+        raise InputFileError(f"Cannot read {short(str(p))!r}: {err.strerror or err}.") from None
+    mode = st.st_mode
+    if stat.S_ISDIR(mode):
+        raise InputFileError(f"{short(str(p))!r} is a folder, not {a_what}.")
+    if not stat.S_ISREG(mode):
+        kind = ("a named pipe (FIFO)" if stat.S_ISFIFO(mode) else
+                "a character device" if stat.S_ISCHR(mode) else
+                "a block device" if stat.S_ISBLK(mode) else
+                "a socket" if stat.S_ISSOCK(mode) else "not a regular file")
+        raise InputFileError(f"{short(str(p))!r} is {kind}, not {a_what}: numcheck reads only "
+                             "regular files (a device or a pipe could be read for ever).")
+    if max_bytes is not None and st.st_size > max_bytes:
+        raise LimitError(f"size in bytes of {short(str(p))!r}", st.st_size, max_bytes,
+                         f"Set numcheck.limits.{limit_name or 'MAX_TABLE_BYTES'} higher to read it.")
+    with open(p, "rb") as handle:
+        head = handle.read(4096)
+    if b"\x00" in head and not head.startswith((b"\xff\xfe", b"\xfe\xff")):
+        raise InputFileError(f"{short(str(p))!r} looks like a binary file (it holds NUL bytes), "
+                             f"not {a_what}; numcheck reads text (TSV, CSV, XML).")
+    return st.st_size
+
+
+def short(text: str, width: int | None = None) -> str:
+    """*text* cut to at most *width* characters (``limits.MAX_ECHO``), with an ellipsis.
+
+    Messages quote inputs only as a short excerpt, never a whole paste.
+
+    >>> short("abcdef", 4)
+    'abc…'
+    """
+    width = limits.MAX_ECHO if width is None else width
+    text = str(text)
+    return text if len(text) <= width else text[: max(1, width - 1)] + "…"
+
+
+def _pid_alive(pid: int) -> bool:
+    try:
+        os.kill(pid, 0)
+    except ProcessLookupError:
+        return False
+    except (PermissionError, OSError):
+        return True
+    return True
+
+
+def sweep_stale_temporaries(folder: str | os.PathLike, name: str | None = None) -> list[str]:
+    """Remove temporary files of numcheck's own naming left in *folder* by a killed run.
+
+    Only names of the form ``.<target>.numcheck-<pid>-<random>.tmp`` are
+    touched (for the one *name* when given), and only when the process that
+    wrote them is gone or the file is older than ``limits.STALE_TEMP_SECONDS``:
+    a concurrent run's temporary file is left alone.  Returns the names removed.
+    """
+    removed = []
+    prefix = f".{name}{TEMP_MARK}" if name is not None else "."
+    try:
+        entries = list(os.scandir(folder))
+    except OSError:
+        return removed
+    now = time.time()
+    for entry in entries:
+        n = entry.name
+        if not (n.startswith(prefix) and TEMP_MARK in n and n.endswith(".tmp")):
+            continue
+        tail = n.rsplit(TEMP_MARK, 1)[1]
+        pid_text = tail.split("-", 1)[0]
+        try:
+            if not entry.is_file(follow_symlinks=False):
+                continue
+            old = now - entry.stat(follow_symlinks=False).st_mtime > limits.STALE_TEMP_SECONDS
+            dead = pid_text.isdigit() and int(pid_text) != os.getpid() and not _pid_alive(int(pid_text))
+            if old or dead:
+                os.unlink(entry.path)
+                removed.append(n)
+        except OSError:
+            continue
+    return removed
 
 
 def write_atomic(path: str | os.PathLike, data: bytes | str, *, encoding: str = "utf-8") -> Path:
     """Write *data* to *path* through a temporary file in the same folder and a rename.
 
     Text is encoded with *encoding* (UTF-8 by default).  The folder must exist.
-    Returns the path written.
+    Stale temporaries of an earlier, killed write of the same target are
+    swept first.  The temporary file is removed on any exception, including
+    ``KeyboardInterrupt`` and the ``SystemExit`` the command line raises on
+    SIGTERM.  Returns the path written.
     """
     target = Path(path)
     folder = target.parent if str(target.parent) else Path(".")
@@ -65,8 +203,13 @@ def write_atomic(path: str | os.PathLike, data: bytes | str, *, encoding: str = 
         raise OutputError(f"Cannot write {str(target)!r}: the folder {str(folder)!r} does not exist.")
     if target.is_dir():
         raise OutputError(f"Cannot write {str(target)!r}: it is a folder, not a file.")
+    if target.exists() and not target.is_file():
+        raise OutputError(f"Cannot write {str(target)!r}: it is not a regular file (a device or "
+                          "a pipe); give a file path.")
     payload = data.encode(encoding) if isinstance(data, str) else bytes(data)
-    fd, tmp = tempfile.mkstemp(prefix=f".{target.name}.", suffix=".tmp", dir=folder)
+    sweep_stale_temporaries(folder, target.name)
+    fd, tmp = tempfile.mkstemp(prefix=f".{target.name}{TEMP_MARK}{os.getpid()}-", suffix=".tmp",
+                               dir=folder)
     try:
         with os.fdopen(fd, "wb") as handle:
             handle.write(payload)

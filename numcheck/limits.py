@@ -18,7 +18,7 @@ MAX_XML_DEPTH = 200
 #: Most ``<num>`` elements annotated in one XML file.
 MAX_XML_NUMS = 200_000
 #: Most files in one batch run (``annotate DIR``, ``audit DIR``).
-MAX_BATCH_FILES = 10_000
+MAX_BATCH_FILES = 200_000
 #: Largest table file (TSV, CSV, aligned text) read by ``audit`` (bytes).
 MAX_TABLE_BYTES = 200_000_000
 #: Most cells in one table given to ``audit`` (rows times columns).
@@ -51,3 +51,12 @@ IDENTIFY_MAX_CANDIDATES = 100_000
 IDENTIFY_DAMAGE_READINGS = 60
 #: Most candidates a restoration lists (``top``).
 RESTORE_MAX_TOP = 100_000
+#: Longest excerpt of an input quoted in a message (characters).
+MAX_ECHO = 200
+#: A temporary file of numcheck's naming older than this (seconds) is stale and swept.
+STALE_TEMP_SECONDS = 3600
+#: A batch run records finished files in its journal at least every this many seconds
+#: (after ``kill -9`` at most this much work is done again on resume).
+BATCH_JOURNAL_SECONDS = 2.0
+#: ... or every this many files, whichever comes first.
+BATCH_JOURNAL_ENTRIES = 200

@@ -25,8 +25,21 @@ def add_arguments(parser) -> None:
     parser.add_argument("--fix", action="store_true",
                         help="replace an existing @value that the letters contradict (default: report it)")
     parser.add_argument("--notation", "-n", help="the notation of the numbers (detected when left out)")
+    add_batch_arguments(parser)
+
+
+def add_batch_arguments(parser) -> None:
+    """The options of a folder run (also used by ``audit DIR``)."""
     parser.add_argument("--workers", type=int, default=None,
-                        help="processes for a folder of many files (default 2)")
+                        help="processes for a folder of many files (default and most: the "
+                             "machine's cores)")
+    parser.add_argument("--summary", metavar="DIR",
+                        help="for a folder: where to write numcheck-files.csv, "
+                             "numcheck-summary.json, numcheck-findings.csv and the run's journal "
+                             "(default: the output or report folder)")
+    parser.add_argument("--fresh", action="store_true",
+                        help="for a folder: redo every file (default: a stopped run resumes, "
+                             "files already done are not redone)")
 
 
 def run(args, console) -> dict:
@@ -54,7 +67,7 @@ def _run_folder(args, console) -> dict:
     with progress_bar(console, "annotating") as progress:
         result = annotate_folder(args.input, args.output, alternatives=args.alternatives,
                                  fix=args.fix, notation=args.notation, workers=args.workers,
-                                 progress=progress)
+                                 progress=progress, summary_dir=args.summary, fresh=args.fresh)
     out = result.to_dict()
     if console is not None:
         show_batch(out, console, "annotate")
@@ -153,7 +166,12 @@ def show_batch(out: dict, console, kind: str) -> None:
             console.print(f"[red]{escape(f['file'])}:[/red] {escape(f['error'])}")
         elif "skipped" in f:
             console.print(f"{escape(f['file'])}: skipped: {escape(f['skipped'])}")
+    if out.get("resumed"):
+        console.print(f"resumed: {out['resumed']} files were already done by an earlier run "
+                      "(--fresh redoes them)")
     if out.get("out"):
         console.print(f"output: {escape(out['out'])}")
+    for name in out.get("summary_files", []):
+        console.print(f"summary: {escape(name)}")
     if out.get("index"):
         console.print(f"index of reports: {escape(out['index'])}")

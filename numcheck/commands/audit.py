@@ -24,6 +24,8 @@ def add_arguments(parser) -> None:
     parser.add_argument("--report", metavar="OUT.html", help="write a self-contained HTML report "
                         "(for a folder: the folder to write the reports to)")
     parser.add_argument("--csv", metavar="OUT.csv", help="write the flags as CSV")
+    from .annotate import add_batch_arguments
+    add_batch_arguments(parser)
 
 
 def run(args, console) -> dict:
@@ -64,7 +66,11 @@ def _folder(args, path: Path, console) -> dict:
     except ImportError as err:
         raise NumcheckError(f"{str(path)!r} is a folder: auditing folders needs numcheck.batch, "
                             "which is not installed.") from err
-    out = audit_folder(path, report_dir=args.report, notation=args.notation, relation=args.relation)
+    from .annotate import progress_bar
+    with progress_bar(console, "auditing") as progress:
+        out = audit_folder(path, report_dir=args.report, notation=args.notation,
+                           relation=args.relation, workers=args.workers, progress=progress,
+                           summary_dir=args.summary, fresh=args.fresh)
     if console is not None:
         from rich.markup import escape
         from rich.table import Table
@@ -83,4 +89,9 @@ def _folder(args, path: Path, console) -> dict:
         console.print(t)
         if out.get("index"):
             console.print(f"reports: {escape(str(out['index']))}")
+        if out.get("resumed"):
+            console.print(f"resumed: {out['resumed']} files were already done by an earlier run "
+                          "(--fresh redoes them)")
+        for name in out.get("summary_files", []):
+            console.print(f"summary: {escape(name)}")
     return out

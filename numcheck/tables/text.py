@@ -9,27 +9,37 @@ from pathlib import Path
 
 from ..errors import LimitError, NumcheckError
 from .. import limits
+from ..files import check_input_file, short
 from .cells import sign_index
 
 __all__ = ["split_text", "read_text_file"]
 
 
 def read_text_file(path: Path) -> str:
-    """The text of the table file *path*, after checking that it exists and is not too big."""
-    if not path.exists():
-        raise NumcheckError(f"There is no table at {str(path)!r}: the file does not exist.")
-    if path.is_dir():
-        raise NumcheckError(f"{str(path)!r} is a folder, not a table file.")
-    size = path.stat().st_size
-    if size > limits.MAX_TABLE_BYTES:
-        raise LimitError(f"size of the table {str(path)!r}", f"{size:,} bytes",
-                         f"{limits.MAX_TABLE_BYTES:,} bytes",
-                         "Set numcheck.limits.MAX_TABLE_BYTES higher to audit it, or split the table.")
+    """The text of the table file *path*, after checking its kind and size (no byte read before)."""
+    if not path.exists() and not path.is_symlink():
+        raise NumcheckError(f"There is no table at {short(str(path))!r}: the file does not exist.")
+    check_input_file(path, max_bytes=limits.MAX_TABLE_BYTES, what="table file",
+                     limit_name="MAX_TABLE_BYTES")
+    data = path.read_bytes()
+    return decode_table_bytes(data, str(path))
+
+
+def decode_table_bytes(data: bytes, where: str) -> str:
+    """The text of a table file: UTF-8 (with or without a BOM), or UTF-16 with its BOM.
+
+    A byte sequence that is not text in its encoding (or a lone surrogate in
+    UTF-16) is a NumcheckError naming the byte.
+    """
+    if data.startswith((b"\xff\xfe", b"\xfe\xff")):
+        encoding = "utf-16"
+    else:
+        encoding = "utf-8-sig"
     try:
-        return path.read_text(encoding="utf-8-sig")
+        return data.decode(encoding)
     except UnicodeDecodeError as err:
-        raise NumcheckError(f"The table {str(path)!r} is not UTF-8 text "
-                            f"(byte {err.start} cannot be decoded).") from err
+        raise NumcheckError(f"The table {short(where)!r} is not {encoding.upper()} text "
+                            f"(byte {err.start} cannot be decoded).") from None
 
 
 def split_text(text: str, *, suffix: str = "") -> tuple[list[str], list[list[str]]]:

@@ -23,6 +23,7 @@ from lxml import etree
 
 from .. import limits
 from ..errors import LimitError, NumcheckError
+from ..files import check_input_file
 
 __all__ = [
     "TEI_NS",
@@ -86,16 +87,13 @@ def _parser() -> etree.XMLParser:
 
 
 def read_bytes(path: str | os.PathLike) -> bytes:
-    """The bytes of *path*, after checking the size limit (the file is only read)."""
+    """The bytes of *path*, after checking its kind and size limit (the file is only read)."""
     if not isinstance(path, (str, os.PathLike)):
         raise NumcheckError(f"Expected the path of an XML file, got {type(path).__name__}.")
     p = Path(path)
-    if not p.is_file():
-        raise TeiError(p, None, "no such file" if not p.exists() else "not a file")
-    size = p.stat().st_size
-    if size > limits.MAX_XML_BYTES:
-        raise LimitError(f"size of {str(p)!r}", f"{size} bytes", f"{limits.MAX_XML_BYTES} bytes",
-                         "Set numcheck.limits.MAX_XML_BYTES higher to read it.")
+    if not p.exists():
+        raise TeiError(p, None, "no such file")
+    check_input_file(p, max_bytes=limits.MAX_XML_BYTES, what="XML file", limit_name="MAX_XML_BYTES")
     with open(p, "rb") as handle:
         return handle.read()
 
