@@ -60,3 +60,5 @@ STALE_TEMP_SECONDS = 3600
 BATCH_JOURNAL_SECONDS = 2.0
 #: ... or every this many files, whichever comes first.
 BATCH_JOURNAL_ENTRIES = 200
+#: Largest span ``relate`` accepts, in its unit (and no part finer than 1 over it).
+RELATE_MAX_SPAN = 10**18

@@ -25,6 +25,7 @@ from fractions import Fraction
 
 from ..errors import LimitError, NumcheckRangeError, UnknownNameError
 from .. import limits
+from ..files import short
 from ..reading import decimal_text, exact_text
 from .periods import BODIES, CYCLES, PeriodSet, unit_named
 from .known import KnownRelation, matching, matching_spans
@@ -152,6 +153,7 @@ def _positive(n, what: str = "N") -> Fraction:
         from ..catalogue.statements import parse_number
 
         text = n.strip()
+        _check_span_text(text, what)
         try:
             value = Fraction(text)
         except (ValueError, ZeroDivisionError):
@@ -168,9 +170,34 @@ def _positive(n, what: str = "N") -> Fraction:
             raise NumcheckRangeError(f"{what} = {n!r} is not a number.", value=n,
                                      legal="a positive number of years, months or days") from None
     if value <= 0:
-        raise NumcheckRangeError(f"{what} = {exact_text(value)} is not a span of time.", value=value,
+        raise NumcheckRangeError(f"{what} = {short(exact_text(value))} is not a span of time.",
+                                 value=value,
                                  legal="a positive number of years, months or days (greater than 0)")
+    if value > limits.RELATE_MAX_SPAN or value.denominator > limits.RELATE_MAX_SPAN:
+        raise LimitError(f"span {what} = {short(exact_text(value), 40)}", "larger" if
+                         value > limits.RELATE_MAX_SPAN else "finer", f"{limits.RELATE_MAX_SPAN:,} "
+                         "(and parts no finer than its reciprocal)",
+                         "Set numcheck.limits.RELATE_MAX_SPAN higher to relate it.")
     return value
+
+
+def _check_span_text(text: str, what: str) -> None:
+    """Refuse a span text too long or with an exponent too large, before it is turned into a number.
+
+    ``Fraction("1e99999999")`` would build an integer of 10^8 digits (a hang).
+    """
+    import re
+
+    if len(text) > limits.MAX_TEXT_LENGTH:
+        raise LimitError(f"length of {what}", f"{len(text):,} characters",
+                         f"{limits.MAX_TEXT_LENGTH:,}", "Give a shorter number, or set "
+                         "numcheck.limits.MAX_TEXT_LENGTH higher.")
+    digits = len(str(limits.RELATE_MAX_SPAN))
+    for exp in re.findall(r"[eE]\s*([+-]?\d+)", text):
+        if abs(int(exp[:12])) > digits:
+            raise LimitError(f"exponent of {what} = {short(text, 40)!r}", exp[:12], digits,
+                             "Write the span without so large an exponent, or set "
+                             "numcheck.limits.RELATE_MAX_SPAN higher.")
 
 
 def relate(n, unit: str, *, values: str = "modern", tradition: str | None = None) -> RelateResult:

@@ -29,6 +29,11 @@ from . import scoring
 __all__ = ["Evidence", "Target", "gather", "catalogue_source"]
 
 
+def _short_repr(x) -> str:
+    text = repr(x)
+    return text if len(text) <= 60 else text[:59] + "…"
+
+
 @dataclass(frozen=True)
 class Evidence:
     """An expected value from the context of the number, with its tolerance.
@@ -46,8 +51,21 @@ class Evidence:
     label: str = ""
 
     def __post_init__(self):
-        object.__setattr__(self, "value", Fraction(self.value))
-        object.__setattr__(self, "tolerance", Fraction(self.tolerance))
+        for name in ("value", "tolerance"):
+            raw = getattr(self, name)
+            try:
+                if isinstance(raw, bool):
+                    raise TypeError(raw)
+                object.__setattr__(self, name, Fraction(raw))
+            except (TypeError, ValueError, OverflowError, ZeroDivisionError, ArithmeticError):
+                raise NumcheckRangeError(f"The {name} of evidence {self.label!r} is "
+                                         f"{_short_repr(raw)}, not an exact number.", value=raw,
+                                         legal="a finite number (an int, a Fraction, a finite "
+                                               "float or a text like '19756/3')") from None
+        if not isinstance(self.weight, (int, float)) or isinstance(self.weight, bool):
+            raise NumcheckRangeError(f"The weight of evidence {self.label!r} is "
+                                     f"{_short_repr(self.weight)}.", value=self.weight,
+                                     legal="a number, 0 or more")
         if self.tolerance < 0:
             raise NumcheckRangeError(f"The tolerance of evidence {self.label!r} is {self.tolerance}.",
                                      value=self.tolerance, legal="0 or more")
@@ -180,9 +198,15 @@ def gather(reading: Reading, space, *, expect=None, context=(), use_catalogue=Tr
     """Every piece of evidence as :class:`Target` s, and notes on what was used."""
     notes: list[str] = []
     targets: list[Target] = []
+    if context is None:
+        context = ()
+    if isinstance(context, (str, bytes, Evidence)) or not hasattr(context, "__iter__"):
+        raise NumcheckError(f"context must be a list of Evidence objects, got "
+                            f"{type(context).__name__} {_short_repr(context)}.")
     for i, ev in enumerate(context):
         if not isinstance(ev, Evidence):
-            raise TypeError(f"context must hold Evidence objects, got {type(ev).__name__}")
+            raise NumcheckError(f"context must hold Evidence objects, got {type(ev).__name__} "
+                                f"{_short_repr(ev)} at position {i + 1}.")
         label = ev.label or f"context evidence {i + 1}"
         targets.append(Target(ev.value, ev.tolerance, float(ev.weight), label, "context",
                               id=f"context-{i + 1}"))

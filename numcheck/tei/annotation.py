@@ -146,8 +146,16 @@ def annotate(in_path: str | os.PathLike, out_path: str | os.PathLike | None, *,
 def annotate_bytes(data: bytes, name: str | os.PathLike = "<input>", *, alternatives: int = 0,
                    fix: bool = False, notation: str | None = None) -> tuple[bytes, AnnotateResult]:
     """Annotate the TEI document *data*; return the new bytes and the result."""
-    if alternatives < 0:
-        raise NumcheckError(f"--alternatives must be 0 or more, not {alternatives}.")
+    if isinstance(alternatives, bool) or not isinstance(alternatives, int) or alternatives < 0:
+        text = repr(alternatives)
+        raise NumcheckError(f"--alternatives must be a whole number, 0 or more, not "
+                            f"{text if len(text) <= 60 else text[:59] + '…'}.")
+    if fix not in (True, False, 0, 1):
+        raise NumcheckError(f"fix must be True or False, not {type(fix).__name__}.")
+    if isinstance(data, str):
+        data = data.encode("utf-8")
+    if not isinstance(data, (bytes, bytearray, memoryview)):
+        raise NumcheckError(f"Expected the bytes of a TEI document, got {type(data).__name__}.")
     root = parse_tei(name, data)
     elements = [e for e in root.iter() if isinstance(e.tag, str)]
     index_of = {id(e): i for i, e in enumerate(elements)}

@@ -172,14 +172,27 @@ class Piece:
 
 
 def _int_attr(el, name: str) -> int | None:
+    """A count attribute (``quantity``, ``atLeast`` ...): a whole number of at most 12 digits.
+
+    The one door through which counts of the markup enter: a count larger than
+    a number can have places (``limits.MAX_PLACES``) is refused here, with the
+    line of the element, before anything is built from it (``quantity=
+    "1000000000"`` once allocated gigabytes).
+    """
     raw = el.get(name)
     if raw is None:
         return None
-    try:
-        n = int(raw.strip())
-    except ValueError:
-        return None
-    return n if n >= 0 else None
+    text = raw.strip()
+    if not (text.isascii() and text.isdigit()):
+        return None                      # not a count ("-1", "1_000", "many"): as if absent
+    n = int(text[:30])
+    if n > limits.MAX_PLACES:
+        line = getattr(el, "sourceline", None)
+        raise LimitError(f"@{name} of <{local_name(el)}>" + (f" at line {line}" if line else ""),
+                         text if len(text) <= 24 else text[:20] + "…", limits.MAX_PLACES,
+                         "A number has at most numcheck.limits.MAX_PLACES places; write the "
+                         "gap as of unknown extent (extent=\"unknown\") or set the limit higher.")
+    return n
 
 
 def _gap_piece(el) -> Piece:
