@@ -62,3 +62,8 @@ BATCH_JOURNAL_SECONDS = 2.0
 BATCH_JOURNAL_ENTRIES = 200
 #: Largest span ``relate`` accepts, in its unit (and no part finer than 1 over it).
 RELATE_MAX_SPAN = 10**18
+#: The audit tries every pair and triple of columns for a relation (sums, products,
+#: reciprocals) in a table of up to this many columns ...
+AUDIT_CROSS_COLUMNS = 20
+#: ... and in a wider table only among columns at most this many apart.
+AUDIT_CROSS_WINDOW = 6

@@ -11,6 +11,8 @@
 
 from __future__ import annotations
 
+from .. import limits
+
 from fractions import Fraction
 from itertools import permutations
 
@@ -200,10 +202,37 @@ class ReciprocalScheme(Scheme):
 
 
 def fit_cross(frame, taken: set[str]) -> list[Scheme]:
-    """Every relation between columns that most sampled lines satisfy."""
+    """Every relation between columns that most sampled lines satisfy.
+
+    Every pair and triple of columns is tried in a table of up to
+    ``limits.AUDIT_CROSS_COLUMNS`` columns.  A wider table is searched among
+    neighbours only (columns at most ``limits.AUDIT_CROSS_WINDOW`` apart),
+    with a warning that says so: the full search is cubic in the columns
+    (1,000 columns once took minutes).  A relation between distant columns
+    can still be stated (``relation=``).
+    """
     found: list[Scheme] = []
     names = frame.names
-    for a, b in permutations(names, 2):
+    wide = len(names) > limits.AUDIT_CROSS_COLUMNS
+    window = max(2, int(limits.AUDIT_CROSS_WINDOW)) if wide else len(names)
+    if wide:
+        import warnings
+
+        from ..errors import NumcheckWarning
+        warnings.warn(f"The table has {len(names)} columns (over numcheck.limits."
+                      f"AUDIT_CROSS_COLUMNS = {limits.AUDIT_CROSS_COLUMNS}): relations between "
+                      f"columns were looked for only among columns at most {window} apart "
+                      f"(numcheck.limits.AUDIT_CROSS_WINDOW); state a relation between distant "
+                      "columns with --relation.", NumcheckWarning, stacklevel=3)
+    index = {n: i for i, n in enumerate(names)}
+
+    def near(*cols) -> bool:
+        where = [index[c] for c in cols]
+        return max(where) - min(where) <= window
+
+    pairs = [(a, b) for a, b in permutations(names, 2) if near(a, b)] if wide \
+        else list(permutations(names, 2))
+    for a, b in pairs:
         if b in taken:
             continue
         for modulus in _moduli(frame, b):
@@ -212,7 +241,7 @@ def fit_cross(frame, taken: set[str]) -> list[Scheme]:
             if s.support > 0.5:
                 found.append(s)
                 break
-        if names.index(a) > names.index(b):
+        if index[a] > index[b]:
             continue  # n × igi is symmetric: the igi is the column to the right
         r = ReciprocalScheme(b, frame, a)
         r.support = support_row(r, frame.written[b], frame.written, _SAMPLE)
@@ -223,8 +252,10 @@ def fit_cross(frame, taken: set[str]) -> list[Scheme]:
             m.support = support_row(m, frame.written[b], frame.written, _SAMPLE)
             if m.support > 0.5:
                 found.append(m)
-    for a, b in permutations(names, 2):
-        for c in names:
+    for a, b in pairs:
+        lo, hi = min(index[a], index[b]), max(index[a], index[b])
+        thirds = names[max(0, hi - window):lo + window + 1] if wide else names
+        for c in thirds:
             if c in (a, b) or c in taken:
                 continue
             for cls in ((ProductScheme,) if a < b else ()) + (QuotientScheme,):

@@ -341,6 +341,9 @@ def _group_pieces(notation: str, slot: Slot, chosen: Fraction | None) -> list[tu
         letters = "".join(_spell(notation, int(chosen))) or "\u0660"
         return [(letters, "[" if slot.status is not Status.UNREAD else None)]
     marks: list[_Mark] = list(slot.form)
+    if chosen is not None and len(slot.values) == 1 and chosen != slot.values[0] \
+            and slot.status is Status.DOUBTFUL and chosen.denominator == 1 and chosen > 0:
+        return _alternative_pieces(notation, marks, chosen)
     if chosen is None or len(slot.values) == 1:
         return [_piece(m) for m in marks]
     known = [m for m in marks if m.status not in _OPEN and m.status is not Status.SUPERFLUOUS
@@ -358,6 +361,28 @@ def _group_pieces(notation: str, slot: Slot, chosen: Fraction | None) -> list[tu
     for o in sorted(restored, reverse=True):
         pieces.append((_spelling(notation)[restored[o]], bracket))
     return pieces
+
+
+def _alternative_pieces(notation: str, marks: list[_Mark], chosen: Fraction) -> list[tuple[str, str | None]]:
+    """A doubtful group given the value of a look-alike: its doubtful letters rewritten, still doubtful.
+
+    The letters read for certain stay; the doubtful ones give way to the
+    letters of what is left of *chosen*, each marked ``?``, so that the text
+    reads back to the value (``ي?`` given 2 is ``ب?``).
+    """
+    known = [m for m in marks if not m.doubtful and m.status not in _OPEN
+             and m.status is not Status.SUPERFLUOUS and len(m.options) == 1]
+    rest = int(chosen) - sum(m.options[0] for m in known)
+    if rest <= 0:
+        return [_piece(m) for m in marks]
+    letters = _spell(notation, rest)
+    pieces = [(_piece(m)) for m in marks if m in known or m.status is Status.SUPERFLUOUS]
+    doubtful = [(letter + "?", None) for letter in letters]
+    # Letters go from the largest value to the smallest, as the script writes them.
+    merged = sorted(pieces + doubtful,
+                    key=lambda p: -_value_of(notation, p[0].rstrip("?")) if p[0].rstrip("?")
+                    in letter_values(notation) else 0)
+    return merged
 
 
 def _value_of(notation: str, letter: str) -> int:

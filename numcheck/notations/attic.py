@@ -232,9 +232,17 @@ def _slots(text: str, signs: list[_Sign], notes: list[str], oddities: list[str])
             k += 1
             continue
         j = k
-        while j + 1 < len(signs) and signs[j + 1].value is None:
-            j += 1
-        run = signs[k:j + 1] if s.value is None else [s]
+        if s.value is None:
+            while j + 1 < len(signs) and signs[j + 1].value is None:
+                j += 1
+        else:
+            # Restored signs side by side are one run: together they must keep
+            # the number well formed (each on its own allowed '[ΗΗ𐅅]Δ' = 710,
+            # which read itself rejects).
+            while j + 1 < len(signs) and signs[j + 1].value is not None and \
+                    signs[j + 1].status is Status.RESTORED:
+                j += 1
+        run = signs[k:j + 1]
         slots.append(_run_slot(text, signs, counted, run, notes))
         k += len(run)
     return slots
@@ -242,15 +250,13 @@ def _slots(text: str, signs: list[_Sign], notes: list[str], oddities: list[str])
 
 def _run_slot(text, signs, counted, run, notes) -> Slot:
     """One slot for a restored sign or a run of lost ones: every sum that keeps the number well formed."""
-    before = [s.value for s in counted if s.end <= run[0].start and s.value is not None
-              and s.status is not Status.RESTORED]
-    after = [s.value for s in counted if s.start >= run[-1].end and s.value is not None
-             and s.status is not Status.RESTORED]
+    before = [s.value for s in counted if s.end <= run[0].start and s.value is not None]
+    after = [s.value for s in counted if s.start >= run[-1].end and s.value is not None]
     hi = before[-1] if before else None
     lo = after[0] if after else Fraction(0)
     choices = [v for v in _WHOLE_VALUES if (hi is None or v <= hi) and v >= lo]
     restored = run[0].status is Status.RESTORED
-    dots = 1 if restored else sum(1 for s in run if not s.gap)
+    dots = len(run) if restored else sum(1 for s in run if not s.gap)
     sizes = [dots]
     if any(s.gap for s in run):
         sizes = list(range(dots, dots + GAP_MAX_SIGNS + 1))
@@ -261,7 +267,7 @@ def _run_slot(text, signs, counted, run, notes) -> Slot:
         for combo in itertools.combinations_with_replacement(choices, n):
             if _well_formed(before + list(combo) + after):
                 sums.add(sum(combo, Fraction(0)))
-    editor = run[0].value if restored else None
+    editor = sum((s.value for s in run), Fraction(0)) if restored else None
     if editor is not None:
         sums.add(editor)
     if not sums:
@@ -269,7 +275,7 @@ def _run_slot(text, signs, counted, run, notes) -> Slot:
               "as many lost signs as the neighbours leave room for")
     status = Status.RESTORED if restored else (
         Status.LOST if any(s.status is Status.LOST for s in run) else Status.UNREAD)
-    pieces = ((_canon(editor), "[") if restored else
+    pieces = ((_canon(s.value), "[") if restored else
               ("[...]" if s.gap else ".", "gap" if s.gap else _BRACKET.get(s.status)) for s in run)
     start, end = _widen(text, run[0].start, run[-1].end)
     return Slot(values=tuple(sorted(sums)), place=0, status=status, text=text[start:end],

@@ -16,7 +16,8 @@ factors are documented in :mod:`numcheck.restore.scoring`.
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
+import warnings
+from dataclasses import dataclass, replace
 from functools import cached_property, lru_cache
 from fractions import Fraction
 
@@ -233,6 +234,55 @@ def _scales(expansion: Reading) -> list[int]:
     return [lead - top for lead in range(lo, hi + 1)]
 
 
+def _written_back(e: Reading, positions: tuple[Position, ...]) -> tuple[Position, ...]:
+    """Keep only the doubtful alternatives whose text reads back to their value.
+
+    A doubtful letter may be a look-alike of another (the confusion tables);
+    the candidate must then be written with that other letter.  Where the
+    notation cannot write the alternative in that place (``ϛ̣`` as 1/6, which
+    needs the fraction stroke), or writes it so that it reads otherwise, the
+    alternative is left out: every candidate's text reads back to its value.
+    """
+    from ..errors import NumcheckError
+    from ..notations import render_choice
+    from ..reader import read
+
+    base = [s.values[0] if len(s.values) == 1 or s.editor is None else s.editor for s in e.slots]
+    out = []
+    for pos in positions:
+        alts = [o for o in pos.options if o.kind == "doubtful-alternative"]
+        if not alts:
+            out.append(pos)
+            continue
+        kept = []
+        for o in pos.options:
+            if o.kind != "doubtful-alternative":
+                kept.append(o)
+                continue
+            choice = list(base)
+            choice[pos.slot_index] = o.value
+            try:
+                text = render_choice(e, tuple(choice))
+                with warnings.catch_warnings(record=True) as caught:
+                    warnings.simplefilter("always")
+                    again = read(text, notation=e.notation)
+                # It must read back cleanly too: no oddity the text itself has not.
+                ok = (again.count == 1 and again.value == e.value_of(tuple(choice))
+                      and len(caught) <= len(e.warnings))
+            except (NumcheckError, ValueError, IndexError, KeyError, TypeError):
+                ok = False
+            if ok:
+                kept.append(o)
+        if len(kept) != len(pos.options):
+            total = sum(o.prior for o in kept)
+            kept = [replace(o, prior=o.prior / total) for o in kept] if total > 0 else kept
+            if len(kept) == 1:
+                kept = [replace(kept[0], prior=1.0)]
+            pos = replace(pos, options=tuple(kept))
+        out.append(pos)
+    return tuple(out)
+
+
 def build_space(reading: Reading) -> Space:
     """The candidate space of *reading*: sub-spaces, positions, options, priors."""
     notes: list[str] = []
@@ -257,6 +307,7 @@ def build_space(reading: Reading) -> Space:
         additive = all(s.place == 0 for s in e.slots)
         positions = tuple(Position(i, s.place, _options(reading, s, s.place == lowest and not additive), s)
                           for i, s in enumerate(e.slots) if s.counted)
+        positions = _written_back(e, positions)
         scales = _scales(e) if reading.floating else [0]
         weights = [scoring.scale_weight(e, s) if reading.floating else 1.0 for s in scales]
         wsum = sum(weights)

@@ -75,6 +75,16 @@ def _group_text(group: list[tuple[Slot, Fraction | None]], chosen: bool) -> str:
 
 
 def _slot_pieces(slot: Slot, f, value: Fraction | None) -> list[tuple[str, str | None]]:
+    if value is not None and _other_than_read(slot, value) and f.role != "unitfrac":
+        # A doubtful letter given the value of a look-alike (a restoration's
+        # alternative): write that letter, still doubtful, so that the text
+        # reads back to the value.
+        n = value / f.mult
+        if n.denominator == 1 and n > 0:
+            letters = _split_letters(letter_text(int(n), f.upper))
+            if f.ascending:
+                letters = letters[::-1]
+            return [(ch + UNDERDOT, None) for ch in letters]
     if value is None or not _is_open(slot, f):
         return list(f.pieces)
     bracket = None if slot.status is Status.UNREAD else "["
@@ -88,6 +98,10 @@ def _slot_pieces(slot: Slot, f, value: Fraction | None) -> list[tuple[str, str |
     if f.ascending:
         letters = letters[::-1]
     return [(ch, bracket) for ch in letters]
+
+
+def _other_than_read(slot: Slot, value: Fraction) -> bool:
+    return slot.status is Status.DOUBTFUL and len(slot.values) == 1 and value != slot.values[0]
 
 
 def _is_open(slot: Slot, f) -> bool:
