@@ -37,6 +37,8 @@ import time
 import traceback
 import warnings
 from collections import Counter
+from decimal import Decimal
+from fractions import Fraction
 from pathlib import Path
 
 import pandas as pd
@@ -509,6 +511,224 @@ def call_cli(rng, tmp: Path):
         json.loads(out.getvalue())
 
 
+# -- hostile inputs (issues 21 and 22) --------------------------------------
+
+#: Markup that does not belong inside a <num>, and counts far too large.
+HOSTILE_MARKUP = ["<!-- c -->", "<?pi x?>", "<![CDATA[ι]]>", "<lb/>", "<note>x</note>",
+                  '<gap reason="lost" quantity="{big}" unit="character"/>',
+                  '<gap reason="lost" atLeast="{big}" atMost="{big}" unit="character"/>',
+                  '<supplied reason="lost">{seed}</supplied>', "<unclear>{seed}</unclear>",
+                  "<choice><sic>ι</sic><corr>{seed}</corr></choice>", "<surplus>ι</surplus>"]
+HUGE = ["99999999999999999999", "1000000000", "-1", "1e999999", "0x1F" + "F" * 40,
+        "1" + "0" * 5000, "61", "60", "1_000", "١٢", "nan", "inf", ""]
+
+
+def hostile_xml(rng) -> bytes:
+    """A <num> with hostile markup inside and huge attribute values on it."""
+    seed = rng.choice(SEEDS[rng.choice(["greek", "sexagesimal", "attic", "roman"])]).replace("<", "")
+    seed = seed.replace("&", "")
+    inner = []
+    for _ in range(rng.randrange(1, 5)):
+        if rng.random() < 0.5:
+            inner.append(seed[: rng.randrange(0, len(seed) + 1)])
+        inner.append(rng.choice(HOSTILE_MARKUP).format(big=rng.choice(HUGE), seed=seed))
+    attrs = "".join(f' {name}="{rng.choice(HUGE)}"' for name in
+                    rng.sample(["value", "atLeast", "atMost", "type"], rng.randrange(0, 3)))
+    nums = f"<num{attrs}>{''.join(inner)}</num>"
+    if rng.random() < 0.1:            # a long paste in one <num>
+        nums = "<num>" + "ι" * rng.choice([5000, 100_000]) + "</num>"
+    return (TEI_HEAD + nums * rng.randrange(1, 4) + TEI_TAIL).encode("utf-8")
+
+
+def call_hostile_xml(rng, tmp: Path):
+    from numcheck.tei import annotate_bytes
+    data = hostile_xml(rng)
+    LAST[0] = data[:300]
+    _json(annotate_bytes(data, alternatives=rng.choice([0, 2]))[1].to_dict())
+
+
+#: Values of the wrong Python type for every keyword of the front door.
+WRONG = [float("nan"), float("inf"), -1, 0, 2.5, True, None, [1], {"a": 1}, object(), b"12",
+         "3", "", Decimal("sNaN"), Decimal("NaN"), Fraction(1, 3), 10**30, -(10**30), (1, 2)]
+
+
+def call_wrong_types(rng):
+    """The front door with arguments of the wrong type: only a NumcheckError may escape."""
+    from numcheck.tei import annotate_bytes
+    pick = lambda: rng.choice(WRONG)  # noqa: E731
+    which = rng.randrange(7)
+    LAST[0] = which
+    if which == 0:
+        args = dict(notation=pick()) if rng.random() < 0.5 else dict(unit=pick())
+        LAST[0] = ("read", args)
+        numcheck.read(rng.choice(["12", "1,2;3", pick()]), **args).to_dict()
+    elif which == 1:
+        args = {rng.choice(["top", "expect", "context", "notation", "unit", "use_catalogue"]): pick()}
+        LAST[0] = ("restore", args)
+        numcheck.restore("1,2[x]", **args).to_dict()
+    elif which == 2:
+        args = {rng.choice(["top", "notation", "unit"]): pick()}
+        LAST[0] = ("identify", args)
+        numcheck.identify("1,2[x]", **args).to_dict()
+    elif which == 3:
+        args = (pick(), rng.choice(["days", "tithis", pick()]))
+        LAST[0] = ("relate", args)
+        numcheck.relate(*args).to_dict()
+    elif which == 4:
+        args = {rng.choice(["alternatives", "fix", "notation"]): pick()}
+        LAST[0] = ("annotate", args)
+        annotate_bytes(TEI_HEAD.encode() + b"<num>\xce\xb9[.]</num>" + TEI_TAIL.encode(),
+                       **args)[1].to_dict()
+    elif which == 5:
+        args = (pick(), pick())
+        LAST[0] = ("interval", args)
+        numcheck.interval(*args).to_dict()
+    else:
+        args = {rng.choice(["notation", "relation", "columns"]): pick()}
+        LAST[0] = ("audit", args)
+        numcheck.audit(pd.DataFrame({"A": ["1", "2", "3"], "B": ["2", "4", "6"]}, dtype=object),
+                       **args).to_dict()
+
+
+def grammar_mutation(rng) -> tuple[str, str | None]:
+    """A valid number with one of its grammar's pieces repeated, dropped or nested (not random bytes)."""
+    notation = rng.choice(NOTATIONS)
+    text = rng.choice(SEEDS[notation])
+    op = rng.randrange(5)
+    if op == 0:          # many places or terms
+        sep = "," if notation in ("sexagesimal", "cuneiform") else " "
+        text = sep.join([text] * rng.choice([2, 10, 70, 1000]))
+    elif op == 1:        # deep brackets
+        k = rng.choice([2, 50, 1000])
+        text = "[" * k + text + "]" * k
+    elif op == 2:        # damage marks on every character
+        mark = rng.choice(["?", "\u0323", "[x]", "[.]"])
+        text = "".join(ch + mark for ch in text)
+    elif op == 3:        # a digit of many digits
+        text = text + rng.choice(["9" * 7, "0" * 5000, "1e99999"])
+    else:
+        text = mutate(rng, text, rng.randrange(1, 4))
+    return text[: 20_000], rng.choice([None, notation])
+
+
+def call_grammar(rng):
+    text, notation = grammar_mutation(rng)
+    LAST[0] = (text[:200], notation)
+    entry = rng.choice([numcheck.read, numcheck.identify, numcheck.restore])
+    _json(entry(text, notation=notation).to_dict())
+
+
+def call_relation(rng):
+    """Stated relations of the audit: odd moduli, deep parentheses, many terms."""
+    op = rng.randrange(4)
+    if op == 0:
+        rel = "B = A mod " + rng.choice(["x", "1e3", "0", "-5", "360", "1/0", "", "nan"])
+    elif op == 1:
+        k = rng.choice([10, 1000])
+        rel = "B = " + "(" * k + "A" + ")" * k
+    elif op == 2:
+        rel = "B = " + " + ".join(["A"] * rng.choice([10, 1000]))
+    else:
+        rel = mutate(rng, "B = prev(B) + A mod 360", rng.randrange(1, 4))
+    LAST[0] = rel
+    frame = pd.DataFrame({"A": ["1", "2", "3"], "B": ["1", "3", "6"]}, dtype=object)
+    numcheck.audit(frame, relation=rel).to_dict()
+
+
+def hostile_file(rng, tmp: Path) -> Path:
+    """A table or XML file that is not what it says: binary, UTF-16, huge cells, a FIFO, a device."""
+    kind = rng.randrange(8)
+    suffix = rng.choice([".tsv", ".csv", ".xml"])
+    path = tmp / f"hostile{suffix}"
+    if path.exists() or path.is_symlink():
+        path.unlink()
+    if kind == 0:
+        path.write_bytes(bytes(rng.randrange(256) for _ in range(rng.randrange(1, 2000))))
+    elif kind == 1:        # UTF-16 with a lone surrogate
+        path.write_bytes(b"\xff\xfe" + "A\tB\n1\t2\n".encode("utf-16-le") + b"\x00\xd8" +
+                         "\t3\n".encode("utf-16-le"))
+    elif kind == 2:        # a quoted CSV cell past the csv module's field limit
+        path.write_text('A,B\n"' + "1" * 140_000 + '",2\n3,4\n', encoding="utf-8")
+    elif kind == 3:
+        os.mkfifo(path)
+    elif kind == 4:
+        return Path(rng.choice(["/dev/zero", "/dev/urandom", "/dev/null"]))
+    elif kind == 5:        # a wide table
+        n = rng.choice([30, 300])
+        path.write_text("\t".join(f"c{i}" for i in range(n)) + "\n" +
+                        "\n".join("\t".join(str(j + j * (r + 1)) for j in range(n)) for r in range(3))
+                        + "\n", encoding="utf-8")
+    elif kind == 6:        # a link to a folder
+        path.symlink_to(tmp)
+    else:
+        path.write_bytes(hostile_xml(rng))
+    return path
+
+
+def call_hostile_file(rng, tmp: Path):
+    path = hostile_file(rng, tmp)
+    LAST[0] = str(path)
+    if path.suffix == ".xml" and rng.random() < 0.5:
+        _json(numcheck.annotate(path, None).to_dict())
+    else:
+        _json(numcheck.audit(path).to_dict())
+
+
+def call_streams(rng, tmp: Path):
+    """The command line writing to a full disk, a closed stdout, a narrow encoding (subprocesses)."""
+    import subprocess
+    import sys as _sys
+
+    text = rng.choice(["κθ λα ν η κ", "1,49,45;20", "Χ𐅅ΗΔΔΙΙ", "شسه"])
+    argv = [_sys.executable, "-m", "numcheck.cli", rng.choice(["read", "identify"]), text]
+    if rng.random() < 0.6:
+        argv.append("--json")
+    env = dict(os.environ)
+    how = rng.randrange(4)
+    stdout = subprocess.PIPE
+    if how == 0:
+        stdout = open("/dev/full", "wb")
+    elif how == 1:
+        env["PYTHONIOENCODING"] = rng.choice(["cp1252", "ascii", "latin-1"])
+    elif how == 2:
+        stdout = subprocess.DEVNULL
+    LAST[0] = (argv[3:], how)
+    try:
+        done = subprocess.run(argv, stdout=stdout, stderr=subprocess.PIPE, env=env, timeout=60,
+                              close_fds=True, **({"pass_fds": ()} if how != 3 else {}))
+    finally:
+        if how == 0:
+            stdout.close()
+    if done.returncode not in (0, 2) or b"Traceback" in done.stderr:
+        raise AssertionError(f"exit {done.returncode}: {done.stderr[-300:]!r}")
+
+
+def call_nested_output(rng, tmp: Path):
+    """Folder runs whose output is, holds or lies in the input: never an input written."""
+    import hashlib
+    import shutil
+
+    from numcheck.cli import main
+    root = tmp / "nest"
+    if root.exists():
+        shutil.rmtree(root)
+    (root / "ed" / "sub").mkdir(parents=True)
+    doc = TEI_HEAD.encode() + "<num>ιβ</num>".encode() + TEI_TAIL.encode()
+    for rel in ("ed/a.xml", "ed/sub/a.xml", "ed/sub/b.tsv"):
+        (root / rel).write_bytes(doc if rel.endswith(".xml") else b"A\n1\n2\n3\n")
+    before = {p: hashlib.sha256(p.read_bytes()).hexdigest() for p in root.rglob("*") if p.is_file()}
+    inp, out = rng.choice([("ed", "ed/sub"), ("ed/sub", "ed"), ("ed", "ed"), ("ed", "ed/./sub/.."),
+                           ("ed", "ed/new"), ("ed/sub", "ed/sub/x/y")])
+    cmd = rng.choice(["annotate", "audit"])
+    argv = [cmd, str(root / inp), "-o" if cmd == "annotate" else "--report", str(root / out)]
+    LAST[0] = argv
+    with contextlib.redirect_stdout(io.StringIO()), contextlib.redirect_stderr(io.StringIO()):
+        code = main(argv + ["--json"])
+    after = {p: hashlib.sha256(p.read_bytes()).hexdigest() for p in before}
+    if after != before or code != 2:
+        raise AssertionError(f"exit {code}; inputs changed: {after != before}")
+
+
 ENTRY_POINTS = {
     "read": lambda rng, tmp: call_read(rng),
     "identify": lambda rng, tmp: call_identify(rng),
@@ -520,10 +740,19 @@ ENTRY_POINTS = {
     "audit-file": call_audit_file,
     "annotate": call_annotate,
     "cli": call_cli,
+    "hostile-xml": call_hostile_xml,
+    "wrong-types": lambda rng, tmp: call_wrong_types(rng),
+    "grammar": lambda rng, tmp: call_grammar(rng),
+    "relation": lambda rng, tmp: call_relation(rng),
+    "hostile-file": call_hostile_file,
+    "streams": call_streams,
+    "nested-output": call_nested_output,
 }
 # Share of the inputs each entry point gets (the cheap ones more).
 WEIGHTS = {"read": 30, "identify": 10, "restore": 10, "relate": 6, "interval": 6, "audit-frame": 8,
-           "audit-scheme": 6, "audit-file": 8, "annotate": 12, "cli": 9}
+           "audit-scheme": 6, "audit-file": 8, "annotate": 12, "cli": 9, "hostile-xml": 6,
+           "wrong-types": 6, "grammar": 8, "relation": 3, "hostile-file": 3, "streams": 0.05,
+           "nested-output": 0.5}
 
 
 class Hang(Exception):
@@ -531,7 +760,7 @@ class Hang(Exception):
 
 
 def _alarm(signum, frame):
-    raise Hang(f"still running after the time allowed ({LAST[0]!r})")
+    raise Hang(f"still running after the time allowed ({repr(LAST[0])[:400]})")
 
 
 def _where(err: BaseException) -> str:
@@ -574,7 +803,7 @@ def run(n: int, seed: int, only: list[str], slow: float, timeout: int = 120) -> 
                 if key not in crashes:
                     crashes[key] = (case_seed, f"{type(err).__name__}: {str(err)[:300]}")
                     print(f"CRASH {name} seed={case_seed} at {key[2]}: {crashes[key][1]}\n"
-                          f"      input: {LAST[0]!r}", flush=True)
+                          f"      input: {repr(LAST[0])[:400]}", flush=True)
             finally:
                 if hasattr(signal, "SIGALRM"):
                     signal.alarm(0)
@@ -583,7 +812,8 @@ def run(n: int, seed: int, only: list[str], slow: float, timeout: int = 120) -> 
             longest[name] = max(longest.get(name, 0.0), took)
             if took > slow:
                 slowest.append((took, name, case_seed))
-                print(f"SLOW {name} seed={case_seed}: {took:.1f} s; input: {LAST[0]!r}", flush=True)
+                print(f"SLOW {name} seed={case_seed}: {took:.1f} s; input: {repr(LAST[0])[:400]}",
+                      flush=True)
             if (i + 1) % 5000 == 0:
                 print(f"... {i + 1} inputs, {len(crashes)} distinct crashes, "
                       f"{time.perf_counter() - start:.0f} s", flush=True)

@@ -67,3 +67,5 @@ RELATE_MAX_SPAN = 10**18
 AUDIT_CROSS_COLUMNS = 20
 #: ... and in a wider table only among columns at most this many apart.
 AUDIT_CROSS_WINDOW = 6
+#: Most names, numbers and signs in a relation stated to ``audit`` (this bounds its nesting too).
+MAX_RELATION_TOKENS = 200

@@ -13,13 +13,17 @@ from __future__ import annotations
 import re
 from fractions import Fraction
 
-from ..errors import NumcheckSyntaxError, UnknownNameError
+from .. import limits
+from ..errors import LimitError, NumcheckError, NumcheckSyntaxError, UnknownNameError
 from .schemes import Scheme
 
 __all__ = ["RelationScheme", "parse_relation"]
 
 _TOKEN = re.compile(r"\s*(?:(?P<num>\d+(?:,\d+)*(?:;\d+(?:,\d+)*)?)|(?P<name>[A-Za-z_][\w']*)"
                     r"|(?P<op>[-+*/()=]))")
+
+
+_MODULUS = re.compile(r"\d{1,12}(?:,\d{1,2})*(?:;\d{1,2}(?:,\d{1,2})*)?")
 
 
 def _number(text: str) -> Fraction:
@@ -34,11 +38,32 @@ def _number(text: str) -> Fraction:
 
 
 def parse_relation(text: str, columns: list[str]):
-    """Parse a relation into (target column, expression tree, modulus or None)."""
+    """Parse a relation into (target column, expression tree, modulus or None).
+
+    The one door of a stated relation: its type, its length, its modulus and
+    the number of its pieces (``limits.MAX_RELATION_TOKENS``, which also
+    bounds the nesting of parentheses) are checked here, before anything is
+    built from it.
+    """
+    if not isinstance(text, str):
+        raise NumcheckError(f"A relation is a text like 'C = A + B', not {type(text).__name__}.")
+    if len(text) > limits.MAX_TEXT_LENGTH:
+        raise LimitError("length of the relation", f"{len(text):,} characters",
+                         f"{limits.MAX_TEXT_LENGTH:,}", "Give a shorter relation, or set "
+                         "numcheck.limits.MAX_TEXT_LENGTH higher.")
     body, modulus = text, None
-    m = re.search(r"\bmod\s+(\S+)\s*$", text)
+    m = re.search(r"\bmod\s+(\S*)\s*$", text)
     if m:
-        body, modulus = text[:m.start()], _number(m.group(1))
+        body, raw = text[:m.start()], m.group(1)
+        if not _MODULUS.fullmatch(raw):
+            raise NumcheckSyntaxError(f"The modulus of the relation {text!r} is {raw!r}, not a "
+                                      "number", text, m.start(1),
+                                      expected="a positive whole or sexagesimal number, e.g. "
+                                               "'mod 360' or 'mod 6,0'")
+        modulus = _number(raw)
+        if modulus <= 0:
+            raise NumcheckSyntaxError(f"The modulus of the relation {text!r} is {raw!r}", text,
+                                      m.start(1), expected="a modulus greater than 0")
     tokens, pos = [], 0
     while pos < len(body):
         if body[pos:].strip() == "":
@@ -50,6 +75,11 @@ def parse_relation(text: str, columns: list[str]):
         kind = t.lastgroup
         tokens.append((kind, t.group(kind), t.start(kind)))
         pos = t.end()
+        if len(tokens) > limits.MAX_RELATION_TOKENS:
+            raise LimitError("number of names, numbers and signs in the relation",
+                             f"over {limits.MAX_RELATION_TOKENS}", limits.MAX_RELATION_TOKENS,
+                             "Write a shorter relation, or set "
+                             "numcheck.limits.MAX_RELATION_TOKENS higher.")
     if len(tokens) < 3 or tokens[0][0] != "name" or tokens[1][1] != "=":
         raise NumcheckSyntaxError(f"A relation names a column, then '=', then an expression: {text!r}",
                                   text, 0, expected="e.g. 'C = A + B'")

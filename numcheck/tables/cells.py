@@ -144,7 +144,12 @@ def build_table(header, rows, *, notation, columns, source) -> Table:
     # One normal form (NFC) for every text, as numcheck.read uses: the same
     # table typed with decomposed accents gives the same audit, word for word.
     header = [_nfc(h) for h in header]
-    rows = [[_nfc(c) for c in r] for r in rows]
+    # In place: a copy of every row doubled the memory of a 10^6-line table.
+    if not isinstance(rows, list):
+        rows = list(rows)
+    for r in rows:
+        if not all(c.isascii() for c in r):
+            r[:] = [_nfc(c) for c in r]
     if columns is not None:
         try:
             columns = _nfc(columns) if isinstance(columns, str) else [_nfc(str(c)) for c in columns]
@@ -181,12 +186,18 @@ def build_table(header, rows, *, notation, columns, source) -> Table:
             if name not in header:
                 raise UnknownNameError("column", name, header)
         wanted = [h for h in header if h in columns]
+    nrows = len(rows)
+    # Column by column, each row list given up once read: the texts stay (the
+    # cells keep them), the row lists do not.
+    by_column = {name: [r[header.index(name)] for r in rows] for name in wanted}
+    rows.clear()
     cols: dict[str, Column] = {}
     for name in wanted:
-        j = header.index(name)
-        cells = [_cell(i, name, r[j], notation, source) for i, r in enumerate(rows, start=1)]
+        texts = by_column.pop(name)
+        cells = [_cell(i, name, text, notation, source) for i, text in enumerate(texts, start=1)]
+        del texts
         cols[name] = _column(name, cells, source)
-    return Table(columns=cols, nrows=len(rows), source=source, header=list(header))
+    return Table(columns=cols, nrows=nrows, source=source, header=list(header))
 
 
 def _looks_numeric(name: str) -> bool:
@@ -246,7 +257,10 @@ def _fast(row, column, number, notation, text) -> Cell | None:
     first = True
     for p in whole.split(","):
         d = int(p)
-        if d > 59 and not (first and "," not in whole and frac):
+        # A lone whole place holds any number (365;14,48, and the plain
+        # integers of a line-number column); a place after a comma, 0 to 59.
+        lone = first and "," not in whole and (frac or notation == "sexagesimal")
+        if d > 59 and not lone:
             return None  # let the reader give its own message (or another notation)
         total = total * 60 + d
         first = False

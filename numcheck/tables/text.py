@@ -59,7 +59,14 @@ def split_text(text: str, *, suffix: str = "") -> tuple[list[str], list[list[str
     if "\t" in first:
         records = [ln.split("\t") for ln in lines]
     elif suffix == ".csv" or ("," in first and "  " not in first.strip() and suffix != ".tsv"):
-        records = list(csv.reader(io.StringIO("\n".join(lines)), skipinitialspace=True))
+        try:
+            records = list(csv.reader(io.StringIO("\n".join(lines)), skipinitialspace=True))
+        except csv.Error as err:
+            # The csv module stops at a field over 131,072 characters; a cell
+            # that long is over MAX_TEXT_LENGTH anyway.
+            raise NumcheckError(f"The CSV table cannot be read: {err} (a cell holds far more "
+                                f"than a number; numbers are at most {limits.MAX_TEXT_LENGTH:,} "
+                                "characters long). Check the quotes of the file.") from None
     else:
         splitter = re.compile(r"\s{2,}") if re.search(r"\S\s{2,}\S", first) else re.compile(r"\s+")
         records = [splitter.split(ln.strip()) for ln in lines]

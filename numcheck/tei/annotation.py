@@ -150,8 +150,11 @@ def annotate_bytes(data: bytes, name: str | os.PathLike = "<input>", *, alternat
         text = repr(alternatives)
         raise NumcheckError(f"--alternatives must be a whole number, 0 or more, not "
                             f"{text if len(text) <= 60 else text[:59] + '…'}.")
-    if fix not in (True, False, 0, 1):
+    if not (isinstance(fix, bool) or (type(fix) is int and fix in (0, 1))):
         raise NumcheckError(f"fix must be True or False, not {type(fix).__name__}.")
+    if notation is not None:
+        from ..notations import notation_module
+        notation_module(notation)        # an unknown name (or not a name) fails here
     if isinstance(data, str):
         data = data.encode("utf-8")
     if not isinstance(data, (bytes, bytearray, memoryview)):
@@ -241,7 +244,7 @@ def _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of, f
             res.alternatives = _table_alternatives(from_table, alternatives, res.unit_fraction)
         else:
             res.alternatives = _alternatives(restore_fn, reading, alternatives, res.unit_fraction)
-        old = [c for c in el if etree.QName(c).localname == "certainty"
+        old = [c for c in el if isinstance(c.tag, str) and etree.QName(c).localname == "certainty"
                and c.get("locus") == "value" and c.get("match") == "../@value"]
         edit.drop_children.extend(index_of[id(c)] for c in old)
         for alt in res.alternatives:
