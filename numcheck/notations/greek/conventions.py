@@ -53,7 +53,7 @@ def lone_letter(item: Item, group_text: str, convention: str, places: bool,
     if item.thousands or item.value is None:
         return None
     value = int(item.value)
-    if value == 70 and item.char == "ο":
+    if value == 70 and item.char in "οΟ":
         if convention == DOCUMENTARY:
             return None
         if convention == ASTRONOMICAL:
