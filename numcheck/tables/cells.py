@@ -26,6 +26,7 @@ from .. import limits
 from ..reader import read
 from ..reading import Reading
 from ..units import ZODIAC, zodiac_index
+from .settle import settle_column
 
 __all__ = ["Cell", "Column", "Table", "build_table", "check_cells", "ZODIAC", "sign_index"]
 
@@ -127,6 +128,9 @@ class Table:
     nrows: int
     source: str = "<table>"
     header: list[str] = field(default_factory=list)
+    #: How cells whose text allows two readings were decided by their column
+    #: (:mod:`numcheck.tables.settle`).
+    notes: list[str] = field(default_factory=list)
 
 
 def _nfc(text: str) -> str:
@@ -182,11 +186,22 @@ def build_table(header, rows, *, notation, columns, source) -> Table:
                 raise UnknownNameError("column", name, header)
         wanted = [h for h in header if h in columns]
     cols: dict[str, Column] = {}
+    notes: list[str] = []
     for name in wanted:
         j = header.index(name)
         cells = [_cell(i, name, r[j], notation, source) for i, r in enumerate(rows, start=1)]
         cols[name] = _column(name, cells, source)
-    return Table(columns=cols, nrows=len(rows), source=source, header=list(header))
+        notes += settle_column(cols[name], source, _settled_cell)
+    return Table(columns=cols, nrows=len(rows), source=source, header=list(header), notes=notes)
+
+
+def _settled_cell(cell: Cell, reading: Reading) -> Cell:
+    """*cell* read again from a Reading its column narrowed to one value."""
+    new = _from_reading(cell.row, cell.column, cell.text, reading)
+    new.sign_name = cell.sign_name
+    if cell.sign_name is not None and new.exact is not None:
+        new.exact += 30 * sign_index(cell.sign_name)
+    return new
 
 
 def _looks_numeric(name: str) -> bool:
