@@ -180,6 +180,7 @@ def parse(text: str, *, ascending: bool = False, notation: str = NAME, conventio
     upper = False
     kinds = [_group_kind(index, items, g) for index, (items, g) in enumerate(groups)]
     places = "place" in kinds
+    alone = len(kinds) == 1
     for index, (items, tree_group) in enumerate(groups):
         gkind = kinds[index]
         if gkind == "unread":
@@ -201,7 +202,7 @@ def parse(text: str, *, ascending: bool = False, notation: str = NAME, conventio
                       "the sexagesimal places before the unit fractions")
             place -= 1
         built = group_slots(text, index, items, tree_group, gkind, place if gkind == "place" else 0,
-                            ascending, notes, upper=upper, convention=convention, places=places)
+                            ascending, notes, upper=upper, convention=convention, places=places, alone=alone)
         upper = next((s.form[0].upper for s in built if s.form), upper)
         if gkind == "place" and len(built) == 1 and built[0].gap is not None:
             place -= built[0].gap[0] - 1

@@ -50,14 +50,15 @@ def letter_text(value: int, upper: bool = False) -> str:
 
 def group_slots(text: str, index: int, items: list[Item], group: Tree, gkind: str, place: int,
                 ascending: bool, notes: list[str], upper: bool = False, convention: str = GENERIC,
-                places: bool = False) -> list[Slot]:
+                places: bool = False, alone: bool = False) -> list[Slot]:
     """The slots of one group (see the module docstring).
 
     *upper* is the case of the number so far: a group with no letter read
     (``[.]``) writes its restorations in that case.  *convention* is one of
     :data:`CONVENTIONS` (how a lone ``ο`` and a lone capital are read, see
     :mod:`numcheck.notations.greek.conventions`); *places* says that the
-    number has sexagesimal places after its whole part.
+    number has sexagesimal places after its whole part, *alone* that the
+    whole part is all there is.
     """
     keraia = any(t.type == "KERAIA" for t in group.children[1:])   # a leading one is ͵ ('Αωϙγ)
     letters = [i for i in items if i.kind == "letter"]
@@ -97,7 +98,7 @@ def group_slots(text: str, index: int, items: list[Item], group: Tree, gkind: st
                      span=(only.start, only.end),
                      form=(Form(role="zero", pieces=((ZERO, _BRACKET.get(only.status)),), **base),))]
     if gkind == "whole" and only is not None and only.kind == "letter" and not keraia:
-        special = lone_letter(only, group_text, convention, places, notes)
+        special = lone_letter(only, group_text, convention, places, notes, alone=alone)
         if special is not None:
             values, role = special
             piece = only.char + (UNDERDOT if only.doubtful else "")
