@@ -21,8 +21,6 @@ import unicodedata
 from dataclasses import dataclass, replace
 from fractions import Fraction
 
-from lark.exceptions import UnexpectedInput
-
 from .. import units
 from ..errors import NumcheckRangeError, NumcheckSyntaxError, UnknownNameError
 from .grammars import parser_for
@@ -55,6 +53,7 @@ _MARK_UNITS = {"°": "degrees", "′": "arcminutes", "″": "arcseconds"}
 _PRIME_RE = re.compile(r"(?<=[0-9\]?xX])([′″])")
 _FRACTION_RE = re.compile(r"^(\d+)/(\d+)$")
 _DECIMAL_RE = re.compile(r"^\d+$")
+_NUMERALS_ONLY = re.compile(r"[-0-9,;]*")
 
 
 @dataclass(frozen=True)
@@ -127,6 +126,10 @@ def _zodiac(word: _Word) -> int | None:
 
 def has_units(text: str) -> bool:
     """Whether *text* has a unit word, a degree mark or a zodiacal sign (a quantity)."""
+    if _NUMERALS_ONLY.fullmatch(text):
+        return False      # digits and separators alone: no unit word, no mark (and no grammar)
+    from lark.exceptions import UnexpectedInput
+
     try:
         words = _words(text)
     except UnexpectedInput:
@@ -170,6 +173,8 @@ def parse(text: str, *, notation: str | None = None) -> Reading:
     if not text.strip():
         raise NumcheckSyntaxError("There is no quantity to read: the input is empty", text, 0,
                                   expected="a number and a unit, such as 6585 1/3 days")
+    from lark.exceptions import UnexpectedInput
+
     try:
         words = _words(text)
     except UnexpectedInput as err:
