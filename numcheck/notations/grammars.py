@@ -18,16 +18,16 @@ grammar is needed (plain numbers are read without one).
 from __future__ import annotations
 
 import functools
-import hashlib
 import os
-from importlib import resources
-from pathlib import Path
 
 __all__ = ["grammar_dir", "parser_for", "cache_dir", "build_parser"]
 
 
 def grammar_dir() -> Path:
     """The folder holding the ``.lark`` files (installed or in a checkout)."""
+    from importlib import resources
+    from pathlib import Path
+
     try:
         # numcheck.grammars is a namespace package once installed: files() gives
         # a MultiplexedPath, whose str() is not a path; a file inside it is.
@@ -44,6 +44,8 @@ def grammar_dir() -> Path:
 
 def cache_dir() -> Path | None:
     """The folder of compiled parsers, or None when the cache is turned off."""
+    from pathlib import Path
+
     chosen = os.environ.get("NUMCHECK_CACHE")
     if chosen is not None:
         return Path(chosen) if chosen.strip() else None
@@ -62,6 +64,8 @@ def build_parser(name: str):
 
 
 def _cache_key(name: str) -> str:
+    import hashlib
+
     import lark
 
     from .. import __version__
