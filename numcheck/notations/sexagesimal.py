@@ -138,6 +138,7 @@ def _plain(text: str, *, floating: bool, notation: str) -> Reading | None:
     lone_whole = len(whole) == 1 and (bool(has_semi) or not floating)
     slots: list[Slot] = []
     start = offset
+    exponent = len(whole) - 1          # as assign_places counts: units place 0, fractions -1, -2 ...
     for k, place in enumerate(whole + fraction):
         value = int(place)
         capped = not (lone_whole and k == 0)
@@ -145,10 +146,10 @@ def _plain(text: str, *, floating: bool, notation: str) -> Reading | None:
             return None
         form = tuple(_Pos(ch, Status.READ, False, start + i) for i, ch in enumerate(place))
         slots.append(Slot(values=(Fraction(value),), status=Status.READ, text=place,
-                          span=(start, start + len(place)), form=form))
+                          span=(start, start + len(place)), form=form, place=exponent))
         start += len(place) + 1          # and the ',' or ';' after it
-    placed = assign_places(slots[:len(whole)], slots[len(whole):])
-    return Reading(text=text, notation=notation, slots=tuple(placed), base=60, sign=sign,
+        exponent -= 1
+    return Reading(text=text, notation=notation, slots=tuple(slots), base=60, sign=sign,
                    floating=floating and not has_semi)
 
 
