@@ -22,7 +22,7 @@ from dataclasses import dataclass, replace
 from fractions import Fraction
 
 from .. import units
-from ..errors import NumcheckRangeError, NumcheckSyntaxError, UnknownNameError
+from ..errors import NumcheckRangeError, NumcheckSyntaxError
 from .grammars import parser_for
 from ..reading import Reading, Slot, sexagesimal_text
 
@@ -108,26 +108,22 @@ def _unit_name(words: list[_Word], i: int) -> tuple[str, int] | None:
         # Single letters (d, h, s) are left to the numerals: d is 500 in Roman.
         if len(name) < 2:
             continue
-        try:
-            return units.canonical_unit(name), n
-        except UnknownNameError:
-            continue
+        found = units.find_unit(name)
+        if found is not None:
+            return found, n
     return None
 
 
 def _zodiac(word: _Word) -> int | None:
     if word.kind != "word":
         return None
-    try:
-        return units.zodiac_index(word.text)
-    except UnknownNameError:
-        return None
+    return units.find_zodiac(word.text)
 
 
 def has_units(text: str) -> bool:
     """Whether *text* has a unit word, a degree mark or a zodiacal sign (a quantity)."""
-    if _NUMERALS_ONLY.fullmatch(text):
-        return False      # digits and separators alone: no unit word, no mark (and no grammar)
+    if _NUMERALS_ONLY.fullmatch(text) or not units.may_name_a_unit(text):
+        return False      # no word can be a unit: the grammar is not needed to say so
     from lark.exceptions import UnexpectedInput
 
     try:
