@@ -24,12 +24,11 @@ from __future__ import annotations
 from dataclasses import replace
 from fractions import Fraction
 
+from .. import limits
 from ..reading import Reading, sexagesimal_text
 
-__all__ = ["settle_column", "MAX_READINGS"]
+__all__ = ["settle_column"]
 
-#: Cells allowing more readings than this are left to the audit's restoration.
-MAX_READINGS = 16
 _DECISIVE = 4
 
 
@@ -46,7 +45,7 @@ def settle_column(column, source: str, make_cell) -> list[str]:
     cells = column.cells
     open_cells = [k for k, c in enumerate(cells)
                   if c.value is None and c.reading is not None and c.reading.ambiguous
-                  and not c.reading.damaged and c.reading.count <= MAX_READINGS]
+                  and not c.reading.damaged and c.reading.count <= limits.SETTLE_MAX_READINGS]
     if not open_cells:
         return []
     known = [(k, c.value) for k, c in enumerate(cells) if c.value is not None]
