@@ -113,3 +113,20 @@ def test_the_real_table_of_phases_reads_its_zeros():
     # Almagest XIII.10 as the First1KGreek text prints it: 'γ ο' = 3;0, 'ο λ' = 0;30, 'ο κδ' = 0;24.
     assert ven[0] == 3 and ven[7] == F(1, 2) and ven[8] == F(24, 60)
     assert tab.columns["Mer_ms"].values[4] == 10
+
+
+def test_a_linear_greek_column_audits_clean_with_its_zeros():
+    # A mean-motion column, day by day, at Ptolemy's solar rate cut to three places
+    # (0;59,8,17 a day, Almagest III.1): its first cell 'ο νθ η ιζ' is 0 or 70 alone,
+    # and 0 by its neighbours; zeros inside the places are typed as ο too.
+    step = F(59, 60) + F(8, 3600) + F(17, 216000)
+    values = [k * step for k in range(1, 31)]
+    df = pd.DataFrame({"day": [letter_text(k) for k in range(1, 31)],
+                       "sun": [_greek(v, 3) for v in values]})
+    assert df["sun"][0] == "ο νθ η ιζ"
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", NumcheckWarning)
+        res = audit(df, notation="greek")
+    assert res.table.columns["sun"].values == values
+    kinds = {s.column: s.kind for s in res.schemes}
+    assert kinds.get("sun") == "linear" and res.flags == []
