@@ -71,7 +71,12 @@ NOISY = [
     ("ιε.", 15, "full stop", "a trailing full stop"),
     ("κθ λα.", F(1771, 60), "full stop", "a full stop after a sexagesimal place"),
     ("δʹ.", 4, "full stop", "a full stop after the numeral sign"),
+    ("κθ ° λ", F(3481, 120), "U+00B0", "the zero typed as a degree sign (a small circle)"),
 ]
+
+
+def test_a_degree_sign_after_a_number_is_still_a_unit():
+    assert read("12;30°").unit is not None and read("12;30°").value == F(25, 2)
 
 
 @pytest.mark.parametrize("text, value, named, note", NOISY)
