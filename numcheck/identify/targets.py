@@ -26,7 +26,7 @@ from .. import catalogue
 from .. import limits
 from ..errors import NumcheckError
 from ..catalogue.statements import side_unit_key
-from ..units import UNITS, canonical_unit, convert
+from ..units import UNITS, canonical_unit, convert, find_unit
 
 __all__ = ["Item", "Table", "Target", "number_text", "table", "catalogue_targets", "candidates", "simple_factors",
            "factor_complexity", "factor_weight",
@@ -111,10 +111,7 @@ def _unit_key(unit: str) -> str | None:
     key = side_unit_key(head)
     if key is not None:
         return key
-    try:
-        return canonical_unit(head)
-    except NumcheckError:
-        return None
+    return find_unit(head)
 
 
 def _items_of(entry: catalogue.Entry) -> list[Item]:
