@@ -69,3 +69,6 @@ AUDIT_CROSS_COLUMNS = 20
 AUDIT_CROSS_WINDOW = 6
 #: Most names, numbers and signs in a relation stated to ``audit`` (this bounds its nesting too).
 MAX_RELATION_TOKENS = 200
+#: A table cell whose text allows more readings than this (a Greek 'ο' as 0 or 70, times
+#: other open places) is not decided by its column; the audit restores it from the scheme.
+SETTLE_MAX_READINGS = 16
