@@ -188,6 +188,15 @@ def sweep_stale_temporaries(folder: str | os.PathLike, name: str | None = None) 
     return removed
 
 
+def _encode(text: str, encoding: str) -> bytes:
+    """*text* in *encoding*; a file name that was not UTF-8 (lone surrogates) shows U+FFFD."""
+    try:
+        return text.encode(encoding)
+    except UnicodeEncodeError:
+        text = text.encode("utf-8", "surrogateescape").decode("utf-8", "replace")
+        return text.encode(encoding, "replace")
+
+
 def write_atomic(path: str | os.PathLike, data: bytes | str, *, encoding: str = "utf-8") -> Path:
     """Write *data* to *path* through a temporary file in the same folder and a rename.
 
@@ -206,7 +215,7 @@ def write_atomic(path: str | os.PathLike, data: bytes | str, *, encoding: str = 
     if target.exists() and not target.is_file():
         raise OutputError(f"Cannot write {str(target)!r}: it is not a regular file (a device or "
                           "a pipe); give a file path.")
-    payload = data.encode(encoding) if isinstance(data, str) else bytes(data)
+    payload = _encode(data, encoding) if isinstance(data, str) else bytes(data)
     sweep_stale_temporaries(folder, target.name)
     fd, tmp = tempfile.mkstemp(prefix=f".{target.name}{TEMP_MARK}{os.getpid()}-", suffix=".tmp",
                                dir=folder)

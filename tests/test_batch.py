@@ -1,6 +1,7 @@
 """Tests for numcheck.batch: folders of TEI files and tables, the summary, the report index."""
 
 import hashlib
+import io
 import json
 import shutil
 from pathlib import Path
@@ -160,3 +161,150 @@ def test_audit_command_takes_a_single_tei_file(capsys):
     data = json.loads(capsys.readouterr().out)
     assert [f["kind"] for f in data["flags"]] == ["ten-slip"]
     assert data["restorations"]
+
+
+# -- issues 21 and 22: whole corpora -------------------------------------------
+
+def _tables(folder: Path, n: int, slip_every: int = 7) -> None:
+    """*n* small tables, a ten-slip in every *slip_every*-th (generated here, common practice)."""
+    folder.mkdir(parents=True, exist_ok=True)
+    for i in range(n):
+        rows = [f"{k}\t{3 * k + i}" for k in range(1, 9)]
+        if i % slip_every == 0:
+            k, v = rows[4].split("\t")
+            rows[4] = f"{k}\t{int(v) + 10}"
+        (folder / f"t{i:04d}.tsv").write_text("n\tA\n" + "\n".join(rows) + "\n", encoding="utf-8")
+
+
+def test_summary_files_per_file_and_corpus_wide(tmp_path):
+    _tables(tmp_path / "in", 8)
+    (tmp_path / "in" / "bad.tsv").write_text("A\tB\n1\n", encoding="utf-8")
+    out = batch.audit_folder(tmp_path / "in", summary_dir=tmp_path / "s", workers=1)
+    assert out["summary"]["files"] == 9 and out["summary"]["failed"] == 1
+    import csv
+    files = list(csv.DictReader(io.StringIO(
+        (tmp_path / "s" / "numcheck-files.csv").read_text(encoding="utf-8"))))
+    assert [r["file"] for r in files] == ["bad.tsv"] + [f"t{i:04d}.tsv" for i in range(8)]
+    assert files[0]["status"] == "failed" and "ragged" in files[0]["message"]
+    assert {r["file"]: r["flagged"] for r in files}["t0001.tsv"] == "0"
+    findings = list(csv.DictReader(io.StringIO(
+        (tmp_path / "s" / "numcheck-findings.csv").read_text(encoding="utf-8"))))
+    slipped = {(r["file"], r["row"], r["kind"]) for r in findings}
+    # t0000 and t0007 carry the slip at row 5 (a ten more than 3k + i).
+    assert ("t0000.tsv", "5", "ten-slip") in slipped and ("t0007.tsv", "5", "ten-slip") in slipped
+    assert all(list(r) == list(batch.FINDING_COLUMNS) for r in findings)
+    data = json.loads((tmp_path / "s" / "numcheck-summary.json").read_text(encoding="utf-8"))
+    assert data["summary"] == out["summary"] and len(data["findings"]) == len(findings)
+
+
+def test_a_run_killed_midway_resumes_to_the_same_summary(tmp_path):
+    import os
+    import signal
+    import subprocess
+    import sys
+    import time
+
+    _tables(tmp_path / "in", 60)
+    whole = batch.audit_folder(tmp_path / "in", summary_dir=tmp_path / "whole", workers=1)
+    env = dict(os.environ, PYTHONPATH=str(Path(batch.__file__).resolve().parents[1]))
+    # The journal records every 5 files here (limits.BATCH_JOURNAL_ENTRIES), so
+    # that the kill falls between two records.
+    args = ["audit", str(tmp_path / "in"), "--summary", str(tmp_path / "s"), "--workers", "1",
+            "--json"]
+    argv = [sys.executable, "-c", "import numcheck.limits as L; L.BATCH_JOURNAL_ENTRIES = 5; "
+            f"from numcheck.cli import main; raise SystemExit(main({args!r}))"]
+    proc = subprocess.Popen(argv, stdout=subprocess.DEVNULL, stderr=subprocess.DEVNULL, env=env)
+    journal = tmp_path / "s" / batch.JOURNAL_DIR
+    deadline = time.monotonic() + 120
+    while time.monotonic() < deadline and not list(journal.glob("part-*.jsonl")):
+        time.sleep(0.05)
+    proc.send_signal(signal.SIGKILL)              # kill -9: nothing can be cleaned up
+    proc.wait()
+    done_before = sum(len(p.read_text(encoding="utf-8").splitlines())
+                      for p in journal.glob("part-*.jsonl"))
+    assert 0 < done_before < 60, done_before
+    resumed = batch.audit_folder(tmp_path / "in", summary_dir=tmp_path / "s", workers=1)
+    assert resumed["resumed"] == done_before
+    assert resumed["summary"] == whole["summary"] and resumed["files"] == whole["files"]
+    for name in ("numcheck-files.csv", "numcheck-findings.csv"):
+        assert (tmp_path / "s" / name).read_bytes() == (tmp_path / "whole" / name).read_bytes()
+    again = batch.audit_folder(tmp_path / "in", summary_dir=tmp_path / "s", workers=1)
+    assert again["resumed"] == 60                 # nothing redone
+    (tmp_path / "in" / "t0003.tsv").write_text("n\tA\n1\t5\n2\t6\n3\t7\n", encoding="utf-8")
+    changed = batch.audit_folder(tmp_path / "in", summary_dir=tmp_path / "s", workers=1)
+    assert changed["resumed"] == 59               # a changed file is done again
+    fresh = batch.audit_folder(tmp_path / "in", summary_dir=tmp_path / "s", workers=1, fresh=True)
+    assert "resumed" not in fresh
+
+
+def test_ctrl_c_records_what_finished(tmp_path, monkeypatch):
+    _tables(tmp_path / "in", 12)
+    calls = []
+    real = batch._audit_one
+
+    def stop_at_fifth(job):
+        calls.append(job[0])
+        if len(calls) == 5:
+            raise KeyboardInterrupt
+        return real(job)
+
+    monkeypatch.setattr(batch, "_audit_one", stop_at_fifth)
+    with pytest.raises(KeyboardInterrupt):
+        batch.audit_folder(tmp_path / "in", summary_dir=tmp_path / "s", workers=1)
+    monkeypatch.setattr(batch, "_audit_one", real)
+    resumed = batch.audit_folder(tmp_path / "in", summary_dir=tmp_path / "s", workers=1)
+    assert resumed["resumed"] == 4 and resumed["summary"]["files"] == 12
+
+
+def test_pool_is_bounded_by_the_machine(tmp_path, monkeypatch):
+    seen = {}
+    import concurrent.futures as cf
+    real = cf.ProcessPoolExecutor
+
+    def spy(*args, **kwargs):
+        seen["workers"] = kwargs.get("max_workers")
+        return real(*args, **kwargs)
+
+    monkeypatch.setattr(cf, "ProcessPoolExecutor", spy)
+    _tables(tmp_path / "in", batch.POOL_MIN_FILES + 2)
+    out = batch.audit_folder(tmp_path / "in", workers=1000)
+    assert out["summary"]["files"] == batch.POOL_MIN_FILES + 2
+    assert 1 <= seen.get("workers", 1) <= batch.machine_workers()
+
+
+def test_links_out_of_the_folder_are_not_followed(tmp_path):
+    import os
+    outside = tmp_path / "outside"
+    outside.mkdir()
+    (outside / "secret.tsv").write_text("SECRET LINE\t1\n2\t3\n", encoding="utf-8")
+    _tables(tmp_path / "in", 2)
+    os.symlink(outside / "secret.tsv", tmp_path / "in" / "link.tsv")
+    os.symlink(outside, tmp_path / "in" / "linkdir")
+    os.symlink(tmp_path / "in" / "t0000.tsv", tmp_path / "in" / "inside.tsv")   # stays inside: read
+    out = batch.audit_folder(tmp_path / "in", workers=1)
+    assert sorted(f["file"] for f in out["files"]) == ["inside.tsv", "t0000.tsv", "t0001.tsv"]
+    assert "SECRET" not in json.dumps(out)
+
+
+def test_file_names_that_are_not_utf8(tmp_path, capsys):
+    import os
+    src = tmp_path / "in"
+    _tables(src, 1)
+    name = os.fsencode(str(src)) + b"/caf\xe9.tsv"        # Latin-1 bytes, not UTF-8
+    with open(name, "wb") as fh:
+        fh.write(b"n\tA\n1\t2\n2\t3\n3\t4\n")
+    assert main(["audit", str(src), "--report", str(tmp_path / "r"), "--json"]) == 0
+    raw = capsys.readouterr().out
+    data = json.loads(raw)
+    assert raw.encode("utf-8").decode("utf-8") == raw
+    assert sorted(f["file"] for f in data["files"]) == ["caf\ufffd.tsv", "t0000.tsv"]
+    index = (tmp_path / "r" / "index.html").read_text(encoding="utf-8")
+    assert "caf\ufffd.tsv" in index
+
+
+def test_a_long_error_is_quoted_as_an_excerpt(tmp_path):
+    src = tmp_path / "in"
+    src.mkdir()
+    (src / "long.xml").write_bytes(tei("<p><num>" + "q" * 1_000_000 + "</num></p>"))
+    result = batch.annotate_folder(src, tmp_path / "o", workers=1)
+    assert len(result.files[0]["error"]) < 2000

@@ -2,6 +2,7 @@
 
 import hashlib
 import os
+import time
 
 import pytest
 
@@ -73,3 +74,73 @@ def test_failed_write_keeps_old_file(tmp_path, monkeypatch):
         write_atomic(out, "new")
     assert out.read_text() == "old"
     assert sorted(p.name for p in tmp_path.iterdir()) == ["a.txt"]
+
+
+# -- issue 22: nesting, kinds of input, stale temporaries ----------------------
+
+def test_output_inside_input_folder_or_holding_it_is_refused(tmp_path):
+    ed = tmp_path / "ed"
+    (ed / "sub").mkdir(parents=True)
+    with pytest.raises(OutputError, match="lies inside the input folder"):
+        check_distinct([ed], ed / "sub")
+    with pytest.raises(OutputError, match="lies inside the input folder"):
+        check_distinct([ed], ed / "new" / "deeper")          # not there yet: still inside
+    with pytest.raises(OutputError, match="lies inside the output"):
+        check_distinct([ed / "sub"], ed)
+    with pytest.raises(OutputError, match="lies inside the output"):
+        check_distinct([ed / "sub" / "a.xml"], ed)           # a file inside an output folder
+    check_distinct([ed / "sub"], tmp_path / "elsewhere")     # apart: fine
+    check_distinct([ed / "a.xml"], ed / "b.xml")              # two files side by side: fine
+
+
+def test_input_kinds_are_refused_before_a_byte_is_read(tmp_path):
+    from numcheck.files import InputFileError, check_input_file
+    fifo = tmp_path / "t.tsv"
+    os.mkfifo(fifo)
+    with pytest.raises(InputFileError, match="FIFO"):
+        check_input_file(fifo)                  # would block for ever if it were opened
+    with pytest.raises(InputFileError, match="character device"):
+        check_input_file("/dev/zero")
+    with pytest.raises(InputFileError, match="folder"):
+        check_input_file(tmp_path)
+    binary = tmp_path / "b.tsv"
+    binary.write_bytes(b"A\tB\n\x00\x01\x02")
+    with pytest.raises(InputFileError, match="binary"):
+        check_input_file(binary)
+    utf16 = tmp_path / "u.tsv"
+    utf16.write_bytes("A\tB\n1\t2\n".encode("utf-16"))
+    assert check_input_file(utf16) == utf16.stat().st_size
+
+
+def test_a_killed_writers_temporary_file_is_swept(tmp_path):
+    from numcheck.files import TEMP_MARK, sweep_stale_temporaries
+    # A temporary file of a process that no longer runs (pid 2**22 + 1 is
+    # above Linux's default pid_max), one of a live process, and a stranger's.
+    dead = tmp_path / f".a.txt{TEMP_MARK}{2**22 + 1}-x1.tmp"
+    live = tmp_path / f".a.txt{TEMP_MARK}{os.getppid()}-x2.tmp"
+    other = tmp_path / ".a.txt.abc.tmp"
+    for p in (dead, live, other):
+        p.write_bytes(b"half a file")
+    write_atomic(tmp_path / "a.txt", "whole")
+    assert sorted(p.name for p in tmp_path.iterdir()) == sorted(["a.txt", live.name, other.name])
+    old = time.time() - 2 * __import__("numcheck").limits.STALE_TEMP_SECONDS
+    os.utime(live, (old, old))
+    assert sweep_stale_temporaries(tmp_path) == [live.name]
+
+
+def test_sigterm_during_a_write_leaves_no_temporary_file(tmp_path):
+    import signal
+    import subprocess
+    import sys
+    code = ("import os, signal, numcheck.files as f\n"
+            "from numcheck.cli import _on_terminate\n"
+            "signal.signal(signal.SIGTERM, _on_terminate)\n"
+            "real = os.fsync\n"
+            "def slow(fd):\n"
+            "    os.kill(os.getpid(), signal.SIGTERM)\n"
+            "    real(fd)\n"
+            "os.fsync = slow\n"
+            f"f.write_atomic({str(tmp_path / 'big.bin')!r}, b'x' * 5_000_000)\n")
+    done = subprocess.run([sys.executable, "-c", code], capture_output=True, timeout=60)
+    assert done.returncode == 128 + signal.SIGTERM
+    assert list(tmp_path.iterdir()) == []
