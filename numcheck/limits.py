@@ -49,8 +49,10 @@ RELATE_MAX_SEARCH_YEARS = 20_000
 IDENTIFY_MAX_CANDIDATES = 100_000
 #: identify compares the whole range a damaged reading allows only up to this many readings.
 IDENTIFY_DAMAGE_READINGS = 60
-#: Most candidates a restoration lists (``top``).
+#: Most candidates a restoration may be asked for (``top``) ...
 RESTORE_MAX_TOP = 100_000
+#: ... and most it lists (more asked for are cut to this, with a note).
+RESTORE_MAX_LISTED = 1_000
 #: Longest excerpt of an input quoted in a message (characters).
 MAX_ECHO = 200
 #: A temporary file of numcheck's naming older than this (seconds) is stale and swept.

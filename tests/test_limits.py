@@ -252,3 +252,81 @@ def test_settle_max_readings(monkeypatch):
     assert read_table(df, notation="greek").columns["min"].values[1] == 0
     monkeypatch.setattr(limits, "SETTLE_MAX_READINGS", 1)
     assert read_table(df, notation="greek").columns["min"].values[1] is None
+
+
+# -- limits of issues 21 and 22 ---------------------------------------------------
+
+def test_restore_max_listed(monkeypatch):
+    monkeypatch.setattr(limits, "RESTORE_MAX_LISTED", 7)
+    result = numcheck.restore("1,2[x]", top=50, use_catalogue=False)
+    assert len(result.candidates) == 7
+    assert any("RESTORE_MAX_LISTED" in n and "50 candidates were asked" in n for n in result.notes)
+    assert len(numcheck.restore("1,2[x]", top=7, use_catalogue=False).candidates) == 7
+
+
+def test_relate_max_span(monkeypatch):
+    monkeypatch.setattr(limits, "RELATE_MAX_SPAN", 10**6)
+    numcheck.relate(10**6, "days")
+    _raises_limit("RELATE_MAX_SPAN", numcheck.relate, 10**6 + 1, "days")
+    _raises_limit("RELATE_MAX_SPAN", numcheck.relate, "1e7", "days")   # refused before it is built
+
+
+def test_max_relation_tokens(monkeypatch):
+    frame = pd.DataFrame({"A": ["1", "2", "3"], "B": ["3", "6", "9"]}, dtype=object)
+    monkeypatch.setattr(limits, "MAX_RELATION_TOKENS", 7)
+    assert numcheck.audit(frame, relation="B = A + A + A").to_dict()["flags"] == []
+    _raises_limit("MAX_RELATION_TOKENS", numcheck.audit, frame, relation="B = A + A + A + A")
+
+
+def test_audit_cross_columns_and_window(monkeypatch):
+    from numcheck.errors import NumcheckWarning
+    # C = A × B (a product of two columns) is found in a narrow table; past
+    # AUDIT_CROSS_COLUMNS only among columns at most AUDIT_CROSS_WINDOW apart.
+    frame = pd.DataFrame({"A": ["1", "2", "4", "7"], "B": ["3", "5", "6", "9"],
+                          "C": ["3", "10", "24", "63"]}, dtype=object)
+    kinds = {s["column"]: s["kind"] for s in numcheck.audit(frame).to_dict()["schemes"]}
+    assert "product" in kinds.values()
+    monkeypatch.setattr(limits, "AUDIT_CROSS_COLUMNS", 2)
+    monkeypatch.setattr(limits, "AUDIT_CROSS_WINDOW", 2)
+    with pytest.warns(NumcheckWarning, match="AUDIT_CROSS_COLUMNS"):
+        kinds = {s["column"]: s["kind"] for s in numcheck.audit(frame).to_dict()["schemes"]}
+    assert "product" in kinds.values()            # A, B, C are neighbours
+    far = pd.DataFrame({"A": ["1", "2", "4", "7"], "X": ["5", "1", "8", "2"],
+                        "Y": ["9", "4", "1", "7"], "B": ["3", "5", "6", "9"],
+                        "C": ["3", "10", "24", "63"]}, dtype=object)
+    with pytest.warns(NumcheckWarning, match="AUDIT_CROSS_WINDOW"):
+        kinds = {s["column"]: s["kind"] for s in numcheck.audit(far).to_dict()["schemes"]}
+    assert "product" not in kinds.values()        # A is four columns from C
+
+
+def test_max_echo(monkeypatch):
+    from numcheck.files import short
+    monkeypatch.setattr(limits, "MAX_ECHO", 10)
+    assert short("x" * 100) == "x" * 9 + "…"
+    with pytest.raises(NumcheckError) as info:
+        numcheck.relate("1/" + "7" * 300 + "x", "days")
+    assert len(str(info.value)) < 2000
+
+
+def test_batch_journal(monkeypatch, tmp_path):
+    from numcheck import batch
+    monkeypatch.setattr(limits, "BATCH_JOURNAL_ENTRIES", 2)
+    monkeypatch.setattr(limits, "BATCH_JOURNAL_SECONDS", 3600)
+    for i in range(5):
+        (tmp_path / "in").mkdir(exist_ok=True)
+        (tmp_path / "in" / f"t{i}.tsv").write_text("A\n1\n2\n3\n", encoding="utf-8")
+    batch.audit_folder(tmp_path / "in", summary_dir=tmp_path / "s", workers=1)
+    parts = sorted((tmp_path / "s" / batch.JOURNAL_DIR).glob("part-*.jsonl"))
+    assert [len(p.read_text(encoding="utf-8").splitlines()) for p in parts] == [2, 2, 1]
+
+
+def test_stale_temp_seconds(monkeypatch, tmp_path):
+    import os
+
+    from numcheck.files import TEMP_MARK, sweep_stale_temporaries
+    mine = tmp_path / f".a{TEMP_MARK}{os.getppid()}-x.tmp"      # a live process's
+    mine.write_bytes(b"x")
+    monkeypatch.setattr(limits, "STALE_TEMP_SECONDS", 10**9)
+    assert sweep_stale_temporaries(tmp_path) == []
+    monkeypatch.setattr(limits, "STALE_TEMP_SECONDS", -1)
+    assert sweep_stale_temporaries(tmp_path) == [mine.name]

@@ -60,11 +60,20 @@ def restore(reading_or_text, *, notation=None, unit=None, expect=None, context=(
     if top > limits.RESTORE_MAX_TOP:
         raise LimitError("number of candidates asked for", f"{top:,}", f"{limits.RESTORE_MAX_TOP:,}",
                          "Ask for fewer, or set numcheck.limits.RESTORE_MAX_TOP higher.")
+    asked = top
+    if top > limits.RESTORE_MAX_LISTED:
+        # Listing 100,000 candidates printed 60 MB of JSON: list the best
+        # ones, say so; the probabilities stay those of the whole space.
+        top = limits.RESTORE_MAX_LISTED
     reading = _reading(reading_or_text, notation, unit)
     space = build_space(reading)
     targets, ev_notes = gather(reading, space, expect=expect, context=context,
                                use_catalogue=use_catalogue, unit=unit or reading.unit)
     notes = list(space.notes) + ev_notes
+    if asked > top:
+        notes.append(f"{asked:,} candidates were asked for; the best {top:,} are listed "
+                     f"(numcheck.limits.RESTORE_MAX_LISTED). The probabilities are over the whole "
+                     "space of readings.")
     grids = [grid_for(s) for s in space.subspaces]
     order = sorted(range(len(targets)), key=lambda i: targets[i].value)
     values = [targets[i].value for i in order]
