@@ -52,7 +52,7 @@ IDENTIFY_DAMAGE_READINGS = 60
 #: Most candidates a restoration may be asked for (``top``) ...
 RESTORE_MAX_TOP = 100_000
 #: ... and most it lists (more asked for are cut to this, with a note).
-RESTORE_MAX_LISTED = 1_000
+RESTORE_MAX_LISTED = 10_000
 #: Longest excerpt of an input quoted in a message (characters).
 MAX_ECHO = 200
 #: A temporary file of numcheck's naming older than this (seconds) is stale and swept.
