@@ -63,7 +63,7 @@ def _own(frame: Frame, name: str) -> Scheme | None:
     return best
 
 
-def detect_schemes(frame: Frame, relation: str | None = None) -> list[Scheme]:
+def detect_schemes(frame: Frame, relation: str | None = None, model=None) -> list[Scheme]:
     """The scheme of each column that has one, in the order they must be checked."""
     chosen: dict[str, Scheme] = {}
     stated = None
@@ -91,6 +91,9 @@ def detect_schemes(frame: Frame, relation: str | None = None) -> list[Scheme]:
         if current is None or scheme.support > current.support:
             chosen[scheme.column] = scheme
     _step_differences(frame, chosen)
+    # Tables of computed functions (chords, declinations, ...): audit/functions/.
+    from .functions import fit_functions
+    fit_functions(frame, chosen, model=model)
     return _ordered(chosen)
 
 

@@ -20,6 +20,12 @@ def add_arguments(parser) -> None:
                         help="a relation between columns to check, e.g. 'C = A + B' or "
                              "'B = prev(B) + A mod 360'")
     parser.add_argument("--columns", "-c", help="the columns to audit, comma-separated (others are left out)")
+    parser.add_argument("--model", "-m", help="the model of the function columns: chord, sine, cosine, "
+                        "versine, declination, right-ascension, oblique-ascension, equation, shadow, "
+                        "daylight; or per column, 'B=sine,C=declination' (chosen automatically when left out)")
+    parser.add_argument("--join", "-j", action="append", metavar="NAME=A,B,C",
+                        help="read columns A, B, C (one sexagesimal place each) as one number in a "
+                             "column NAME; repeat for several (headers x°, x′, x″ join by themselves)")
     parser.add_argument("--plot", metavar="OUT.png|svg", help="write a plot of each checked column")
     parser.add_argument("--report", metavar="OUT.html", help="write a self-contained HTML report "
                         "(for a folder: the folder to write the reports to)")
@@ -38,7 +44,8 @@ def run(args, console) -> dict:
         check_distinct(path, out)
     columns = [c.strip() for c in args.columns.split(",")] if args.columns else None
     # A TEI file gives its first <table> (numcheck.tables reads every source).
-    result = audit(path, notation=args.notation, relation=args.relation, columns=columns)
+    result = audit(path, notation=args.notation, relation=args.relation, columns=columns,
+                   model=args.model, join=args.join)
     from .. import report
 
     written = {}

@@ -1,0 +1,129 @@
+"""Tables of computed functions (``kind: "function"``): chords, sines, declinations, equations.
+
+Most tables of Greek, Arabic and Latin astronomy tabulate a function of an
+argument column in degrees.  For every column that no exact scheme explains,
+beside an argument column of constant step, each model of ``models.py`` is
+fitted (``estimate.py``: the exact interval method and least squares, for
+rounded and for truncated values); the model that explains most cells within
+the table's precision wins, and the others that explain as many are named.
+The author's method is then looked for (``method.py``: distributed linear
+interpolation between nodes), and difference columns beside a function column
+are checked with its rounding as tolerance (``differences.py``).
+"""
+
+from __future__ import annotations
+
+import numpy as np
+
+from ...errors import NumcheckError
+from ..schemes import Frame, Scheme
+from .differences import DifferenceScheme, fit_differences
+from .method import best_fit, find_interpolation
+from .models import AUTOMATIC, MODELS, Model, model_named
+from .scheme import FunctionScheme, column_places
+
+__all__ = ["fit_functions", "FunctionScheme", "DifferenceScheme", "MODELS", "model_named",
+           "parse_models"]
+
+#: Share of the known cells a model must explain (within precision) to be chosen.
+_MIN_SHARE = 0.5
+
+
+def parse_models(text) -> dict[str | None, Model]:
+    """``"chord"`` or ``"B=declination,C=sine"``: a model for every column, or per column."""
+    if not text:
+        return {}
+    if isinstance(text, dict):
+        return {k: (v if isinstance(v, Model) else model_named(v)) for k, v in text.items()}
+    out: dict[str | None, Model] = {}
+    for part in str(text).split(","):
+        part = part.strip()
+        if not part:
+            continue
+        column, eq, name = part.rpartition("=")
+        out[column.strip() if eq else None] = model_named(name)
+    return out
+
+
+def _argument(frame: Frame, chosen: dict[str, Scheme], forced: bool) -> str | None:
+    for name, s in chosen.items():
+        if s.kind == "linear" and not s.modulus and s.support >= 0.5:
+            vals = [frame.fraction(v) for v in frame.written[name] if v is not None]
+            if vals and -360 <= min(vals) and max(vals) <= 720:
+                return name
+    if forced and frame.names:
+        return frame.names[0]
+    return None
+
+
+def _floats(frame: Frame, name: str) -> np.ndarray:
+    s = frame.scale
+    return np.array([np.nan if v is None else v / s for v in frame.written[name]], dtype=float)
+
+
+def _column_fit(frame, name, argument, models):
+    x = _floats(frame, argument)
+    w = _floats(frame, name)
+    places = column_places(frame, name)
+    u = 1.0 / 60 ** places
+    fits = [f for f in (best_fit(m, x, w, u) for m in models) if f is not None]
+    if not fits:
+        return None
+    fits.sort(key=lambda f: (f.n_fit + f.n_precision, f.n_fit), reverse=True)
+    best = fits[0]
+    if best.n_known == 0 or (best.n_fit + best.n_precision) / best.n_known < _MIN_SHARE:
+        return None
+    alternatives = [{"model": f.model.name, "parameter": f.model.parameter,
+                     "estimate_decimal": float(f.exact), "cells_fit": f.n_fit,
+                     "cells_within_precision": f.n_precision}
+                    for f in fits[1:] if f.n_fit + f.n_precision == best.n_fit + best.n_precision]
+    if alternatives:
+        best.notes.append("other models fit as many cells: " +
+                          ", ".join(a["model"] for a in alternatives))
+    found = find_interpolation(best, x, w, u)
+    if found is not None:
+        interp, refit, values = found
+        return FunctionScheme(name, frame, argument, refit, places, interp, values, alternatives)
+    return FunctionScheme(name, frame, argument, best, places, alternatives=alternatives)
+
+
+def fit_functions(frame: Frame, chosen: dict[str, Scheme], model=None) -> None:
+    """Add a function scheme to *chosen* for each column a model explains (and its difference columns)."""
+    from ..schemes import support_row
+    forced = parse_models(model)
+    for column in forced:
+        if column is not None and column not in frame.names:
+            raise NumcheckError(f"--model names column {column!r}, but the table's columns are "
+                                f"{', '.join(frame.names)}.")
+    argument = _argument(frame, chosen, bool(forced))
+    if argument is None:
+        return
+    functions: list[FunctionScheme] = []
+    for name in frame.names:
+        if name == argument:
+            continue
+        current = chosen.get(name)
+        if name in forced:
+            models = [forced[name]]
+        elif None in forced:
+            models = [forced[None]]
+        elif current is not None and current.support >= 0.9:
+            continue
+        else:
+            models = [MODELS[m] for m in AUTOMATIC]
+        if current is not None and current.support == 1.0 and name not in forced:
+            continue
+        scheme = _column_fit(frame, name, argument, models)
+        if scheme is None:
+            continue
+        scheme.support = support_row(scheme, frame.written[name], frame.written)
+        if current is None or scheme.support > current.support or name in forced or None in forced:
+            chosen[name] = scheme
+            functions.append(scheme)
+    if not functions:
+        return
+    free = [n for n in frame.names if n != argument]
+    for s in fit_differences(frame, functions, free):
+        current = chosen.get(s.column)
+        if current is None or s.support > current.support:
+            chosen[s.column] = s
