@@ -92,8 +92,12 @@ def _joined(parts: list[str]) -> str:
 
 def join_columns(header: list[str], rows: list[list[str]], join=None, *, source: str = "<table>"):
     """The header and rows with each join's columns made one (the header's own joins too)."""
-    joins = header_joins(header)
-    joins.update(parse_join(join))
+    asked = parse_join(join)
+    taken = {c for cols in asked.values() for c in cols}
+    # the user's joins win over the ones the headers suggest
+    joins = {n: cols for n, cols in header_joins(header).items()
+             if not taken & set(cols) and n not in asked}
+    joins.update(asked)
     if not joins:
         return header, rows
     for name, cols in joins.items():

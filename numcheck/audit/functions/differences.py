@@ -45,7 +45,12 @@ class DifferenceScheme(Scheme):
         self.unit = scaled_unit(frame, places)
         self.tolerance = Fraction(scaled_unit(frame, base.places), k) + Fraction(self.unit) / 2
         self._model = self._model_differences()
-        self.within: list[int] = []
+        # Taken from the written values (every cell their exact rounded difference), or
+        # from the author's unrounded ones: the recomputed value follows the same way.
+        w = frame.written[column]
+        same = [w[i] == self._round(d) for i in range(len(w))
+                if w[i] is not None and (d := self._written_difference(i, frame.written)) is not None]
+        self.from_written = bool(same) and sum(same) * 2 > len(same)
 
     def _model_differences(self):
         fr = self.frame
@@ -88,9 +93,9 @@ class DifferenceScheme(Scheme):
         if ok:
             return self.frame.written[self.column][i]
         d = self._written_difference(i, src)
-        if d is not None:
-            return self._round(d)
         m = self._model[i]
+        if d is not None and (self.from_written or np.isnan(m)):
+            return self._round(d)
         return None if np.isnan(m) else self._round(float(m))
 
     def params(self):
@@ -104,7 +109,8 @@ class DifferenceScheme(Scheme):
 
     def to_dict(self):
         out = super().to_dict()
-        out.update({"model": "difference", "of": self.base.column, "divisor": self.k,
+        out.update({"model": "difference", "of": self.base.column,
+                    "from": "written values" if self.from_written else "the model's values", "divisor": self.k,
                     "direction": "forward" if self.forward else "backward", "places": self.places,
                     "tolerance": sexagesimal_text(self.frame.fraction(self.tolerance))})
         return out
