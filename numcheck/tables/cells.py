@@ -104,6 +104,14 @@ class Column:
         usual = Counter(c.places for c in self.cells if c.value is not None).most_common(1)
         return usual[0][0] if usual else 0
 
+    @functools.cached_property
+    def decimal_whole(self) -> bool:
+        """Whole numbers written in one place above 59 (Indian sines, 3438): decimal, not base 60."""
+        plain = [c for c in self.cells if c.value is not None]
+        return bool(plain) and self.notation == "sexagesimal" and all(
+            c.places == 0 and c.whole_places == 1 and "," not in c.text for c in plain) and any(
+            abs(c.value) > 59 for c in plain)
+
     def write(self, index: int, value: Fraction) -> str:
         """*value* as the scribe of this column would write it in row *index* (0-based).
 
@@ -113,6 +121,8 @@ class Column:
         """
         from ..slips import write_value
         cell = self.cells[index]
+        if self.decimal_whole and Fraction(value).denominator == 1 and cell.sign_name is None:
+            return str(Fraction(value).numerator)
         return write_value(value, notation=cell.notation,
                            places=self.usual_places if self.final_zeros else 0,
                            floating=cell.floating, sign_name=cell.sign_name,

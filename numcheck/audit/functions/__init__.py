@@ -99,8 +99,11 @@ def fit_functions(frame: Frame, chosen: dict[str, Scheme], model=None) -> None:
     if argument is None:
         return
     functions: list[FunctionScheme] = []
+    # a column that another column follows exactly is the scribe's own data (the differences
+    # of a running sum): a model would only blur it
+    sources = {i for s in chosen.values() if s.support == 1.0 for i in s.inputs}
     for name in frame.names:
-        if name == argument:
+        if name == argument or (name in sources and name not in forced):
             continue
         current = chosen.get(name)
         if name in forced:

@@ -49,6 +49,7 @@ class Fit:
     residual: np.ndarray          # per row, in units of the last place (nan unknown)
     tolerance: float              # in units of the last place
     exact: object = None          # the estimate as a Fraction
+    wide: tuple = (0.0, 0.0)      # the interval allowing one more unit (the table's precision)
     notes: list[str] = field(default_factory=list)
 
     @property
@@ -227,13 +228,23 @@ def fit_model(model: Model, x, w, u, rounding: str, mask=None) -> Fit | None:
     r0 = (w - model(x, centre)) / u + shift
     near = use & (np.abs(r0) <= 1.5)
     ls = least_squares(model, x[near], (w + shift * u)[near], centre) if near.sum() >= 2 else centre
-    exact = nice(ls, low, high)
+    # The wider interval the author's own last-place inaccuracy allows (one more unit):
+    # the author's round parameter is looked for there (Āryabhaṭa's R = 3438 lies outside
+    # the strict interval of his sines, four of which are one unit off).
+    r_ls = np.where(known, (w - model(x, ls)) / u, np.nan)
+    tol = _tolerance(r_ls[use], rounding)
+    wide = (tol - 0.5) * u
+    plo2, phi2 = cell_intervals(model, x[use], lo[use] - wide, hi[use] + wide)
+    region2 = deepest(plo2, phi2, prefer=ls)
+    wlow, whigh = (region2[0], region2[1]) if region2 else (low, high)
+    wlow, whigh = min(wlow, low), max(whigh, high)
+    exact = nice(ls, wlow, whigh)
     est = float(exact)
     f = model(x, est)
     r = np.where(known, (w - f) / u, np.nan)
-    tol = _tolerance(r[use], rounding)
     fits = classify_residuals(r, rounding, tol)
     fit = Fit(model, rounding, est, ls, low, high, depth, fits, r, tol, exact)
+    fit.wide = (wlow, whigh)
     if many > 1:
         fit.notes.append(f"{many} separate ranges of {model.parameter} agree with as many cells")
     return fit

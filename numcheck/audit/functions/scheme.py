@@ -96,7 +96,9 @@ class FunctionScheme(Scheme):
                "least_squares_decimal": fit.least_squares,
                "low": _param_text(fit.low), "low_decimal": fit.low,
                "high": _param_text(fit.high), "high_decimal": fit.high,
-               "cells_consistent": fit.consistent}
+               "cells_consistent": fit.consistent,
+               "precision_low": _param_text(fit.wide[0]), "precision_low_decimal": fit.wide[0],
+               "precision_high": _param_text(fit.wide[1]), "precision_high_decimal": fit.wide[1]}
         if fit.model.parameter == "φ":
             out["longest_day_hours_decimal"] = longest_day_from_latitude(float(fit.exact))
         return out
