@@ -27,7 +27,7 @@ __all__ = ["join_columns", "parse_join", "header_joins"]
 
 _DIGITS = re.compile(r"-?[0-9\[\]x.…]*[0-9\]][0-9\[\]x.…]*")
 _FAMILIES = (("°", "′", "″", "‴"), ("°", "'", '"'), ("deg", "min", "sec"), ("d", "m", "s"))
-_SEPARATORS = ("", " ", "_", ".", "-")
+_SEPARATORS = (" ", "_", ".", "-", "")
 
 
 def parse_join(text) -> dict[str, list[str]]:
@@ -68,6 +68,8 @@ def header_joins(header: list[str]) -> dict[str, list[str]]:
                 if not h.endswith(sep + first) or len(h) <= len(sep + first):
                     continue
                 base = h[: len(h) - len(sep + first)]
+                if base != base.strip():
+                    continue
                 k = 1
                 while j + k < len(header) and k < len(family) and header[j + k] == base + sep + family[k]:
                     k += 1

@@ -18,7 +18,7 @@ import numpy as np
 from ...errors import NumcheckError
 from ..schemes import Frame, Scheme
 from .differences import DifferenceScheme, fit_differences
-from .method import best_fit, find_interpolation
+from .method import best_fit, find_interpolation, find_steps
 from .models import AUTOMATIC, MODELS, Model, model_named
 from .scheme import FunctionScheme, column_places
 
@@ -27,6 +27,8 @@ __all__ = ["fit_functions", "FunctionScheme", "DifferenceScheme", "MODELS", "mod
 
 #: Share of the known cells a model must explain (within precision) to be chosen.
 _MIN_SHARE = 0.5
+#: Fewest known cells for a model to be chosen by itself (not forced with --model).
+_MIN_CELLS = 8
 
 
 def parse_models(text) -> dict[str | None, Model]:
@@ -61,30 +63,45 @@ def _floats(frame: Frame, name: str) -> np.ndarray:
     return np.array([np.nan if v is None else v / s for v in frame.written[name]], dtype=float)
 
 
-def _column_fit(frame, name, argument, models):
+def _column_fit(frame, name, argument, models, forced=False):
+    # a model may be infinite at an end of its range (the shadow at 0°): no warning, a misfit
+    with np.errstate(all="ignore"):
+        return _column_fit_quiet(frame, name, argument, models, forced)
+
+
+def _column_fit_quiet(frame, name, argument, models, forced):
     x = _floats(frame, argument)
     w = _floats(frame, name)
     places = column_places(frame, name)
     u = 1.0 / 60 ** places
-    fits = [f for f in (best_fit(m, x, w, u) for m in models) if f is not None]
-    if not fits:
+    steps = find_steps(w, u)
+    options = []
+    for m in models:
+        exact = best_fit(m, x, w, u)
+        if exact is None:
+            continue
+        found = find_interpolation(exact, x, w, u, steps) if steps is not None else None
+        if found is not None:
+            interp, refit, values = found
+            options.append((refit, interp, values))
+        else:
+            options.append((exact, None, None))
+    if not options:
         return None
-    fits.sort(key=lambda f: (f.n_fit + f.n_precision, f.n_fit), reverse=True)
-    best = fits[0]
+    options.sort(key=lambda o: (o[0].n_fit + o[0].n_precision, o[0].n_fit), reverse=True)
+    best, interp, values = options[0]
     if best.n_known == 0 or (best.n_fit + best.n_precision) / best.n_known < _MIN_SHARE:
+        return None
+    if not forced and (best.n_known < _MIN_CELLS or best.n_fit / best.n_known < _MIN_SHARE):
         return None
     alternatives = [{"model": f.model.name, "parameter": f.model.parameter,
                      "estimate_decimal": float(f.exact), "cells_fit": f.n_fit,
                      "cells_within_precision": f.n_precision}
-                    for f in fits[1:] if f.n_fit + f.n_precision == best.n_fit + best.n_precision]
+                    for f, _, _ in options[1:] if f.n_fit + f.n_precision == best.n_fit + best.n_precision]
     if alternatives:
         best.notes.append("other models fit as many cells: " +
                           ", ".join(a["model"] for a in alternatives))
-    found = find_interpolation(best, x, w, u)
-    if found is not None:
-        interp, refit, values = found
-        return FunctionScheme(name, frame, argument, refit, places, interp, values, alternatives)
-    return FunctionScheme(name, frame, argument, best, places, alternatives=alternatives)
+    return FunctionScheme(name, frame, argument, best, places, interp, values, alternatives)
 
 
 def fit_functions(frame: Frame, chosen: dict[str, Scheme], model=None) -> None:
@@ -116,7 +133,7 @@ def fit_functions(frame: Frame, chosen: dict[str, Scheme], model=None) -> None:
             models = [MODELS[m] for m in AUTOMATIC]
         if current is not None and current.support == 1.0 and name not in forced:
             continue
-        scheme = _column_fit(frame, name, argument, models)
+        scheme = _column_fit(frame, name, argument, models, forced=bool(forced))
         if scheme is None:
             continue
         scheme.support = support_row(scheme, frame.written[name], frame.written)

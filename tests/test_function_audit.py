@@ -1,0 +1,131 @@
+"""The function audit: interpolation, joined columns, the command line, the plot, the JSON."""
+
+from __future__ import annotations
+
+import contextlib
+import io
+import json
+import math
+from fractions import Fraction as F
+
+import pandas as pd
+import pytest
+
+from functiongen import argument_text, interpolate, rounded, sexa, sine, tsv
+from numcheck.audit import audit
+from numcheck.cli import main
+from numcheck.errors import NumcheckError, UnknownNameError
+from numcheck.tables.join import header_joins, join_columns, parse_join
+
+
+def _cli(argv):
+    out = io.StringIO()
+    with contextlib.redirect_stdout(out), contextlib.redirect_stderr(io.StringIO()):
+        code = main(argv + ["--json"])
+    assert code == 0
+    return json.loads(out.getvalue())
+
+
+def interpolated_sines():
+    """Sines R = 60 every degree, to seconds: nodes every 6° computed, the rest interpolated
+    (distributed linear interpolation, common practice of the zījes)."""
+    args = [F(i) for i in range(0, 91)]
+    return args, interpolate(lambda a: sine(a, 60), args, 6, 2)
+
+
+def test_an_interpolated_table_is_recognised_and_checked_against_its_method():
+    args, values = interpolated_sines()
+    # between the nodes the interpolation is off the exact sine by far more than a second
+    assert max(abs(float(v) - sine(float(a), 60)) for a, v in zip(args, values)) > 60 / 3600
+    slips = {20: values[19] + F(10, 60), 55: values[54] - F(1, 3600) * 20}
+    written = [slips.get(i + 1, v) for i, v in enumerate(values)]
+    df = pd.DataFrame({"arc": [argument_text(a) for a in args], "sin": [sexa(v, 2) for v in written]})
+    result = audit(df)
+    s = {x["column"]: x for x in result.to_dict()["schemes"]}["sin"]
+    assert s["model"] == "sine" and s["parameters"][0]["estimate"] == "1,0"
+    assert s["interpolation"] != "none" and s["interpolation"]["step"] == 6
+    assert s["interpolation"]["nodes"][:3] == [1, 7, 13]
+    assert {f["row"] for f in result.flags} == set(slips)
+    by = {f["row"]: f for f in result.flags}
+    assert by[20]["expected"] == sexa(values[19], 2)      # the interpolated value, not the sine
+
+
+def test_an_exact_table_is_not_called_interpolated():
+    args = [F(i) for i in range(0, 91)]
+    df = pd.DataFrame({"arc": [argument_text(a) for a in args],
+                       "sin": [sexa(rounded(sine(float(a), 60), 2), 2) for a in args]})
+    s = {x["column"]: x for x in audit(df).to_dict()["schemes"]}["sin"]
+    assert s["interpolation"] == "none" and s["cells_fit"] == 91
+
+
+def test_header_joins_and_the_join_option():
+    assert header_joins(["arc", "crd°", "crd′", "crd″", "x"]) == {"crd": ["crd°", "crd′", "crd″"]}
+    assert header_joins(["a", "t deg", "t min"]) == {"t": ["t deg", "t min"]}
+    assert parse_join("crd=A,B,C; t=D,E") == {"crd": ["A", "B", "C"], "t": ["D", "E"]}
+    header, rows = join_columns(["arc", "A", "B", "C"], [["1", "1", "2", "50"]], "crd=A,B,C")
+    assert header == ["arc", "crd"] and rows == [["1", "1;2,50"]]
+    header, rows = join_columns(["arc", "A", "B"], [["α", "α", "β"]], {"c": ["A", "B"]})
+    assert rows == [["α", "α β"]]
+
+
+@pytest.mark.parametrize("join,error", [
+    ("crd", NumcheckError), ("crd=A", NumcheckError), ("crd=A,Z", UnknownNameError),
+    ("arc=A,B", NumcheckError), ("x=A,B;y=B,C", NumcheckError)])
+def test_bad_joins_are_named(join, error):
+    with pytest.raises(error):
+        join_columns(["arc", "A", "B", "C"], [["1", "1", "2", "3"]], join)
+
+
+def test_joined_degree_columns_audit_as_one_number(tmp_path):
+    args = [F(i) for i in range(1, 91)]
+    vals = [rounded(sine(float(a), 60), 2) for a in args]
+    parts = [sexa(v, 2).replace(";", ",").split(",") for v in vals]
+    parts[30][1] = str((int(parts[30][1]) + 10) % 60)     # a slip in the minutes
+    path = tmp_path / "sines.tsv"
+    path.write_text(tsv(["arc", "sin°", "sin′", "sin″"],
+                        [[argument_text(a) for a in args]] + [[p[k] for p in parts] for k in range(3)]))
+    d = _cli(["audit", str(path)])
+    assert d["columns"] == ["arc", "sin"]
+    assert [(f["row"], f["column"]) for f in d["flags"]] == [(31, "sin")]
+    assert d["flags"][0]["written"] == ";".join([parts[30][0], ",".join(parts[30][1:])])
+
+
+def test_the_command_line_model_option_and_its_json(tmp_path):
+    from test_exactness import violations
+    args = [F(i) for i in range(1, 91)]
+    path = tmp_path / "s.tsv"
+    path.write_text(tsv(["arc", "s"], [[argument_text(a) for a in args],
+                                       [sexa(rounded(sine(float(a), 150), 1), 1) for a in args]]))
+    d = _cli(["audit", str(path), "--model", "sine"])
+    s = d["schemes"][1]
+    assert s["kind"] == "function" and s["model"] == "sine"
+    assert s["parameters"][0]["estimate"] == "2,30"          # R = 150
+    assert violations(d) == []
+    with pytest.raises(UnknownNameError):
+        audit(path, model="sinus")
+
+
+def test_the_plot_draws_the_residuals(tmp_path):
+    args, values = interpolated_sines()
+    df = pd.DataFrame({"arc": [argument_text(a) for a in args], "sin": [sexa(v, 2) for v in values]})
+    import matplotlib
+    from numcheck.report.plot import plot_bytes
+    with matplotlib.rc_context({"svg.fonttype": "none"}):   # text as text, to be searched
+        svg = plot_bytes(audit(df), "svg").decode()
+    assert "units of the last place" in svg and "interpolated every 6 lines" in svg
+
+
+def test_a_table_without_an_angle_column_is_left_to_the_other_schemes():
+    df = pd.DataFrame({"n": ["1", "2", "3", "4", "5"], "sq": ["1", "4", "9", "16", "25"]})
+    assert all(s["kind"] != "function" for s in audit(df).to_dict()["schemes"])
+
+
+def test_parameters_recovered_for_every_published_radius():
+    # Indian R = 3438 and 150, the zījes' R = 60 (from memory): a sine table of each
+    for R, text in ((60, "1,0"), (150, "2,30"), (3438, "57,18")):
+        args = [F(i * 3) for i in range(1, 31)]
+        df = pd.DataFrame({"arc": [argument_text(a) for a in args],
+                           "s": [sexa(rounded(sine(float(a), R), 1), 1) for a in args]})
+        p = {x["column"]: x for x in audit(df).to_dict()["schemes"]}["s"]["parameters"][0]
+        assert p["estimate"] == text and p["low_decimal"] <= R <= p["high_decimal"], R
+        assert math.isclose(p["least_squares_decimal"], R, rel_tol=1e-3)
