@@ -256,7 +256,7 @@ def _fast(row, column, number, notation, text) -> Cell | None:
     first = True
     for p in whole.split(","):
         d = int(p)
-        if d > 59 and not (first and "," not in whole and frac):
+        if d > 59 and not (first and "," not in whole and (frac or notation == "sexagesimal")):
             return None  # let the reader give its own message (or another notation)
         total = total * 60 + d
         first = False

@@ -18,6 +18,7 @@ import numpy as np
 from ...errors import NumcheckError
 from ..schemes import Frame, Scheme
 from .differences import DifferenceScheme, fit_differences
+from .estimate import screen
 from .method import best_fit, find_interpolation, find_steps
 from .models import AUTOMATIC, MODELS, Model, model_named
 from .scheme import FunctionScheme, column_places
@@ -27,6 +28,8 @@ __all__ = ["fit_functions", "FunctionScheme", "DifferenceScheme", "MODELS", "mod
 
 #: Share of the known cells a model must explain (within precision) to be chosen.
 _MIN_SHARE = 0.5
+#: Models given the full fit after the quick score (the others cannot win).
+_SHORTLIST = 3
 #: Fewest known cells for a model to be chosen by itself (not forced with --model).
 _MIN_CELLS = 8
 
@@ -75,6 +78,10 @@ def _column_fit_quiet(frame, name, argument, models, forced):
     places = column_places(frame, name)
     u = 1.0 / 60 ** places
     steps = find_steps(w, u)
+    if len(models) > _SHORTLIST:
+        # a quick score first; the full fit (two roundings, intervals) for the best few
+        scores = [(screen(m, x, w, u), -k) for k, m in enumerate(models)]
+        models = [models[-k] for _, k in sorted(scores, reverse=True)[:_SHORTLIST]]
     options = []
     for m in models:
         exact = best_fit(m, x, w, u)

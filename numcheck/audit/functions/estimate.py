@@ -28,10 +28,10 @@ import numpy as np
 
 from .models import Model, nice
 
-__all__ = ["Fit", "fit_model", "cell_intervals", "deepest", "least_squares", "classify_residuals"]
+__all__ = ["Fit", "fit_model", "screen", "cell_intervals", "deepest", "least_squares", "classify_residuals"]
 
 _EPS = 1e-7          # in units of the last place: float noise of the model
-_ITER = 60           # bisection steps (the range shrinks by 2**-60)
+_ITER = 48           # bisection steps (the range shrinks by 2**-48)
 
 
 @dataclass
@@ -199,6 +199,19 @@ def _tolerance(r, rounding) -> float:
         return 1.5
     q = float(np.quantile(a, 0.75))
     return float(min(3.5, max(1.5, np.ceil(q * 2) / 2 + 0.5 if q > 1.0 else 1.5)))
+
+
+def screen(model: Model, x, w, u) -> int:
+    """A quick score: cells within 2 units of the model at the median of the cells' own parameters."""
+    known = ~np.isnan(w) & ~np.isnan(x)
+    if known.sum() < 3:
+        return 0
+    plo, phi = cell_intervals(model, x[known], w[known], w[known])
+    mids = plo[~np.isnan(plo)]
+    if not len(mids):
+        return 0
+    p = float(np.median(mids))
+    return int(np.sum(np.abs(w[known] - model(x[known], p)) <= 2 * u))
 
 
 def fit_model(model: Model, x, w, u, rounding: str, mask=None) -> Fit | None:

@@ -77,11 +77,14 @@ def interpolated(model: Model, x, w, u, p: float, rounding: str, interp: Interpo
 def _between(w, u, rounding, interp: Interpolation):
     """The values the written nodes give the lines between them (nan where a node is missing)."""
     n = len(w)
+    j = np.arange(n)
+    a = interp.offset + ((j - interp.offset) // interp.step) * interp.step
+    b = a + interp.step
+    ok = (j > a) & (a >= 0) & (b < n)
     out = np.full(n, np.nan)
-    idx = np.nonzero(interp.nodes(n))[0]
-    for a, b in zip(idx[:-1], idx[1:]):
-        t = np.arange(1, b - a) / (b - a)
-        out[a + 1:b] = _round(w[a] + t * (w[b] - w[a]), u, rounding)
+    aj, bj, jj = a[ok], b[ok], j[ok]
+    with np.errstate(invalid="ignore"):
+        out[jj] = _round(w[aj] + (jj - aj) / interp.step * (w[bj] - w[aj]), u, rounding)
     return out
 
 
