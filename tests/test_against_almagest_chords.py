@@ -12,9 +12,10 @@ slips are injected, and the audit must recover R = 60 and flag exactly them.
 from __future__ import annotations
 
 import json
-import math
 from fractions import Fraction as F
+from pathlib import Path
 
+import pandas as pd
 import pytest
 
 from functiongen import argument_text, chord, greek, rounded, sexa, tsv
@@ -62,7 +63,7 @@ def test_the_first_sixtieths_are_the_published_ones():
 # slips (row, column, written) in the scribe's own terms: a digit of one place confused
 SLIPS = {
     (23, "chord"): lambda v: v + F(10, 60),          # minutes +10 (a ten-slip)
-    (150, "chord"): lambda v: v + F(20, 3600),        # seconds κ for ι (a ten-slip in the last place)
+    (150, "chord"): lambda v: v + F(20, 3600),        # seconds 25 for 5 (κε for ε)
     (301, "chord"): lambda v: v - 1,                  # degrees one less (a unit slip)
     (77, "sixtieths"): lambda v: v + F(10, 60 ** 3),
     (250, "sixtieths"): lambda v: v - F(1, 60 ** 2),
@@ -96,6 +97,8 @@ def test_the_audit_recovers_R_and_flags_exactly_the_slips(tmp_path):
     assert flagged == set(SLIPS)
     by = {(f["row"], f["column"]): f for f in result.flags}
     assert by[(23, "chord")]["expected"] == sexa(chord_table()[1][22], 2)
+    assert by[(23, "chord")]["kind"] == "ten-slip"
+    assert by[(301, "chord")]["expected"] == sexa(chord_table()[1][300], 2)   # 116;2,44, one number
     assert by[(250, "sixtieths")]["expected"] == sexa(chord_table()[2][249], 3)
 
 
@@ -158,3 +161,32 @@ def test_a_greek_chord_table_in_place_columns_with_recognition_defects(tmp_path)
     by = {(f["row"], f["column"]): f for f in d["flags"]}
     assert by[(5, "crd")]["written"] == "ο λζ δ"       # the flag shows the whole number
     assert by[(5, "crd")]["expected_value"] == str(F(2) + F(37, 60) + F(4, 3600))
+
+
+# ---- the real text: chords stated in the running text of Almagest I.10 and I.12 -----------
+
+REALDATA = Path(__file__).resolve().parents[1] / ".." / "shared" / "realdata" / "almagest"
+
+#: The chords Ptolemy derives in I.10 (sides of the decagon, pentagon, square, triangle) and
+#: the chord of the arc between the tropics, 2ε = 47;42,40, in I.12, as they stand in
+#: Heiberg's text (the arcs are those of the propositions, from memory; the chords are read
+#: from the file).
+TEXT_CHORDS = [(F(36), "λζ δ νε"), (F(72), "ο λβ γ"), (F(90), "πδ να ι"), (F(120), "ργ νε κγ"),
+               (F(47) + F(42, 60) + F(40, 3600), "μη λα νε")]
+
+
+def test_the_chords_in_the_running_text_give_R_60():
+    path = REALDATA / "almagest-heiberg-first1k.xml"
+    if not path.is_file():
+        pytest.skip("the real Almagest text is not here")
+    text = path.read_text(encoding="utf-8")
+    for _, chord_text in TEXT_CHORDS:
+        assert chord_text in text, chord_text
+    df = pd.DataFrame({"arc": [argument_text(a) if a.denominator == 1 else "47;42,40"
+                               for a, _ in TEXT_CHORDS],
+                       "chord": [c for _, c in TEXT_CHORDS]})
+    result = audit(df, model="chord=chord")
+    s = {x["column"]: x for x in result.to_dict()["schemes"]}["chord"]
+    p = s["parameters"][0]
+    assert p["estimate"] == "1,0" and p["low_decimal"] <= 60 <= p["high_decimal"]
+    assert s["cells_fit"] == 5 and result.flags == []

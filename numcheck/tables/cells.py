@@ -105,12 +105,12 @@ class Column:
         return usual[0][0] if usual else 0
 
     @functools.cached_property
-    def decimal_whole(self) -> bool:
-        """Whole numbers written in one place above 59 (Indian sines, 3438): decimal, not base 60."""
+    def whole_in_one_place(self) -> bool:
+        """The whole part is written as one number, even above 59 (Ptolemy's 115;2,44, Indian 3438)."""
         plain = [c for c in self.cells if c.value is not None]
-        return bool(plain) and self.notation == "sexagesimal" and all(
-            c.places == 0 and c.whole_places == 1 and "," not in c.text for c in plain) and any(
-            abs(c.value) > 59 for c in plain)
+        return bool(plain) and self.notation == "sexagesimal" and not self.longitude and all(
+            c.whole_places == 1 and "," not in c.text.split(";")[0] for c in plain) and any(
+            abs(c.value) >= 60 for c in plain)
 
     def write(self, index: int, value: Fraction) -> str:
         """*value* as the scribe of this column would write it in row *index* (0-based).
@@ -121,12 +121,17 @@ class Column:
         """
         from ..slips import write_value
         cell = self.cells[index]
-        if self.decimal_whole and Fraction(value).denominator == 1 and cell.sign_name is None:
-            return str(Fraction(value).numerator)
-        return write_value(value, notation=cell.notation,
+        text = write_value(value, notation=cell.notation,
                            places=self.usual_places if self.final_zeros else 0,
                            floating=cell.floating, sign_name=cell.sign_name,
                            longitude=self.longitude)
+        if self.whole_in_one_place and not cell.floating:
+            v = Fraction(value)
+            whole = abs(v.numerator) // v.denominator
+            sign = "-" if v < 0 else ""
+            _, semi, tail = text.partition(";")
+            text = f"{sign}{whole}" + (f";{tail}" if semi else "")
+        return text
 
 
 @dataclass
