@@ -129,3 +129,20 @@ def test_parameters_recovered_for_every_published_radius():
         p = {x["column"]: x for x in audit(df).to_dict()["schemes"]}["s"]["parameters"][0]
         assert p["estimate"] == text and p["low_decimal"] <= R <= p["high_decimal"], R
         assert math.isclose(p["least_squares_decimal"], R, rel_tol=1e-3)
+
+
+def test_a_damaged_cell_is_restored_within_the_tables_precision():
+    from numcheck.audit.functions import MODELS
+    args = [F(i) for i in range(1, 61)]
+    vals = [rounded(sine(float(a), 60), 2) for a in args]
+    texts = [sexa(v, 2) for v in vals]
+    # the author's value one unit off in the seconds, and that cell damaged in its minutes
+    k = 29
+    off = vals[k] + F(1, 3600)
+    texts[k] = sexa(off, 2).split(";")[0] + ";[x]," + sexa(off, 2).split(",")[-1]
+    df = pd.DataFrame({"arc": [argument_text(a) for a in args], "sin": texts})
+    result = audit(df)
+    assert result.flags == []
+    best = max((r for r in result.restorations if r.index == k), key=lambda r: r.probability)
+    assert best.value == off
+    assert MODELS["sine"](30.0, 60.0) == pytest.approx(30.0)

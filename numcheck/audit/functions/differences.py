@@ -86,7 +86,7 @@ class DifferenceScheme(Scheme):
         if d is not None and abs(w - d) <= self.tolerance:
             return True
         m = self._model[i]
-        return bool(not np.isnan(m) and abs(float(w) - m) <= 1.5 * float(self.unit))
+        return bool(np.isfinite(m) and abs(float(w) - m) <= 1.5 * float(self.unit))
 
     def expect(self, i, src):
         ok = self.fits(i, src)
@@ -94,9 +94,13 @@ class DifferenceScheme(Scheme):
             return self.frame.written[self.column][i]
         d = self._written_difference(i, src)
         m = self._model[i]
-        if d is not None and (self.from_written or np.isnan(m)):
+        if d is not None and (self.from_written or not np.isfinite(m)):
             return self._round(d)
-        return None if np.isnan(m) else self._round(float(m))
+        return self._round(float(m)) if np.isfinite(m) else None
+
+    @property
+    def restore_tolerance(self) -> Fraction:
+        return self.frame.fraction(self.tolerance)
 
     def params(self):
         return {"of": self.base.column, "divisor": self.k,

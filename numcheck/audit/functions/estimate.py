@@ -241,6 +241,8 @@ def fit_model(model: Model, x, w, u, rounding: str, mask=None) -> Fit | None:
     r0 = (w - model(x, centre)) / u + shift
     near = use & (np.abs(r0) <= 1.5)
     ls = least_squares(model, x[near], (w + shift * u)[near], centre) if near.sum() >= 2 else centre
+    if not all(np.isfinite(v) for v in (ls, low, high)):
+        return None
     # The wider interval the author's own last-place inaccuracy allows (one more unit):
     # the author's round parameter is looked for there (Āryabhaṭa's R = 3438 lies outside
     # the strict interval of his sines, four of which are one unit off).

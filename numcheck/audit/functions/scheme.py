@@ -68,11 +68,27 @@ class FunctionScheme(Scheme):
             values = np.floor(q + 1e-9) if fit.rounding == "truncated" else np.floor(q + 0.5)
         else:
             values = np.round(values / u)
-        self._units = [None if np.isnan(v) else int(v) for v in values]
+        self._units = [int(v) if np.isfinite(v) else None for v in values]
 
     @property
     def model(self):
         return self.fit.model
+
+    @property
+    def restore_tolerance(self) -> Fraction:
+        """A damaged cell is restored to a reading within the table's precision of the model."""
+        return Fraction(round(self.fit.tolerance * 2), 2) / 60 ** self.places
+
+    def describe(self) -> str:
+        p = self.parameter()
+        text = (f"{self.model.name} of column {self.argument}: {self.model.formula}, "
+                f"{p['name']} = {p['estimate']} (consistent {p['low']} to {p['high']}), "
+                f"{self.fit.rounding}")
+        if self.interpolation:
+            text += f", interpolated linearly between nodes every {self.interpolation.step} lines"
+        text += (f"; {self.fit.n_fit} cells fit, {self.fit.n_precision} within one unit of "
+                 "the last place")
+        return text
 
     def expect(self, i, src):
         w = self.frame.written[self.column][i]
@@ -106,13 +122,6 @@ class FunctionScheme(Scheme):
     def params(self) -> dict:
         return {"model": self.model.name, "argument": self.argument,
                 self.model.parameter: sexagesimal_text(self.fit.exact)}
-
-    def describe(self) -> str:
-        text = (f"{self.model.name} of column {self.argument}: {self.model.formula}, "
-                f"{self.model.parameter} = {sexagesimal_text(self.fit.exact)}, {self.fit.rounding}")
-        if self.interpolation:
-            text += f", interpolated linearly between nodes every {self.interpolation.step} lines"
-        return text
 
     def to_dict(self) -> dict:
         out = super().to_dict()
