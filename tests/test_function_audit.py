@@ -146,3 +146,65 @@ def test_a_damaged_cell_is_restored_within_the_tables_precision():
     best = max((r for r in result.restorations if r.index == k), key=lambda r: r.probability)
     assert best.value == off
     assert MODELS["sine"](30.0, 60.0) == pytest.approx(30.0)
+
+
+_E = math.radians(23 + 51 / 60 + 20 / 3600)      # Ptolemy's obliquity, Almagest I.12 (from memory)
+
+
+def _ra(lam):
+    a = math.degrees(math.atan2(math.cos(_E) * math.sin(math.radians(lam)), math.cos(math.radians(lam))))
+    return a % 360 if lam < 360 else 360.0
+
+
+def _ascensional(lam, phi):
+    d = math.asin(math.sin(_E) * math.sin(math.radians(lam)))
+    return math.degrees(math.asin(math.tan(math.radians(phi)) * math.tan(d)))
+
+
+# (model, published parameter, its source (from memory), arguments, places, formula written out)
+PUBLISHED_MODELS = [
+    ("right-ascension", 23 + 51 / 60 + 20 / 3600, "Almagest I.16, ε = 23;51,20",
+     [10 * i for i in range(1, 37)], 2, _ra),
+    ("oblique-ascension", 36.0, "Almagest II.8, the climate through Rhodes, φ = 36°",
+     [10 * i for i in range(1, 36)], 2, lambda lam: (_ra(lam) - _ascensional(lam, 36.0)) % 360),
+    ("daylight", 36.0, "Almagest II.8, Rhodes: the longest day 14½ hours",
+     [6 * i for i in range(0, 61)], 2, lambda lam: 12 + 2 / 15 * _ascensional(lam, 36.0)),
+    ("shadow", 12.0, "a gnomon of 12 digits (al-Khwārizmī's zīj)",
+     list(range(1, 91)), 2, lambda h: 12 / math.tan(math.radians(h))),
+    ("equation", 43 + 10 / 60, "Almagest XI.11, Venus' epicycle r = 43;10",
+     [6 * i for i in range(1, 31)], 2,
+     lambda a: abs(math.degrees(math.atan2((43 + 10 / 60) * math.sin(math.radians(a)),
+                                           60 + (43 + 10 / 60) * math.cos(math.radians(a)))))),
+    ("versine", 3438.0, "Āryabhaṭīya's R = 3438 (utkramajyā)",
+     [15 * i / 4 for i in range(1, 25)], 0, lambda a: 3438 * (1 - math.cos(math.radians(a)))),
+]
+
+
+@pytest.mark.parametrize("name,p,source,args,places,formula", PUBLISHED_MODELS,
+                         ids=[m[0] for m in PUBLISHED_MODELS])
+def test_each_model_recovers_its_published_parameter(name, p, source, args, places, formula):
+    vals = [rounded(formula(a), places) for a in args]
+    slip = 5
+    vals[slip] += F(7, 60 ** max(places - 1, 0)) if places else 70
+    df = pd.DataFrame({"x": [argument_text(F(a).limit_denominator(4)) for a in args],
+                       "y": [sexa(v, places) for v in vals]})
+    result = audit(df)
+    s = {x["column"]: x for x in result.to_dict()["schemes"]}["y"]
+    assert s["model"] == name, source
+    q = s["parameters"][0]
+    assert q["low_decimal"] <= p <= q["high_decimal"], source
+    assert abs(q["estimate_decimal"] - p) < 1e-9, source
+    assert [f["row"] for f in result.flags] == [slip + 1], source
+
+
+def test_two_models_that_fit_as_well_are_named():
+    # right ascensions are the oblique ascensions of the sphaera recta (latitude 0): both
+    # models explain every cell, and the audit says so (common practice)
+    args = [10 * i for i in range(1, 37)]
+    df = pd.DataFrame({"lon": [str(a) for a in args],
+                       "asc": [sexa(rounded(_ra(a), 2), 2) for a in args]})
+    s = {x["column"]: x for x in audit(df).to_dict()["schemes"]}["asc"]
+    assert s["kind"] == "function" and s["cells_fit"] == 36
+    named = {s["model"]} | {a["model"] for a in s["alternatives"]}
+    assert named == {"right-ascension", "oblique-ascension"}
+    assert any("other models fit as many cells" in n for n in s["notes"])

@@ -87,7 +87,7 @@ def _ascensional(lam, phi, eps=PTOLEMY_OBLIQUITY):
 
 def _oblique(lam, phi):
     out = _ra(lam, PTOLEMY_OBLIQUITY) - _ascensional(lam, phi)
-    return np.mod(out, 360)
+    return np.where(out < 0, out + 360, out)
 
 
 def _equation(a, e):
