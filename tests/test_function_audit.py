@@ -208,3 +208,18 @@ def test_two_models_that_fit_as_well_are_named():
     named = {s["model"]} | {a["model"] for a in s["alternatives"]}
     assert named == {"right-ascension", "oblique-ascension"}
     assert any("other models fit as many cells" in n for n in s["notes"])
+
+
+def test_a_folder_audit_takes_the_model_option(tmp_path):
+    args = [F(i) for i in range(1, 31)]
+    for k, R in enumerate((60, 150)):
+        (tmp_path / f"t{k}.tsv").write_text(tsv(["arc", "s"], [
+            [argument_text(a) for a in args], [sexa(rounded(sine(float(a), R), 1), 1) for a in args]]))
+    d = _cli(["audit", str(tmp_path), "--model", "sine"])
+    got = sorted(s["parameters"][0]["estimate"] for f in d["files"] for s in f["schemes"]
+                 if s["kind"] == "function")
+    assert got == ["1,0", "2,30"]
+    out = io.StringIO()
+    with contextlib.redirect_stdout(out), contextlib.redirect_stderr(out):
+        assert main(["audit", str(tmp_path), "--model", "sinus"]) != 0
+    assert "Unknown model 'sinus'" in out.getvalue()

@@ -34,6 +34,11 @@ def add_arguments(parser) -> None:
 
 def run(args, console) -> dict:
     path = Path(args.file)
+    if args.model or args.join:   # a bad name or join fails once, before any file is read
+        from ..audit.functions import parse_models
+        from ..tables.join import parse_join
+        parse_models(args.model)
+        parse_join(args.join)
     if path.is_dir():
         return _folder(args, path, console)
     from ..audit import audit
@@ -71,7 +76,8 @@ def _folder(args, path: Path, console) -> dict:
     except ImportError as err:
         raise NumcheckError(f"{str(path)!r} is a folder: auditing folders needs numcheck.batch, "
                             "which is not installed.") from err
-    out = audit_folder(path, report_dir=args.report, notation=args.notation, relation=args.relation)
+    out = audit_folder(path, report_dir=args.report, notation=args.notation, relation=args.relation,
+                       model=args.model, join=args.join)
     if console is not None:
         from rich.markup import escape
         from rich.table import Table
