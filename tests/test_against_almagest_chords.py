@@ -139,9 +139,9 @@ def test_a_greek_chord_table_in_place_columns_with_recognition_defects(tmp_path)
     defects = {}
     rows[4][1] = "ο"                # crd 2;30 = 2;37,4: its degrees 'β' read as omicron
     defects[(5, "crd")] = "ο λζ δ"
-    rows[40][3] = "λ"               # crd 20;30: seconds 'λδ' lost its second letter
+    rows[40][3] = "λ"               # crd 20;30 = 21;21,12: seconds 'ιβ' misread as 'λ'
     defects[(41, "crd")] = None
-    rows[200][5] = "ι"              # sixtieths of 100;30: a place misread
+    rows[200][5] = "ι"              # sixtieths of 100;30 = 0;0,40,4: a zero sign read as 'ι'
     defects[(201, "six")] = None
     header = ["arc", "crd_d", "crd_m", "crd_s", "six_d", "six_m", "six_s", "six_t"]
     path = tmp_path / "chords_greek.tsv"
@@ -161,6 +161,8 @@ def test_a_greek_chord_table_in_place_columns_with_recognition_defects(tmp_path)
     by = {(f["row"], f["column"]): f for f in d["flags"]}
     assert by[(5, "crd")]["written"] == "ο λζ δ"       # the flag shows the whole number
     assert by[(5, "crd")]["expected_value"] == str(F(2) + F(37, 60) + F(4, 3600))
+    assert by[(5, "crd")]["expected"] == "β λζ δ"
+    assert by[(201, "six")]["expected"] == "𐆊 𐆊 μ δ"     # in the column's own zero sign
 
 
 # ---- the real text: chords stated in the running text of Almagest I.10 and I.12 -----------

@@ -131,7 +131,17 @@ class Column:
             sign = "-" if v < 0 else ""
             _, semi, tail = text.partition(";")
             text = f"{sign}{whole}" + (f";{tail}" if semi else "")
+        if cell.notation == "greek" and "ō" in text and self.zero_sign != "ō":
+            text = text.replace("ō", self.zero_sign)   # the zero sign this column writes
         return text
+
+    @functools.cached_property
+    def zero_sign(self) -> str:
+        """The Greek zero sign the column's cells write (𐆊 or ō)."""
+        for c in self.cells:
+            if "𐆊" in c.text:
+                return "𐆊"
+        return "ō"
 
 
 @dataclass
