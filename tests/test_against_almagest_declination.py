@@ -82,3 +82,18 @@ def test_the_model_can_be_forced(tmp_path):
                              [[argument_text(x) for x in lams], [sexa(v, 2) for v in dec]],
                              model="decl=declination")
     assert schemes["decl"]["model"] == "declination"
+
+
+def test_a_declination_table_by_degrees_of_the_signs(tmp_path):
+    # the argument written as degrees within the zodiacal signs (common practice of the tables)
+    signs = ["Aries", "Taurus", "Gemini", "Cancer", "Leo", "Virgo", "Libra", "Scorpius",
+             "Sagittarius", "Capricornus", "Aquarius", "Pisces"]
+    lams = [F(2 * i) for i in range(1, 180)]
+    dec = [rounded(declination(float(x), float(EPSILON)), 2) for x in lams]
+    written = list(dec)
+    written[50] += F(1, 60)
+    result, schemes = _audit(tmp_path, "signs.tsv", ["lon", "decl"],
+                             [[f"{int(x % 30)} {signs[int(x // 30)]}" for x in lams],
+                              [sexa(v, 2) for v in written]])
+    assert schemes["decl"]["parameters"][0]["estimate"] == "23;51,20"
+    assert [(f["row"], f["expected"]) for f in result.flags] == [(51, sexa(dec[50], 2))]

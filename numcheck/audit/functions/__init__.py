@@ -52,7 +52,7 @@ def parse_models(text) -> dict[str | None, Model]:
 
 def _argument(frame: Frame, chosen: dict[str, Scheme], forced: bool) -> str | None:
     for name, s in chosen.items():
-        if s.kind == "linear" and not s.modulus and s.support >= 0.5:
+        if s.kind == "linear" and s.support >= 0.5:
             vals = [frame.fraction(v) for v in frame.written[name] if v is not None]
             if vals and -360 <= min(vals) and max(vals) <= 720:
                 return name
