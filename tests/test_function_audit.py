@@ -45,6 +45,7 @@ def test_an_interpolated_table_is_recognised_and_checked_against_its_method():
     assert s["model"] == "sine" and s["parameters"][0]["estimate"] == "1,0"
     assert s["interpolation"] != "none" and s["interpolation"]["step"] == 6
     assert s["interpolation"]["nodes"][:3] == [1, 7, 13]
+    assert s["interpolation"]["node_arguments"][:3] == ["0", "6", "12"]
     assert {f["row"] for f in result.flags} == set(slips)
     by = {f["row"]: f for f in result.flags}
     assert by[20]["expected"] == sexa(values[19], 2)      # the interpolated value, not the sine

@@ -123,6 +123,18 @@ class FunctionScheme(Scheme):
         return {"model": self.model.name, "argument": self.argument,
                 self.model.parameter: sexagesimal_text(self.fit.exact)}
 
+    def _interpolation(self):
+        if not self.interpolation:
+            return "none"
+        step, first = self.interpolation.step, self.interpolation.offset
+        rows = list(range(first, self.frame.nrows, step))
+        args = self.frame.written[self.argument]
+        known = [args[i] for i in rows if args[i] is not None]
+        out = {"step": step, "nodes": [i + 1 for i in rows]}
+        if len(known) >= 2:
+            out["node_arguments"] = [sexagesimal_text(self.frame.fraction(a)) for a in known]
+        return out
+
     def to_dict(self) -> dict:
         out = super().to_dict()
         fit = self.fit
@@ -135,11 +147,7 @@ class FunctionScheme(Scheme):
             "rounding": fit.rounding,
             "places": self.places,
             "tolerance_units": fit.tolerance,
-            "interpolation": ({"step": self.interpolation.step,
-                               "nodes": [self.interpolation.offset + 1 + k * self.interpolation.step
-                                         for k in range((self.frame.nrows - 1 - self.interpolation.offset)
-                                                        // self.interpolation.step + 1)]}
-                              if self.interpolation else "none"),
+            "interpolation": self._interpolation(),
             "cells_fit": fit.n_fit,
             "cells_within_precision": fit.n_precision,
             "within_precision_rows": self.rows(1),
