@@ -11,8 +11,10 @@
   of squared residuals (closed form for a model proportional to its
   parameter; Gauss–Newton otherwise).
 
-The parameter the author used is then the value of fewest sexagesimal places
-inside the interval, nearest the least-squares value (``models.nice``).
+The parameter the author used is then a published value of the model (its
+``usual`` values) inside the interval, or else the value of fewest
+sexagesimal places inside the wider interval that one more unit of the last
+place allows, nearest the least-squares value (``models.nice``).
 
 Residuals are in units of the last place: for a rounded table a cell fits
 when |w − f| ≤ u/2; a cell off by up to one more unit is within the table's
@@ -23,6 +25,7 @@ table's tolerance it is a slip.
 from __future__ import annotations
 
 from dataclasses import dataclass, field
+from fractions import Fraction
 
 import numpy as np
 
@@ -253,7 +256,10 @@ def fit_model(model: Model, x, w, u, rounding: str, mask=None) -> Fit | None:
     region2 = deepest(plo2, phi2, prefer=ls)
     wlow, whigh = (region2[0], region2[1]) if region2 else (low, high)
     wlow, whigh = min(wlow, low), max(whigh, high)
-    exact = nice(ls, wlow, whigh)
+    # a published value inside the strict interval is the author's; else the roundest value
+    usual = [Fraction(v).limit_denominator(60 ** 3) for v in model.usual]
+    inside = [v for v in usual if low <= v <= high]
+    exact = min(inside, key=lambda v: abs(v - ls)) if inside else nice(ls, wlow, whigh)
     est = float(exact)
     f = model(x, est)
     r = np.where(known, (w - f) / u, np.nan)

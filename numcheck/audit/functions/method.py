@@ -21,7 +21,7 @@ from .models import Model
 __all__ = ["Interpolation", "best_fit", "interpolated", "find_interpolation", "find_steps", "STEPS"]
 
 #: Node steps (in lines) tried for distributed linear interpolation.
-STEPS = (2, 3, 4, 5, 6, 8, 10, 12, 15)
+STEPS = (2, 3, 4, 5, 6, 8, 10, 12, 15, 20, 24, 30)
 
 
 @dataclass

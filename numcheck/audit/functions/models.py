@@ -63,7 +63,6 @@ class Model:
     source: str
     f: Callable = field(repr=False)
     linear: bool = False         # f(x; p) = p · g(x): the parameter's bounds are exact quotients
-    domain: tuple[float, float] = (0.0, 360.0)   # arguments for which the model is used
     aliases: tuple[str, ...] = ()
 
     def __call__(self, x, p):
@@ -113,42 +112,42 @@ def longest_day_from_latitude(phi: float, eps: float = PTOLEMY_OBLIQUITY) -> flo
 MODELS: dict[str, Model] = {m.name: m for m in [
     Model("chord", "crd a = 2R sin(a/2)", "R", "parts", 0.01, 1e6, (60.0, 120.0),
           "Ptolemy, Almagest I.10-11 (R = 60); Toomer 1984 (from memory)",
-          lambda x, p: 2 * p * np.sin(x * _RAD / 2), linear=True, domain=(0.0, 360.0)),
+          lambda x, p: 2 * p * np.sin(x * _RAD / 2), linear=True),
     Model("sine", "Sin a = R sin a", "R", "parts", 0.01, 1e6, (60.0, 150.0, 3438.0, 1.0, 120.0),
           "Āryabhaṭīya, Gītikā 12 (R = 3438); Paitāmahasiddhānta (R = 150); zījes (R = 60) "
           "(from memory)",
-          lambda x, p: p * np.sin(x * _RAD), linear=True, domain=(0.0, 180.0)),
+          lambda x, p: p * np.sin(x * _RAD), linear=True),
     Model("cosine", "Cos a = R cos a", "R", "parts", 0.01, 1e6, (60.0, 150.0, 3438.0, 1.0),
           "common practice (the sine of the complement)",
-          lambda x, p: p * np.cos(x * _RAD), linear=True, domain=(0.0, 90.0)),
+          lambda x, p: p * np.cos(x * _RAD), linear=True),
     Model("versine", "Vers a = R (1 − cos a)", "R", "parts", 0.01, 1e6, (60.0, 150.0, 3438.0, 1.0),
           "common practice (Indian utkramajyā; from memory)",
-          lambda x, p: p * (1 - np.cos(x * _RAD)), linear=True, domain=(0.0, 180.0)),
+          lambda x, p: p * (1 - np.cos(x * _RAD)), linear=True),
     Model("declination", "δ = arcsin(sin ε sin λ)", "ε", "degrees", 1.0, 45.0,
           (PTOLEMY_OBLIQUITY, 23.5, 23 + 35 / 60, 23 + 33 / 60, 24.0),
           "Ptolemy, Almagest I.15 (ε = 23;51,20); Toomer 1984 (from memory)",
-          lambda x, p: np.abs(_dec(x, p)), domain=(0.0, 360.0)),
+          lambda x, p: np.abs(_dec(x, p))),
     Model("right-ascension", "α = arctan(cos ε tan λ), in the quadrant of λ", "ε", "degrees",
           1.0, 45.0, (PTOLEMY_OBLIQUITY, 23.5, 23 + 35 / 60, 24.0),
-          "Ptolemy, Almagest I.16 (from memory)", _ra, domain=(0.0, 360.0)),
+          "Ptolemy, Almagest I.16 (from memory)", _ra),
     Model("oblique-ascension", "ρ = α − arcsin(tan φ tan δ), ε = 23;51,20", "φ", "degrees",
           0.0, 66.0, (30 + 22 / 60, 36.0, 16 + 27 / 60, 23 + 51 / 60),
           "Ptolemy, Almagest II.7-8 (latitude φ or longest day; from memory)",
-          _oblique, domain=(0.0, 360.0)),
+          _oblique),
     Model("equation", "q = arctan(e sin a / (60 + e cos a))", "e", "parts of 60",
           0.001, 59.0, (2.5, 5.25, 6.5, 11.5, 22.5, 39.5, 43 + 10 / 60),
           "eccentre or epicycle (Apollonius' equivalence): Almagest III.6 sun e = 2;30, IV.10 moon "
           "r = 5;15, XI.11 anomaly r (Saturn 6;30, Jupiter 11;30, Mars 39;30, Venus 43;10) "
           "(from memory)",
-          _equation, domain=(0.0, 360.0),
+          _equation,
           aliases=("equation-of-centre", "eccentre", "epicycle", "anomaly")),
     Model("shadow", "s = g cot h", "g", "units of the gnomon", 0.01, 1e4, (12.0, 7.0, 6.5),
           "gnomon of 12 digits or 7 feet: al-Khwārizmī, al-Bīrūnī (from memory)",
-          lambda x, p: p / np.tan(x * _RAD), linear=True, domain=(0.5, 90.0)),
+          lambda x, p: p / np.tan(x * _RAD), linear=True),
     Model("daylight", "D = 12 + (2/15) arcsin(tan φ tan δ) hours, ε = 23;51,20", "φ", "degrees",
           0.0, 66.0, (30 + 22 / 60, 36.0, 16 + 27 / 60, 23 + 51 / 60),
           "Ptolemy, Almagest II.8 (from memory)",
-          _daylight, domain=(0.0, 360.0)),
+          _daylight),
 ]}
 
 #: The models tried when none is forced (the aliases of the equation are one formula).
