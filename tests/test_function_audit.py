@@ -224,3 +224,21 @@ def test_a_folder_audit_takes_the_model_option(tmp_path):
     with contextlib.redirect_stdout(out), contextlib.redirect_stderr(out):
         assert main(["audit", str(tmp_path), "--model", "sinus"]) != 0
     assert "Unknown model 'sinus'" in out.getvalue()
+
+
+def test_interpolation_with_nodes_off_the_first_line_and_a_slip_in_a_node():
+    from functiongen import declination
+    eps = 23 + 51 / 60 + 20 / 3600        # Almagest I.12 (from memory)
+    args = [F(i) for i in range(0, 91)]
+    values = interpolate(lambda a: declination(a, eps), args, 5, 2)
+    args, values = args[3:], values[3:]   # the table starts at 3°: its first node is its row 3
+    written = list(values)
+    written[12] += F(10, 60)               # row 13 (15°) is a node
+    written[30] += F(1, 60)
+    df = pd.DataFrame({"lon": [argument_text(a) for a in args], "d": [sexa(v, 2) for v in written]})
+    result = audit(df)
+    s = {x["column"]: x for x in result.to_dict()["schemes"]}["d"]
+    assert s["model"] == "declination" and s["parameters"][0]["estimate"] == "23;51,20"
+    assert s["interpolation"]["step"] == 5 and s["interpolation"]["nodes"][:2] == [3, 8]
+    assert [(f["row"], f["expected"]) for f in result.flags] == [
+        (13, sexa(values[12], 2)), (31, sexa(values[30], 2))]

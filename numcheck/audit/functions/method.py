@@ -71,6 +71,24 @@ def interpolated(model: Model, x, w, u, p: float, rounding: str, interp: Interpo
         out[a:b + 1] = _round(node_values[a] + t * (node_values[b] - node_values[a]), u, rounding)
         out[a] = node_values[a] if own[a] else exact_nodes[a]
         out[b] = node_values[b] if own[b] else exact_nodes[b]
+    # lines before the first node and after the last: from the nodes beyond the table's
+    # ends, computed by the model as the author would have
+    known_x = x[~np.isnan(x)]
+    h = float(np.median(np.diff(known_x))) if len(known_x) > 1 else 0.0
+    k = interp.step
+    if len(idx) and h:
+        first, last = idx[0], idx[-1]
+        if first > 0 and not np.isnan(x[first]):
+            before = float(_round(model(x[first] - k * h, p), u, rounding))
+            j = np.arange(first - k + 1, first)
+            keep = j >= 0
+            t = (j[keep] - (first - k)) / k
+            out[j[keep]] = _round(before + t * (node_values[first] - before), u, rounding)
+        if last < n - 1 and not np.isnan(x[last]):
+            after = float(_round(model(x[last] + k * h, p), u, rounding))
+            j = np.arange(last + 1, min(n, last + k))
+            t = (j - last) / k
+            out[j] = _round(node_values[last] + t * (after - node_values[last]), u, rounding)
     return out
 
 
