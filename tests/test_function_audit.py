@@ -242,3 +242,23 @@ def test_interpolation_with_nodes_off_the_first_line_and_a_slip_in_a_node():
     assert s["interpolation"]["step"] == 5 and s["interpolation"]["nodes"][:2] == [3, 8]
     assert [(f["row"], f["expected"]) for f in result.flags] == [
         (13, sexa(values[12], 2)), (31, sexa(values[30], 2))]
+
+
+from hypothesis import given, settings  # noqa: E402
+from hypothesis import strategies as st  # noqa: E402
+
+_names = st.sampled_from(["a", "b", "c°", "c′", "c″", "d deg", "d min", "x_d", "x_m", "x_s", "c"])
+
+
+@settings(max_examples=200, deadline=None)
+@given(header=st.lists(_names, min_size=1, max_size=6, unique=True),
+       cells=st.lists(st.sampled_from(["1", "59", "[x]", "α", "𐆊", "", "1;2", "-3"]), min_size=6,
+                      max_size=6),
+       join=st.sampled_from([None, "j=a,b", "j=c,a", "k=a", "a=b,c", "j=a,b;k=a,c", "z=q,r"]))
+def test_joins_fail_only_with_our_errors(header, cells, join):
+    rows = [cells[:len(header)]]
+    try:
+        new_header, new_rows = join_columns(header, rows, join)
+    except NumcheckError:
+        return
+    assert len(new_header) == len(new_rows[0]) and len(set(new_header)) == len(new_header)
