@@ -80,8 +80,12 @@ def _column_fit_quiet(frame, name, argument, models, forced):
     steps = find_steps(w, u)
     if len(models) > _SHORTLIST:
         # a quick score first; the full fit (two roundings, intervals) for the best few
-        scores = [(screen(m, x, w, u), -k) for k, m in enumerate(models)]
-        models = [models[-k] for _, k in sorted(scores, reverse=True)[:_SHORTLIST]]
+        scores = sorted(((screen(m, x, w, u), -k) for k, m in enumerate(models)), reverse=True)
+        top = scores[0][0]
+        # a model that explains most lines leaves out the ones that explain less than half as
+        # many (an interpolated table explains few lines exactly: then the best few are kept)
+        clear = top * 2 >= min(len(w), 360)
+        models = [models[-k] for score, k in scores[:_SHORTLIST] if not clear or score * 2 >= top]
     options = []
     for m in models:
         exact = best_fit(m, x, w, u)
