@@ -262,3 +262,13 @@ def test_joins_fail_only_with_our_errors(header, cells, join):
     except NumcheckError:
         return
     assert len(new_header) == len(new_rows[0]) and len(set(new_header)) == len(new_header)
+
+
+def test_a_line_number_beside_the_arc_is_not_taken_for_the_argument():
+    args = [F(i, 2) for i in range(1, 121)]
+    df = pd.DataFrame({"line": [str(i + 1) for i in range(len(args))],
+                       "arc": [argument_text(a) for a in args],
+                       "crd": [sexa(rounded(120 * math.sin(math.radians(float(a) / 2)), 2), 2)
+                               for a in args]})
+    s = {x["column"]: x for x in audit(df).to_dict()["schemes"]}["crd"]
+    assert s["argument"] == "arc" and s["model"] == "chord" and s["cells_fit"] == 120

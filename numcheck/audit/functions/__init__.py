@@ -50,15 +50,17 @@ def parse_models(text) -> dict[str | None, Model]:
     return out
 
 
-def _argument(frame: Frame, chosen: dict[str, Scheme], forced: bool) -> str | None:
+def _arguments(frame: Frame, chosen: dict[str, Scheme], forced: bool) -> list[str]:
+    """The columns that may be the argument: a constant step, values within the circle."""
+    out = []
     for name, s in chosen.items():
         if s.kind == "linear" and s.support >= 0.5:
             vals = [frame.fraction(v) for v in frame.written[name] if v is not None]
             if vals and -360 <= min(vals) and max(vals) <= 720:
-                return name
-    if forced and frame.names:
-        return frame.names[0]
-    return None
+                out.append(name)
+    if not out and forced and frame.names:
+        out.append(frame.names[0])
+    return out
 
 
 def _floats(frame: Frame, name: str) -> np.ndarray:
@@ -123,17 +125,18 @@ def fit_functions(frame: Frame, chosen: dict[str, Scheme], model=None) -> None:
         if column is not None and column not in frame.names:
             raise NumcheckError(f"--model names column {column!r}, but the table's columns are "
                                 f"{', '.join(frame.names)}.")
-    argument = _argument(frame, chosen, bool(forced))
-    if argument is None:
+    arguments = _arguments(frame, chosen, bool(forced))
+    if not arguments:
         return
     functions: list[FunctionScheme] = []
     # a column that another column follows exactly is the scribe's own data (the differences
     # of a running sum): a model would only blur it
     sources = {i for s in chosen.values() if s.support == 1.0 for i in s.inputs}
     for name in frame.names:
-        if name == argument or (name in sources and name not in forced):
+        if name in arguments or (name in sources and name not in forced):
             continue
         current = chosen.get(name)
+        asked = name in forced or None in forced
         if name in forced:
             models = [forced[name]]
         elif None in forced:
@@ -144,16 +147,22 @@ def fit_functions(frame: Frame, chosen: dict[str, Scheme], model=None) -> None:
             models = [MODELS[m] for m in AUTOMATIC]
         if current is not None and current.support == 1.0 and name not in forced:
             continue
-        scheme = _column_fit(frame, name, argument, models, forced=bool(forced))
+        scheme = None
+        for argument in arguments:     # a line number beside the arc: the better argument wins
+            got = _column_fit(frame, name, argument, models, forced=asked)
+            if got is None:
+                continue
+            got.support = support_row(got, frame.written[name], frame.written)
+            if scheme is None or got.support > scheme.support:
+                scheme = got
         if scheme is None:
             continue
-        scheme.support = support_row(scheme, frame.written[name], frame.written)
-        if current is None or scheme.support > current.support or name in forced or None in forced:
+        if current is None or scheme.support > current.support or asked:
             chosen[name] = scheme
             functions.append(scheme)
     if not functions:
         return
-    free = [n for n in frame.names if n != argument]
+    free = [n for n in frame.names if n not in arguments]
     for s in fit_differences(frame, functions, free):
         current = chosen.get(s.column)
         if current is None or s.support > current.support:
