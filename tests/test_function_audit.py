@@ -272,3 +272,22 @@ def test_a_line_number_beside_the_arc_is_not_taken_for_the_argument():
                                for a in args]})
     s = {x["column"]: x for x in audit(df).to_dict()["schemes"]}["crd"]
     assert s["argument"] == "arc" and s["model"] == "chord" and s["cells_fit"] == 120
+
+
+def test_oblique_ascensions_with_another_obliquity_name_it():
+    # oblique ascensions for φ = 36° computed with the Toledan obliquity 23;33,30 (from memory)
+    eps = math.radians(23 + 33 / 60 + 30 / 3600)
+
+    def rho(lam):
+        ra = math.degrees(math.atan2(math.cos(eps) * math.sin(math.radians(lam)),
+                                     math.cos(math.radians(lam)))) % 360
+        d = math.asin(math.sin(eps) * math.sin(math.radians(lam)))
+        return (ra - math.degrees(math.asin(math.tan(math.radians(36)) * math.tan(d)))) % 360
+
+    args = [10 * i for i in range(1, 36)]
+    df = pd.DataFrame({"lon": [str(a) for a in args], "asc": [sexa(rounded(rho(a), 2), 2) for a in args]})
+    s = {x["column"]: x for x in audit(df).to_dict()["schemes"]}["asc"]
+    assert s["model"] == "oblique-ascension"
+    phi, fixed = s["parameters"]
+    assert phi["estimate"] == "36" and fixed["name"] == "ε" and fixed["estimate"] == "23;33,30"
+    assert fixed["fixed"] is True

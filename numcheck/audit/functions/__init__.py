@@ -20,7 +20,7 @@ from ..schemes import Frame, Scheme
 from .differences import DifferenceScheme, fit_differences
 from .estimate import screen
 from .method import best_fit, find_interpolation, find_steps
-from .models import AUTOMATIC, MODELS, Model, model_named
+from .models import AUTOMATIC, MODELS, Model, model_named, variants
 from .scheme import FunctionScheme, column_places
 
 __all__ = ["fit_functions", "FunctionScheme", "DifferenceScheme", "MODELS", "model_named",
@@ -29,7 +29,7 @@ __all__ = ["fit_functions", "FunctionScheme", "DifferenceScheme", "MODELS", "mod
 #: Share of the known cells a model must explain (within precision) to be chosen.
 _MIN_SHARE = 0.5
 #: Models given the full fit after the quick score (the others cannot win).
-_SHORTLIST = 3
+_SHORTLIST = 4
 #: Fewest known cells for a model to be chosen by itself (not forced with --model).
 _MIN_CELLS = 8
 
@@ -138,13 +138,13 @@ def fit_functions(frame: Frame, chosen: dict[str, Scheme], model=None) -> None:
         current = chosen.get(name)
         asked = name in forced or None in forced
         if name in forced:
-            models = [forced[name]]
+            models = variants(forced[name])
         elif None in forced:
-            models = [forced[None]]
+            models = variants(forced[None])
         elif current is not None and current.support >= 0.9:
             continue
         else:
-            models = [MODELS[m] for m in AUTOMATIC]
+            models = [v for m in AUTOMATIC for v in variants(MODELS[m])]
         if current is not None and current.support == 1.0 and name not in forced:
             continue
         scheme = None

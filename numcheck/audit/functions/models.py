@@ -35,13 +35,13 @@ Sources of the formulas (the trade's standard ones):
 
 from __future__ import annotations
 
-from dataclasses import dataclass, field
+from dataclasses import dataclass, field, replace
 from fractions import Fraction
 from typing import Callable
 
 import numpy as np
 
-__all__ = ["Model", "MODELS", "AUTOMATIC", "model_named", "PTOLEMY_OBLIQUITY",
+__all__ = ["Model", "MODELS", "AUTOMATIC", "OBLIQUITIES", "variants", "model_named", "PTOLEMY_OBLIQUITY",
            "latitude_from_longest_day", "longest_day_from_latitude"]
 
 #: Ptolemy's obliquity of the ecliptic, 23;51,20 degrees (Almagest I.12/I.15).
@@ -64,6 +64,7 @@ class Model:
     f: Callable = field(repr=False)
     linear: bool = False         # f(x; p) = p · g(x): the parameter's bounds are exact quotients
     aliases: tuple[str, ...] = ()
+    fixed: tuple = ()            # (name, value, source) of a second parameter taken as published
 
     def __call__(self, x, p):
         with np.errstate(all="ignore"):
@@ -84,8 +85,8 @@ def _ascensional(lam, phi, eps=PTOLEMY_OBLIQUITY):
     return np.degrees(np.arcsin(np.clip(t, -1, 1)))
 
 
-def _oblique(lam, phi):
-    out = _ra(lam, PTOLEMY_OBLIQUITY) - _ascensional(lam, phi)
+def _oblique(lam, phi, eps=PTOLEMY_OBLIQUITY):
+    out = _ra(lam, eps) - _ascensional(lam, phi, eps)
     return np.where(out < 0, out + 360, out)
 
 
@@ -93,8 +94,8 @@ def _equation(a, e):
     return np.abs(np.degrees(np.arctan2(e * np.sin(a * _RAD), 60 + e * np.cos(a * _RAD))))
 
 
-def _daylight(lam, phi):
-    return 12 + 2 / 15 * _ascensional(lam, phi)
+def _daylight(lam, phi, eps=PTOLEMY_OBLIQUITY):
+    return 12 + 2 / 15 * _ascensional(lam, phi, eps)
 
 
 def latitude_from_longest_day(hours: float, eps: float = PTOLEMY_OBLIQUITY) -> float:
@@ -152,6 +153,26 @@ MODELS: dict[str, Model] = {m.name: m for m in [
 
 #: The models tried when none is forced (the aliases of the equation are one formula).
 AUTOMATIC = tuple(MODELS)
+
+#: Published obliquities a table of oblique ascensions or of daylight may be computed with
+#: (from memory): Ptolemy 23;51,20 (Almagest I.12); al-Battānī 23;35; the Toledan and
+#: Alfonsine tables 23;33,30; Ulugh Beg 23;30,17.
+OBLIQUITIES = ((PTOLEMY_OBLIQUITY, "23;51,20", "Ptolemy, Almagest I.12"),
+               (23 + 35 / 60, "23;35", "al-Battānī, Zīj"),
+               (23 + 33 / 60 + 30 / 3600, "23;33,30", "Toledan and Alfonsine tables"),
+               (23 + 30 / 60 + 17 / 3600, "23;30,17", "Ulugh Beg, Zīj"))
+
+
+def variants(model: Model) -> list[Model]:
+    """The model with each published value of its second parameter (ε for ascensions, daylight)."""
+    if model.name not in ("oblique-ascension", "daylight"):
+        return [model]
+    base = _oblique if model.name == "oblique-ascension" else _daylight
+    out = []
+    for eps, text, source in OBLIQUITIES:
+        out.append(replace(model, formula=model.formula.replace("23;51,20", text),
+                           f=(lambda x, p, e=eps: base(x, p, e)), fixed=(("ε", eps, source),)))
+    return out
 
 
 def model_named(name: str) -> Model:

@@ -143,7 +143,10 @@ class FunctionScheme(Scheme):
             "formula": self.model.formula,
             "model_source": self.model.source,
             "argument": self.argument,
-            "parameters": [self.parameter()],
+            "parameters": [self.parameter()] + [
+                {"name": n, "estimate": sexagesimal_text(Fraction(v).limit_denominator(60 ** 3)),
+                 "estimate_decimal": v, "fixed": True, "source": src}
+                for n, v, src in fit.model.fixed],
             "rounding": fit.rounding,
             "places": self.places,
             "tolerance_units": fit.tolerance,
