@@ -36,6 +36,7 @@ __all__ = ["Fit", "fit_model", "screen", "cell_intervals", "deepest", "least_squ
 _EPS = 1e-7          # in units of the last place: float noise of the model
 _SAMPLE = 360        # lines used by the quick score of a model
 _ITER = 48           # bisection steps (the range shrinks by 2**-48)
+_SCREEN_ITER = 24    # enough to rank the models
 
 
 @dataclass
@@ -79,13 +80,13 @@ def _bounds(w, u, rounding):
     return w - u * (0.5 + _EPS), w + u * (0.5 + _EPS)
 
 
-def _solve(model: Model, x, target, a: float, b: float):
+def _solve(model: Model, x, target, a: float, b: float, iterations: int = _ITER):
     """Per cell, the parameter in [a, b] where f(x; p) = target (clipped to a or b)."""
     fa, fb = model(x, a), model(x, b)
     rising = fb >= fa
     lo = np.full(x.shape, a, dtype=float)
     hi = np.full(x.shape, b, dtype=float)
-    for _ in range(_ITER):
+    for _ in range(iterations):
         mid = (lo + hi) / 2
         fm = model(x, mid)
         below = np.where(rising, fm < target, fm > target)
@@ -94,7 +95,7 @@ def _solve(model: Model, x, target, a: float, b: float):
     return (lo + hi) / 2
 
 
-def cell_intervals(model: Model, x, lo, hi, a=None, b=None):
+def cell_intervals(model: Model, x, lo, hi, a=None, b=None, iterations: int = _ITER):
     """(plow, phigh) per cell: the parameters for which the model lies in [lo, hi] (nan: none)."""
     a = model.low if a is None else a
     b = model.high if b is None else b
@@ -115,7 +116,8 @@ def cell_intervals(model: Model, x, lo, hi, a=None, b=None):
     else:
         fa, fb = model(x, a), model(x, b)
         flat = np.abs(fb - fa) < 1e-12
-        p1, p2 = _solve(model, x, lo, a, b), _solve(model, x, hi, a, b)
+        p1 = _solve(model, x, lo, a, b, iterations)
+        p2 = p1 if hi is lo else _solve(model, x, hi, a, b, iterations)
         plo, phi = np.minimum(p1, p2), np.maximum(p1, p2)
         fmin, fmax = np.minimum(fa, fb), np.maximum(fa, fb)
         miss = (hi < fmin) | (lo > fmax)
@@ -212,7 +214,8 @@ def screen(model: Model, x, w, u) -> int:
         return 0
     if len(known) > _SAMPLE:   # a long table: evenly spread lines are enough to rank the models
         known = known[np.linspace(0, len(known) - 1, _SAMPLE).astype(int)]
-    plo, phi = cell_intervals(model, x[known], w[known], w[known])
+    target = w[known]
+    plo, phi = cell_intervals(model, x[known], target, target, iterations=_SCREEN_ITER)
     mids = plo[~np.isnan(plo)]
     if not len(mids):
         return 0
