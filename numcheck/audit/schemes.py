@@ -255,7 +255,8 @@ def _segments(pairs, d) -> list:
     k = 0
     while k < len(pairs):
         i, x = pairs[k]
-        if x != current:
+        # a difference that reverses the current one is a turn (a zigzag), not a change
+        if x != current and x != -current:
             run = 1
             while (k + run < len(pairs) and pairs[k + run][1] == x
                    and pairs[k + run][0] == pairs[k + run - 1][0] + 1):

@@ -22,22 +22,43 @@ __all__ = ["ZigzagScheme"]
 
 
 class ZigzagScheme(Scheme):
-    """A linear zigzag function with difference d between m and M."""
+    """A linear zigzag function with difference d between m and M.
+
+    An extreme the lines do not determine (a fragment that shows only one
+    turn) is ``None``: the column is then checked only where the scheme
+    decides, that is between the values its lines show (``low``..``high``),
+    and ``unknown`` names the missing parameters.
+    """
 
     kind = "zigzag"
 
     def __init__(self, column, frame, d, M, m):
         super().__init__(column, frame)
         self.d, self.M, self.m = d, M, m
+        known = [v for v in frame.written.get(column, ()) if v is not None]
+        self.low = min(known) if known else None
+        self.high = max(known) if known else None
+        self.published = []          # the catalogue schemes it agrees with (numcheck.audit.published)
+        self.stated = None           # the text or catalogue id of a scheme the user stated
+
+    @property
+    def unknown(self) -> list[str]:
+        return [name for name, v in (("M", self.M), ("m", self.m)) if v is None]
 
     # state: (value, direction of the next step: +1 rising, -1 falling)
     def step(self, state, i, src):
         v, direction = state
         nv = v + direction * self.d
-        if direction > 0 and self.M is not None and nv >= self.M:
-            return (2 * self.M - nv, -1)
-        if direction < 0 and self.m is not None and nv <= self.m:
-            return (2 * self.m - nv, 1)
+        if direction > 0:
+            if self.M is not None and nv >= self.M:
+                return (2 * self.M - nv, -1)
+            if self.M is None and self.high is not None and nv > self.high:
+                return None     # beyond every line shown, with M unknown: undecided
+        if direction < 0:
+            if self.m is not None and nv <= self.m:
+                return (2 * self.m - nv, 1)
+            if self.m is None and self.low is not None and nv < self.low:
+                return None
         return (nv, direction)
 
     def _inside(self, v) -> bool:
@@ -48,7 +69,7 @@ class ZigzagScheme(Scheme):
             return None
         for direction in (1, -1):
             got = self.step((value, direction), i + 1, src)
-            if got[0] == nxt:
+            if got is not None and got[0] == nxt:
                 return (value, direction)
         return None
 
@@ -75,7 +96,10 @@ class ZigzagScheme(Scheme):
         v, direction = prev
         straight = v + direction * self.d
         turned = v - direction * self.d
-        due = self.step(prev, i, src)[0]
+        got = self.step(prev, i, src)
+        if got is None:
+            return None
+        due = got[0]
         if due != straight and written == straight:
             from ..slips import Diagnosis
             limit = "maximum" if direction > 0 else "minimum"
@@ -106,6 +130,15 @@ class ZigzagScheme(Scheme):
             match = _period_relation(self.period)
             if match is not None:
                 out["period_relation"] = match
+        if self.unknown:
+            out["unknown"] = list(self.unknown)
+        if self.stated:
+            out["stated"] = self.stated
+        return out
+
+    def to_dict(self):
+        out = super().to_dict()
+        out["published"] = [dict(p) for p in self.published]
         return out
 
     def describe(self):
@@ -117,10 +150,24 @@ class ZigzagScheme(Scheme):
             parts.append(f"m = {sexagesimal_text(f(self.m))}")
         if self.period is not None:
             parts.append(f"P = {sexagesimal_text(self.period)} lines ({exact_text(self.period)})")
-        return "linear zigzag, " + ", ".join(parts)
+        text = "linear zigzag, " + ", ".join(parts)
+        if self.unknown:
+            text += (f"; {' and '.join(self.unknown)} not determined by these lines "
+                     "(checked only between the values they show)")
+        return text
 
     @classmethod
     def fit(cls, column, frame):
+        """d from the commonest difference; M and m from votes of the pairs that straddle a turn.
+
+        Any two lines i < j (at most ``_WINDOW`` apart) whose values differ by
+        less than (j − i)·d have a turn between them: M = (y_i + y_j + (j − i)·d)/2
+        if it is a maximum, m = (y_i + y_j − (j − i)·d)/2 if a minimum.  A true
+        extreme is proposed by every pair of good lines around its turn, so a
+        slip next to a turn (which spoils the pairs that use it) does not move
+        it; the commonest proposals are then tried, with "unknown" among them,
+        and the pair that explains the most lines wins (ties: fewer parameters).
+        """
         values = frame.written[column]
         pairs = diffs(values)
         if len(pairs) < 4:
@@ -128,47 +175,101 @@ class ZigzagScheme(Scheme):
         d, n = mode([abs(x) for _, x in pairs])
         if not d or n * 2 <= len(pairs):
             return None
-        dmap = dict(pairs)  # row index i -> y_i - y_{i-1}
-        maxima, minima = [], []
-        for i, _ in pairs:
-            # the pair (i, i+1) straddles a turn when the line before rose by d
-            # and the line after falls by d (or the converse at a minimum)
-            before, after = dmap.get(i), dmap.get(i + 2)
-            if before is None or after is None or i + 1 >= len(values) or values[i + 1] is None:
-                continue
-            total = values[i] + values[i + 1]
-            if before == d and after == -d:
-                maxima.append(_half(total + d))
-            elif before == -d and after == d:
-                minima.append(_half(total - d))
+        maxima, minima = _turn_votes(values[:_SAMPLE], d)
         if not maxima and not minima:
             return None
-        # The commonest turn values; where turns disagree (a slip at a turn),
-        # the pair that explains the most lines wins.
-        best, best_support = None, -1.0
+        best, best_score = None, (-1, -1.0)
         sample = values[:_SAMPLE]
         from .schemes import support_chained
-        for M in _commonest(maxima):
-            for m in _commonest(minima):
+        for M in [None] + _commonest(maxima):
+            for m in [None] + _commonest(minima):
                 if M is not None and m is not None and not m < M:
                     continue
+                if M is None and m is None:
+                    continue
                 scheme = cls(column, frame, d, M, m)
-                support = support_chained(scheme, sample, None)
-                if support > best_support:
-                    best, best_support = scheme, support
+                score = (chain_score(scheme, values[:_CHAIN_SAMPLE]),
+                         support_chained(scheme, sample, None))
+                if score > best_score:
+                    best, best_score = scheme, score
         return best
 
 
 #: Lines used to choose between turn values that disagree.
 _SAMPLE = 2000
+#: Lines over which whole chains are compared (a slip at a turn can
+#: explain its own pair of lines, never the lines after it).
+_CHAIN_SAMPLE = 240
+#: Lines a chain is anchored at, at most, when candidates are compared.
+_ANCHORS = 12
+#: How far apart two lines may be to propose the extreme of a turn between them.
+_WINDOW = 4
 
 
-def _commonest(values: list, k: int = 3) -> list:
-    """Up to *k* commonest values, commonest first ([None] when there are none)."""
-    if not values:
-        return [None]
+def chain_score(scheme, values: list) -> int:
+    """The most lines one chain of *scheme* explains, anchored at a pair of lines that agree.
+
+    Whole chains tell a true extreme from one a slip at a turn proposes: the
+    slipped value explains the pair it stands in, but the chain through it
+    misses every line after the turn.
+    """
+    n = len(values)
+    starts = [i for i in range(n - 1) if values[i] is not None and values[i + 1] is not None]
+    if len(starts) > _ANCHORS:
+        stride = len(starts) / _ANCHORS
+        starts = [starts[int(k * stride)] for k in range(_ANCHORS)]
+    best = 0
+    for i in starts:
+        st = scheme.start(values[i], i, values[i + 1], None)
+        if st is None:
+            continue
+        count, s = 1, st
+        for j in range(i + 1, n):
+            s = scheme.step(s, j, None)
+            if s is None:
+                break
+            count += values[j] == s[0]
+        s = st
+        for j in range(i - 1, -1, -1):
+            s = scheme.back(s, j + 1, None)
+            if s is None:
+                break
+            count += values[j] == s[0]
+        best = max(best, count)
+    return best
+
+
+def _turn_votes(values: list, d) -> tuple[list, list]:
+    """The extremes proposed by every pair of lines with a turn between them."""
     from collections import Counter
-    return [v for v, _ in Counter(values).most_common(k)]
+    maxima, minima = Counter(), Counter()
+    known = [(i, v) for i, v in enumerate(values) if v is not None]
+    for k, (i, yi) in enumerate(known):
+        for j, yj in known[k + 1:k + 1 + _WINDOW]:
+            s = j - i
+            if s > _WINDOW:
+                break
+            if abs(yj - yi) >= s * d:
+                continue    # a straight run (or a slip away from the turns): no turn between
+            total = yi + yj
+            maxima[_half(total + s * d)] += 1
+            minima[_half(total - s * d)] += 1
+    # an extreme must lie beyond (or on) the lines it is proposed by; one
+    # proposed by a single pair only is noise unless nothing better is there
+    return _ranked(maxima), _ranked(minima)
+
+
+def _ranked(counts) -> list:
+    if not counts:
+        return []
+    best = max(counts.values())
+    floor = 2 if best >= 2 else 1
+    return [v for v, c in counts.most_common() if c >= floor]
+
+
+def _commonest(values: list, k: int = 4) -> list:
+    """Up to *k* commonest values, commonest first (already ranked)."""
+    return list(values[:k])
 
 
 def _half(x):
