@@ -11,6 +11,7 @@ columns it is computed from.
 from __future__ import annotations
 
 from .columns import fit_cross
+from .published import match_column
 from .relation import RelationScheme, parse_relation
 from .schemes import (ConstantScheme, Frame, LinearScheme, Scheme, lcm_all, support_chained,
                       support_row)
@@ -78,7 +79,8 @@ def detect_schemes(frame: Frame, relation: str | None = None) -> list[Scheme]:
     for name in frame.names:
         if name in chosen:
             continue
-        own = _own(frame, name)
+        # the column's own fit, or the published scheme that explains it better
+        own = match_column(frame, name, _own(frame, name))
         if own is not None:
             chosen[name] = own
     taken = {n for n, s in chosen.items() if s is stated or s.support == 1.0}

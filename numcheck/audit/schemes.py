@@ -89,6 +89,8 @@ class Scheme:
         self.frame = frame
         self.modulus = frame.modulus.get(column)
         self.support = 0.0
+        #: the catalogue schemes this one agrees with (numcheck.audit.published)
+        self.published: list[dict] = []
 
     # -- output --------------------------------------------------------
     def params(self) -> dict:
@@ -99,7 +101,8 @@ class Scheme:
 
     def to_dict(self) -> dict:
         return {"column": self.column, "kind": self.kind, "params": self.params(),
-                "support": round(self.support, 4), "description": self.describe()}
+                "support": round(self.support, 4), "description": self.describe(),
+                "published": [dict(p) for p in self.published]}
 
     def _norm(self, v):
         return v % self.modulus if self.modulus else v

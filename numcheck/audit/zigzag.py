@@ -38,7 +38,6 @@ class ZigzagScheme(Scheme):
         known = [v for v in frame.written.get(column, ()) if v is not None]
         self.low = min(known) if known else None
         self.high = max(known) if known else None
-        self.published = []          # the catalogue schemes it agrees with (numcheck.audit.published)
         self.stated = None           # the text or catalogue id of a scheme the user stated
 
     @property
@@ -127,18 +126,13 @@ class ZigzagScheme(Scheme):
             out["mean"] = value_text(f(self.M + self.m) / 2)
             out["amplitude"] = value_text(f(self.M - self.m))
             out["period_lines"] = value_text(self.period)
-            match = _period_relation(self.period)
-            if match is not None:
-                out["period_relation"] = match
+            matches = [m for m in period_matches(self.period) if _fits(m, self.published)]
+            if matches:
+                out["period_relation"] = matches[0]
         if self.unknown:
             out["unknown"] = list(self.unknown)
         if self.stated:
             out["stated"] = self.stated
-        return out
-
-    def to_dict(self):
-        out = super().to_dict()
-        out["published"] = [dict(p) for p in self.published]
         return out
 
     def describe(self):
@@ -276,22 +270,73 @@ def _half(x):
     return x // 2 if isinstance(x, int) and x % 2 == 0 else Fraction(x) / 2
 
 
-def _period_relation(period: Fraction) -> dict | None:
-    """The catalogue entry whose value, or the ratio of two sides of a period
-    relation, is this period (when the catalogue is installed)."""
+#: Statement units that count cycles or time, so that a period in lines can
+#: be a ratio of two of them; units of measure (bēru, UŠ, degrees) never are.
+_CYCLE_WORDS = ("months", "periods", "revolutions", "years", "days", "tithis", "phenomena")
+
+
+def _cycle_unit(unit: str) -> bool:
+    u = unit.strip().lower()
+    return not u.startswith("degrees") and any(u.endswith(w) for w in _CYCLE_WORDS)
+
+
+def period_matches(period: Fraction) -> list[dict]:
+    """The catalogue relations this period in lines is a ratio of, with the units it implies.
+
+    Two sides a (the lines: synodic months, synodic phenomena, days) and b
+    (another cycle) give the period a/b, as 391 phenomena = 36 revolutions
+    gives Jupiter's 391/36; two cycles of one body also beat, a/(b − a), as
+    6247 synodic = 6695 anomalistic months gives System A's 6247/448 (the
+    anomaly seen from syzygy to syzygy) and 251 = 269 gives System B's
+    251/18.  A period row (one cycle in days) matches a column of daily
+    lines.  Sides in units of measure (1 day = 12 bēru) never match.
+    """
     try:
         from .. import catalogue
         entries = catalogue.entries()
     except Exception:   # the catalogue is optional for the audit
-        return None
+        return []
+    out = []
     for entry in entries:
-        ratios = {entry.value}
-        singles = [side.terms[0].number for side in entry.sides if len(side.terms) == 1]
+        if entry.kind == "parameter":
+            continue
+        singles = [side.single for side in entry.sides if side.single is not None
+                   and side.single.sign == 1 and _cycle_unit(side.single.unit)]
+        found = None
+        if entry.kind == "period" and period == entry.value and _cycle_unit(entry.unit):
+            found = ("value", entry.unit, f"1 {entry.sides[0].terms[0].unit} = {exact_text(period)} {entry.unit}")
         for a in singles:
             for b in singles:
-                if a and b and a != b:
-                    ratios.add(Fraction(a) / Fraction(b))
-        if period in ratios:
-            return {"id": entry.id, "statement": entry.statement, "source": entry.source,
-                    "period": exact_text(period)}
-    return None
+                if not found and a is not b and a.unit != b.unit and a.number and b.number \
+                        and Fraction(a.number) / Fraction(b.number) == period:
+                    found = ("ratio", a.unit, f"{a.text} / {b.text}")
+        for a in singles:
+            for b in singles:
+                # a beat of two cycles of one kind (synodic and anomalistic months)
+                if not found and a is not b and a.unit != b.unit and b.number > a.number \
+                        and a.unit.split()[-1] == b.unit.split()[-1] \
+                        and Fraction(a.number) / (b.number - a.number) == period:
+                    found = ("beat", a.unit, f"{a.text} / ({b.text} − {a.text})")
+        if found:
+            how, lines, formula = found
+            out.append({"id": entry.id, "statement": entry.statement, "source": entry.source,
+                        "period": exact_text(period), "how": how, "lines_are": lines,
+                        "formula": formula, "body": entry.body,
+                        "_size": max(abs(t.number) for side in entry.sides for t in side.terms)})
+    out.sort(key=lambda m: m["_size"])
+    for m in out:
+        del m["_size"]
+    return out
+
+
+def _fits(match: dict, published: list[dict]) -> bool:
+    """Whether a period relation fits the column a published scheme says it is."""
+    if not published or "line_unit" not in published[0]:
+        return True
+    line = published[0]["line_unit"].split()[-1]
+    lines = match["lines_are"].split()[-1]
+    same = {"phenomena": "periods"}
+    return (same.get(line, line) == same.get(lines, lines)
+            and match["body"] in (published[0].get("body"), "calendar"))
+
+
