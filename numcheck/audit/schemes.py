@@ -237,14 +237,45 @@ class LinearScheme(Scheme):
 
     @classmethod
     def fit(cls, column, frame):
-        pairs = diffs(frame.written[column], frame.modulus.get(column))
+        modulus = frame.modulus.get(column) or _circle(frame, column)
+        pairs = diffs(frame.written[column], modulus)
         ds = [d for _, d in pairs]
         if len(ds) < 2:
             return None
         d, n = mode(ds)
         if not d or n * 2 <= len(ds):
             return None
-        return cls(column, frame, d, _segments(pairs, d))
+        scheme = cls(column, frame, d, _segments(pairs, d))
+        scheme.modulus = modulus
+        return scheme
+
+
+#: Circles a mean-motion column may be reduced modulo (degrees, signs; a
+#: day's 6,0 UŠ is 360 too): a wrap by one of them is no slip.
+CIRCLES = (360, 12)
+
+
+def _circle(frame, column) -> int | None:
+    """The circle a constant-difference column is reduced modulo, if it wraps.
+
+    The column is linear modulo K when its commonest difference d and the
+    differences d − K (or d + K going down) explain its lines and every value
+    lies in [0, K).
+    """
+    values = [v for v in frame.written[column] if v is not None]
+    raw = [d for _, d in diffs(frame.written[column])]
+    if len(raw) < 2 or not values or min(values) < 0:
+        return None
+    d, n = mode(raw)
+    best, best_wraps = None, 0
+    for k in CIRCLES:
+        full = k * frame.scale
+        if max(values) >= full or not d or abs(d) >= full:
+            continue
+        wraps = sum(1 for x in raw if x != d and x % full == d % full)
+        if wraps > best_wraps:
+            best, best_wraps = full, wraps
+    return best
 
 
 #: Lines in a row that must take a new difference before it counts as a change.
