@@ -22,6 +22,7 @@ from dataclasses import dataclass, field
 
 from ..placevalue import mantissa
 from ..slips import Diagnosis, classify
+from .blame import blame_input, writable
 from .columns import ReciprocalScheme
 from .schemes import Frame, Scheme
 from ..tables import Table
@@ -296,9 +297,54 @@ def _rows(table, frame, scheme: Scheme, true):
                 findings.append(moved)
                 col_true[i] = wi
                 continue
+        elif scheme.inputs:
+            moved = _input_blame(table, frame, scheme, i, wi, e, w, true)
+            if moved is not None:
+                findings.append(moved)
+                if moved.column != column:
+                    col_true[i] = wi
+                continue
+        if not writable(frame.fraction(e), [frame.fraction(v) for v in w]):
+            findings.append(Finding(
+                i, column, "unexplained",
+                f"the {scheme.kind} gives {_shown(frame.fraction(e))} here, which no scribe could "
+                "write: an input of this line is likely wrong, but no single slip in one input "
+                "explains the value written", wi, None))
+            continue
         diag = _context(table, frame, column, i, wi, e, None, None)
         findings.append(Finding(i, column, diag.kind, diag.reason, wi, e))
     return findings, pending, col_true
+
+
+def _shown(value) -> str:
+    from ..reading import exact_text
+    return ("a negative value" if value < 0 else
+            f"{exact_text(value)}, a fraction that does not terminate in base 60,")
+
+
+def _input_blame(table, frame, scheme, i, wi, e, w, true):
+    """The input cell whose slip explains a broken line (the result as written is right).
+
+    When several inputs could each explain it, the result cell is flagged
+    with the choices and no expected value of its own.
+    """
+    got = blame_input(frame, scheme, i, wi, true)
+    if not got:
+        return None
+    if len(got) > 1:
+        fr = frame.fraction
+        choices = " or ".join(
+            f"{name} = {table.columns[name].write(i, fr(meant))} ({how})" for name, meant, how in got)
+        return Finding(i, scheme.column, "unexplained",
+                       f"the {scheme.kind} holds as written if {choices}: one input slipped, "
+                       "and the line alone cannot tell which", wi, None)
+    name, meant, _how = got[0]
+    written = frame.written[name][i]
+    diag = _context(table, frame, name, i, written, meant, None, None)
+    f = Finding(i, name, diag.kind, diag.reason, written, meant)
+    f.notes.append(f"with this value the {scheme.kind} of column {scheme.column} holds as "
+                   f"written: the slip is in column {name}, not in column {scheme.column}")
+    return f
 
 
 def _reciprocal_blame(table, frame, scheme, i, igi):

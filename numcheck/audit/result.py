@@ -50,11 +50,13 @@ class AuditResult:
             "row": f.index + 1,
             "column": f.column,
             "written": cell.text,
-            "expected": self.table.columns[f.column].write(f.index, expected),
+            # no expected value is offered where the scheme gives none a scribe could write
+            "expected": self.table.columns[f.column].write(f.index, expected)
+            if expected is not None else "",
             "kind": f.kind,
             "reason": f.reason,
             "written_value": exact_text(fr(f.written)) if f.written is not None else "",
-            "expected_value": exact_text(expected),
+            "expected_value": exact_text(expected) if expected is not None else "",
         }
         if f.carried_into:
             # rows of this column, and of other columns computed from it
