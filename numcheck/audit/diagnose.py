@@ -297,7 +297,8 @@ def _rows(table, frame, scheme: Scheme, true):
                 findings.append(moved)
                 col_true[i] = wi
                 continue
-        elif scheme.inputs:
+        elif scheme.inputs and _needs_blame(table, frame, scheme, i, wi, e, w):
+            # the result's own slip would not explain it: look for the input's
             moved = _input_blame(table, frame, scheme, i, wi, e, w, true)
             if moved is not None:
                 findings.append(moved)
@@ -320,6 +321,12 @@ def _shown(value) -> str:
     from ..reading import exact_text
     return ("a negative value" if value < 0 else
             f"{exact_text(value)}, a fraction that does not terminate in base 60,")
+
+
+def _needs_blame(table, frame, scheme, i, wi, e, w) -> bool:
+    if not writable(frame.fraction(e), [frame.fraction(v) for v in w]):
+        return True
+    return _context(table, frame, scheme.column, i, wi, e, None, None).kind == "unexplained"
 
 
 def _input_blame(table, frame, scheme, i, wi, e, w, true):
