@@ -12,6 +12,7 @@ from __future__ import annotations
 
 from .columns import fit_cross
 from .published import match_column
+from .stated import parse_scheme, scheme_call
 from .relation import RelationScheme, parse_relation
 from .schemes import (ConstantScheme, Frame, LinearScheme, Scheme, lcm_all, support_chained,
                       support_row)
@@ -64,18 +65,41 @@ def _own(frame: Frame, name: str) -> Scheme | None:
     return best
 
 
-def detect_schemes(frame: Frame, relation: str | None = None) -> list[Scheme]:
-    """The scheme of each column that has one, in the order they must be checked."""
-    chosen: dict[str, Scheme] = {}
-    stated = None
-    if relation:
-        target, tree, modulus = parse_relation(relation, frame.names)
-        stated = RelationScheme(target, frame, relation, tree, modulus)
-        if stated.chained:
-            stated.support = support_chained(stated, frame.written[target], frame.written)
+def _listed(texts) -> list[str]:
+    if not texts:
+        return []
+    return [texts] if isinstance(texts, str) else [t for t in texts if t]
+
+
+def _stated(frame: Frame, relation, scheme) -> dict[str, Scheme]:
+    """The relations and schemes the user states, by column (they replace detection there)."""
+    out: dict[str, Scheme] = {}
+    texts = [("relation", t) for t in _listed(relation)] + [("scheme", t) for t in _listed(scheme)]
+    for how, text in texts:
+        call = scheme_call(text) if how == "relation" else text
+        if call is not None:
+            s = parse_scheme(call, frame)
+            s.stated = text
+            match_column(frame, s.column, s, keep=True)
         else:
-            stated.support = support_row(stated, frame.written[target], frame.written)
-        chosen[target] = stated
+            target, tree, modulus = parse_relation(text, frame.names)
+            s = RelationScheme(target, frame, text, tree, modulus)
+        if s.chained:
+            s.support = support_chained(s, frame.written[s.column], frame.written)
+        else:
+            s.support = support_row(s, frame.written[s.column], frame.written)
+        out[s.column] = s
+    return out
+
+
+def detect_schemes(frame: Frame, relation=None, scheme=None) -> list[Scheme]:
+    """The scheme of each column that has one, in the order they must be checked.
+
+    *relation* and *scheme* are what the user states (a text or a list of
+    texts each): those columns are checked against them and nothing else.
+    """
+    chosen: dict[str, Scheme] = _stated(frame, relation, scheme)
+    stated = set(chosen.values())
     for name in frame.names:
         if name in chosen:
             continue
@@ -83,7 +107,7 @@ def detect_schemes(frame: Frame, relation: str | None = None) -> list[Scheme]:
         own = match_column(frame, name, _own(frame, name))
         if own is not None:
             chosen[name] = own
-    taken = {n for n, s in chosen.items() if s is stated or s.support == 1.0}
+    taken = {n for n, s in chosen.items() if s in stated or s.support == 1.0}
     for scheme in fit_cross(frame, taken):
         if scheme.chained:
             scheme.support = support_chained(scheme, frame.written[scheme.column], frame.written)

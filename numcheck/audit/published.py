@@ -99,11 +99,12 @@ def _own_period(own):
     return None
 
 
-def match_column(frame, column: str, own: Scheme | None) -> Scheme | None:
+def match_column(frame, column: str, own: Scheme | None, keep: bool = False) -> Scheme | None:
     """The scheme *column* is checked against, with its ``published`` matches filled in.
 
     Returns *own* (annotated) or a published scheme that explains the lines
-    better; None when neither exists.
+    better; None when neither exists.  *keep* keeps *own* (a scheme the user
+    stated) and only annotates it.
     """
     try:
         from ..catalogue.schemes import schemes
@@ -131,14 +132,15 @@ def match_column(frame, column: str, own: Scheme | None) -> Scheme | None:
         elif period is not None and entry.period_lines == period:
             matches.append((_record(entry, "period", support, differs), None, support))
     chosen = own
-    best = max((m for m in matches if m[1] is not None and m[0]["agreement"] == "lines"),
-               key=lambda m: m[2], default=None)
-    if best is not None:
+    best = max((m for m in matches if m[1] is not None),
+               key=lambda m: (m[2], m[0]["agreement"] == "parameters"), default=None)
+    if best is not None and not keep:
         inst, support = best[1], best[2]
         unknown = getattr(own, "unknown", None)
-        if own is None or support > own_support or (unknown and support >= own_support
-                                                       and not best[0].get("differs")):
+        agrees = best[0]["agreement"] == "parameters" or not best[0].get("differs")
+        if own is None or support > own_support or (unknown and agrees and support >= own_support):
             inst.support = support
+            best[0]["used"] = True      # the column is checked against this published scheme
             chosen = inst
     if chosen is None:
         return None

@@ -91,6 +91,8 @@ class Scheme:
         self.support = 0.0
         #: the catalogue schemes this one agrees with (numcheck.audit.published)
         self.published: list[dict] = []
+        #: the text (or catalogue id) of a scheme the user stated for the column
+        self.stated: str | None = None
 
     # -- output --------------------------------------------------------
     def params(self) -> dict:
@@ -102,7 +104,8 @@ class Scheme:
     def to_dict(self) -> dict:
         return {"column": self.column, "kind": self.kind, "params": self.params(),
                 "support": round(self.support, 4), "description": self.describe(),
-                "published": [dict(p) for p in self.published]}
+                "published": [dict(p) for p in self.published],
+                **({"stated": self.stated} if self.stated else {})}
 
     def _norm(self, v):
         return v % self.modulus if self.modulus else v

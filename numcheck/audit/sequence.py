@@ -20,7 +20,6 @@ class SequenceScheme(Scheme):
     def __init__(self, column, frame, values):
         super().__init__(column, frame)
         self.values = list(values)
-        self.stated = None
 
     def step(self, state, i, src):
         pos = (state[1] + 1) % len(self.values)
@@ -43,8 +42,6 @@ class SequenceScheme(Scheme):
     def params(self):
         f = self.frame.fraction
         out = {"values": [value_text(f(v)) for v in self.values]}
-        if self.stated:
-            out["stated"] = self.stated
         return out
 
     def describe(self):

@@ -38,7 +38,6 @@ class ZigzagScheme(Scheme):
         known = [v for v in frame.written.get(column, ()) if v is not None]
         self.low = min(known) if known else None
         self.high = max(known) if known else None
-        self.stated = None           # the text or catalogue id of a scheme the user stated
 
     @property
     def unknown(self) -> list[str]:
@@ -131,8 +130,6 @@ class ZigzagScheme(Scheme):
                 out["period_relation"] = matches[0]
         if self.unknown:
             out["unknown"] = list(self.unknown)
-        if self.stated:
-            out["stated"] = self.stated
         return out
 
     def describe(self):
