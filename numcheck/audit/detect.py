@@ -117,7 +117,7 @@ def detect_schemes(frame: Frame, relation=None, scheme=None) -> list[Scheme]:
         if current is None or scheme.support > current.support:
             chosen[scheme.column] = scheme
     _step_differences(frame, chosen)
-    return _ordered(chosen)
+    return _ordered(chosen, stated)
 
 
 def _step_differences(frame: Frame, chosen: dict[str, Scheme]) -> None:
@@ -135,8 +135,8 @@ def _step_differences(frame: Frame, chosen: dict[str, Scheme]) -> None:
                     chosen[name] = s
 
 
-def _ordered(chosen: dict[str, Scheme]) -> list[Scheme]:
-    """Columns after the columns they depend on; a cycle drops the weaker scheme."""
+def _ordered(chosen: dict[str, Scheme], stated=frozenset()) -> list[Scheme]:
+    """Columns after the columns they depend on; a cycle drops the weaker scheme (never a stated one)."""
     out: list[Scheme] = []
     done: set[str] = set()
     pending = dict(chosen)
@@ -144,7 +144,7 @@ def _ordered(chosen: dict[str, Scheme]) -> list[Scheme]:
         ready = [s for s in pending.values()
                  if all(d in done or d not in pending for d in s.inputs)]
         if not ready:
-            weakest = min(pending.values(), key=lambda s: s.support)
+            weakest = min(pending.values(), key=lambda s: (s in stated, s.support))
             del pending[weakest.column]
             continue
         for s in sorted(ready, key=lambda s: list(chosen).index(s.column)):

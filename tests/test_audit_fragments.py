@@ -1,0 +1,83 @@
+"""Mean-motion tables modulo the circle, floating reciprocals, the relation grammar's extensions."""
+
+from __future__ import annotations
+
+from fractions import Fraction as F
+
+import pandas as pd
+import pytest
+
+from numcheck.audit import audit
+from numcheck.errors import NumcheckError
+from numcheck.reading import sexagesimal_text as sxt
+
+from tablegen import sx
+
+# Almagest IV.3-4, mean daily motion of the moon in longitude (as in the periods catalogue)
+MOON = sx("13;10,34,58,33,30,30")
+
+
+def test_a_mean_longitude_table_modulo_360_wraps_without_a_slip():
+    lon = [(F(300) + k * MOON) % 360 for k in range(14)]
+    txt = [sxt(v) for v in lon]
+    txt[10] = sxt(lon[10] + F(10, 60))
+    r = audit(pd.DataFrame({"day": [str(k + 1) for k in range(14)], "lon": txt}))
+    (s,) = [s for s in r.schemes if s.column == "lon"]
+    assert s.kind == "linear" and s.params()["modulus"]["value"] == "360"
+    assert [(f["row"], f["column"]) for f in r.flags] == [(11, "lon")]
+    assert s.published[0]["id"] == "ptol_moon_lon"
+
+
+def test_a_table_in_signs_modulo_12():
+    vals = [(F(10) + k * F(7, 6)) % 12 for k in range(15)]
+    r = audit(pd.DataFrame({"s": [sxt(v) for v in vals]}))
+    (s,) = r.schemes
+    assert s.params()["modulus"]["value"] == "12" and r.flags == []
+
+
+def test_floating_reciprocals_of_three_places_restore():
+    # the standard table (reciprocals-ob.csv, computed; MCT 1945): 1,21 -> 44,26,40, 27 -> 2,13,20
+    rows = [("2", "30"), ("3", "20"), ("4", "15"), ("5", "12"), ("6", "10"), ("8", "7,30"),
+            ("9", "6,40"), ("27", "2,13,20"), ("1,4", "56,15"), ("1,21", "44,2[x],40"),
+            ("2,13,20", "2[x]"), ("18", "3,2[x]")]
+    r = audit(pd.DataFrame({"n": [a for a, _ in rows], "igi": [b for _, b in rows]}))
+    best = {}
+    for x in r.to_dict()["restorations"]:
+        if x["row"] not in best:
+            best[x["row"]] = x["text"]
+    assert best == {10: "44,2[6],40", 11: "2[7]", 12: "3,2[0]"}
+    assert r.flags == []
+
+
+def test_relation_with_next_and_round():
+    df = pd.DataFrame({"A": ["1", "2", "4", "7", "11"], "D": ["1", "2", "3", "4", "5"]})
+    r = audit(df, relation="D = next(A) - A", columns=["A", "D"])
+    assert r.flags == []
+    df = pd.DataFrame({"A": ["1;20", "2;10", "3;25"], "B": ["0;30", "0;30", "0;30"],
+                       "C": ["0;40", "1;5", "1;43"]})
+    r = audit(df, relation="C = round(A * B, 1)", columns=["A", "B", "C"])
+    # 3;25 x 0;30 = 1;42,30, rounded to one place: 1;43
+    assert r.flags == []
+    r = audit(df, relation="C = trunc(A * B, 1)", columns=["A", "B", "C"])
+    assert [(f["row"], f["expected"]) for f in r.flags] == [(3, "1;42")]
+
+
+@pytest.mark.parametrize("bad", ["C = round(A * B)", "C = round(A * B, x)", "C = next(Q)"])
+def test_relation_errors(bad):
+    df = pd.DataFrame({"A": ["1"], "B": ["2"], "C": ["2"]})
+    with pytest.raises(NumcheckError):
+        audit(df, relation=bad)
+
+
+def test_the_schemes_catalogue_has_sources_and_exact_periods():
+    from numcheck.catalogue.schemes import schemes
+    rows = schemes()
+    assert {r.id for r in rows} >= {"ACT-LUN-B-A", "ACT-LUN-B-F", "ACT-LUN-A-PHI", "ACT-JUP-A",
+                                    "ACT-JUP-B", "SYS-A-RISING", "MULAPIN-DAYLIGHT"}
+    for r in rows:
+        assert r.source and r.confidence in ("high", "medium", "low") and r.label
+        if r.kind == "zigzag":
+            assert 2 * (r.M - r.m) / r.d == r.period_lines, r.id
+    # System A rising times sum to the longest and shortest day, 3,36 and 2,24 UŠ (HAMA, via schemes.csv)
+    rising = next(r for r in rows if r.id == "SYS-A-RISING").sequence
+    assert sum(rising[3:9]) == 216 and sum(rising[:3]) + sum(rising[9:]) == 144
