@@ -81,3 +81,28 @@ def test_the_schemes_catalogue_has_sources_and_exact_periods():
     # System A rising times sum to the longest and shortest day, 3,36 and 2,24 UŠ (HAMA, via schemes.csv)
     rising = next(r for r in rows if r.id == "SYS-A-RISING").sequence
     assert sum(rising[3:9]) == 216 and sum(rising[:3]) + sum(rising[9:]) == 144
+
+
+def test_lines_missing_in_the_argument_column_are_no_slips():
+    # lunar System B columns A and B (tablegen; ACT vol. 1), lines 13-15 not copied
+    from tablegen import longitude_text, lunar_b
+    a, b = lunar_b(30)
+    keep = [i for i in range(30) if i not in (12, 13, 14)]
+    df = pd.DataFrame({"n": [str(i + 1) for i in keep], "A": [sxt(a[i]) for i in keep],
+                       "B": [longitude_text(b[i]) for i in keep]})
+    df.loc[5, "A"] = sxt(a[5] + F(1, 60))
+    r = audit(df)
+    assert [(f["row"], f["column"], f["kind"]) for f in r.flags] == \
+        [(6, "A", "unit-slip"), (13, "n", "lines-missing")]
+    (gap,) = [f for f in r.flags if f["kind"] == "lines-missing"]
+    assert gap["reason"].startswith("3 lines missing")
+    assert r.summary()["slips"] == 1 and r.summary()["lines_missing"] == 1
+
+
+def test_a_slip_in_the_argument_column_carried_on_is_no_gap_when_a_column_says_so():
+    from tablegen import lunar_b
+    a, _ = lunar_b(20)
+    n = [str(i + 1) for i in range(20)]
+    n[8:] = [str(i + 3) for i in range(8, 20)]       # the numbers jump, but no line is missing
+    r = audit(pd.DataFrame({"n": n, "A": [sxt(x) for x in a]}))
+    assert all(f["kind"] != "lines-missing" for f in r.flags)

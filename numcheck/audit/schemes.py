@@ -21,7 +21,7 @@ from __future__ import annotations
 
 import math
 from collections import Counter
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 from fractions import Fraction
 
 from ..reading import exact_text, sexagesimal_text
@@ -40,6 +40,8 @@ class Frame:
     modulus: dict[str, int | None]      # 360 * scale for a longitude column
     floating: dict[str, bool]
     nrows: int
+    #: rows a gap of missing lines precedes, and how many steps the argument takes there
+    gaps: dict = field(default_factory=dict)
 
     def fraction(self, v) -> Fraction | None:
         return None if v is None else Fraction(v) / self.scale
