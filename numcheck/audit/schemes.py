@@ -104,8 +104,13 @@ class Scheme:
         return self.kind
 
     def to_dict(self) -> dict:
+        text = self.describe()
+        if self.published:
+            first = self.published[0]
+            text += (f"; agrees with the published {first['label']} ({first['id']}, by its "
+                     f"{first['agreement']})")
         return {"column": self.column, "kind": self.kind, "params": self.params(),
-                "support": round(self.support, 4), "description": self.describe(),
+                "support": round(self.support, 4), "description": text,
                 "published": [dict(p) for p in self.published],
                 **({"stated": self.stated} if self.stated else {})}
 
