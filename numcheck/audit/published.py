@@ -124,12 +124,14 @@ def match_column(frame, column: str, own: Scheme | None, keep: bool = False) -> 
         if type(inst).__name__ == "StepScheme" and not frame.modulus.get(column):
             continue    # a step function runs on a longitude
         support = support_chained(inst, values, None)
+        lines = _line_share(inst, values)
         same, differs = _same_parameters(own, inst) if own is not None else (False, [])
         if same:
             matches.append((_record(entry, "parameters", support), inst, support))
-        elif support > 0.5:
+        elif support > 0.5 or lines > 0.5:
+            # most pairs of lines follow it, or one chain of it explains most lines
             matches.append((_record(entry, "lines", support, differs), inst, support))
-        elif period is not None and entry.period_lines == period:
+        elif period is not None and entry.period_lines == period and entry.kind == own.kind:
             matches.append((_record(entry, "period", support, differs), None, support))
     chosen = own
     best = max((m for m in matches if m[1] is not None),
@@ -138,7 +140,12 @@ def match_column(frame, column: str, own: Scheme | None, keep: bool = False) -> 
         inst, support = best[1], best[2]
         unknown = getattr(own, "unknown", None)
         agrees = best[0]["agreement"] == "parameters" or not best[0].get("differs")
-        if own is None or support > own_support or (unknown and agrees and support >= own_support):
+        # a published scheme is prior knowledge: it wins when one chain of it
+        # explains as many lines as the column's own fit
+        better = own is not None and _line_share(inst, values) >= _line_share(own, values) \
+            and best[0]["agreement"] == "lines"
+        if own is None or support > own_support or better or \
+                (unknown and agrees and support >= own_support):
             inst.support = support
             best[0]["used"] = True      # the column is checked against this published scheme
             chosen = inst
@@ -148,6 +155,15 @@ def match_column(frame, column: str, own: Scheme | None, keep: bool = False) -> 
         matches.extend((m, None, 0.0) for m in _mean_motion(chosen))
     chosen.published = [m[0] for m in sorted(matches, key=_rank)]
     return chosen
+
+
+def _line_share(scheme, values) -> float:
+    """The share of the known lines that one chain of *scheme* explains (chained schemes)."""
+    if not scheme.chained:
+        return 0.0
+    from .zigzag import chain_score
+    known = sum(v is not None for v in values)
+    return chain_score(scheme, values) / known if known else 0.0
 
 
 def _rank(match) -> tuple:

@@ -169,6 +169,11 @@ class ZigzagScheme(Scheme):
         maxima, minima = _turn_votes(values[:_SAMPLE], d)
         if not maxima and not minima:
             return None
+        # a line that hits an extreme exactly is a candidate of its own (the
+        # pairs through it lie on straight runs and propose nothing)
+        peaks, troughs = _local_extremes(values[:_CHAIN_SAMPLE])
+        maxima = _merged(maxima, peaks)
+        minima = _merged(minima, troughs)
         best, best_score = None, (-1, -1.0)
         sample = values[:_SAMPLE]
         from .schemes import support_chained
@@ -179,7 +184,11 @@ class ZigzagScheme(Scheme):
                 if M is None and m is None:
                     continue
                 scheme = cls(column, frame, d, M, m)
+                # most lines in one chain; then the fewest places (a slip at
+                # the end of a fragment can propose an extreme one place
+                # longer that explains as many lines); then most pairs
                 score = (chain_score(scheme, values[:_CHAIN_SAMPLE]),
+                         -_places(frame, M) - _places(frame, m),
                          support_chained(scheme, sample, None))
                 if score > best_score:
                     best, best_score = scheme, score
@@ -251,16 +260,46 @@ def _turn_votes(values: list, d) -> tuple[list, list]:
 
 
 def _ranked(counts) -> list:
-    if not counts:
-        return []
-    best = max(counts.values())
-    floor = 2 if best >= 2 else 1
-    return [v for v, c in counts.most_common() if c >= floor]
+    """The proposals, commonest first."""
+    return [v for v, _ in counts.most_common()]
 
 
-def _commonest(values: list, k: int = 4) -> list:
-    """Up to *k* commonest values, commonest first (already ranked)."""
-    return list(values[:k])
+def _local_extremes(values: list) -> tuple[list, list]:
+    peaks, troughs = [], []
+    for i in range(1, len(values) - 1):
+        a, b, c = values[i - 1], values[i], values[i + 1]
+        if a is None or b is None or c is None:
+            continue
+        if b > a and b > c:
+            peaks.append(b)
+        elif b < a and b < c:
+            troughs.append(b)
+    return peaks, troughs
+
+
+def _merged(ranked: list, extra: list, k: int = 4, most: int = 7) -> list:
+    out = list(ranked[:k])
+    for v in extra:
+        if v not in out and len(out) < most:
+            out.append(v)
+    return out
+
+
+def _commonest(values: list) -> list:
+    """The candidates to try, commonest first."""
+    return list(values)
+
+
+def _places(frame, v) -> int:
+    """Sexagesimal places of a parameter (0 for an unknown one)."""
+    if v is None:
+        return 0
+    x = Fraction(v) / frame.scale
+    k = 0
+    while x.denominator != 1 and k < 12:
+        x *= 60
+        k += 1
+    return k
 
 
 def _half(x):
