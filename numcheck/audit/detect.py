@@ -11,7 +11,7 @@ columns it is computed from.
 from __future__ import annotations
 
 from .columns import fit_cross
-from .published import match_column
+from .published import _line_share, match_column
 from .stated import parse_scheme, scheme_call
 from .relation import RelationScheme, parse_relation
 from .schemes import (ConstantScheme, Frame, LinearScheme, Scheme, lcm_all, support_chained,
@@ -51,17 +51,26 @@ def make_frame(table: Table) -> Frame:
 
 
 def _own(frame: Frame, name: str) -> Scheme | None:
-    best = None
+    """The column's own scheme: most pairs of lines explained, then most lines in one chain.
+
+    A scheme is taken when it explains most pairs of lines, or (a short
+    fragment with slips on both sides of a turn) one chain of it explains
+    most lines.
+    """
+    best, best_key = None, None
     for cls in _OWN:
         scheme = cls.fit(name, frame)
         if scheme is None:
             continue
         if scheme.chained:
             scheme.support = support_chained(scheme, frame.written[name], frame.written)
+            lines = _line_share(scheme, frame.written[name])
         else:
             scheme.support = support_row(scheme, frame.written[name], frame.written)
-        if scheme.support > 0.5 and (best is None or scheme.support > best.support):
-            best = scheme
+            lines = 0.0
+        key = (scheme.support, lines)
+        if (scheme.support > 0.5 or lines > 0.5) and (best is None or key > best_key):
+            best, best_key = scheme, key
     return best
 
 

@@ -158,12 +158,16 @@ def match_column(frame, column: str, own: Scheme | None, keep: bool = False) -> 
 
 
 def _line_share(scheme, values) -> float:
-    """The share of the known lines that one chain of *scheme* explains (chained schemes)."""
-    if not scheme.chained:
+    """The share of the known lines that one chain of *scheme* explains (own-column schemes)."""
+    if not scheme.chained or scheme.inputs:
         return 0.0
     from .zigzag import chain_score
+    values = values[:PUBLISHED_SAMPLE]
     known = sum(v is not None for v in values)
-    return chain_score(scheme, values) / known if known else 0.0
+    try:
+        return chain_score(scheme, values) / known if known else 0.0
+    except (TypeError, NotImplementedError):
+        return 0.0
 
 
 def _rank(match) -> tuple:

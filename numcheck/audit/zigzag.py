@@ -164,7 +164,9 @@ class ZigzagScheme(Scheme):
         if len(pairs) < 4:
             return None
         d, n = mode([abs(x) for _, x in pairs])
-        if not d or n * 2 <= len(pairs):
+        # d from a third of the differences at least: two slips in a short
+        # fragment spoil up to four of them (the chains decide afterwards)
+        if not d or n < 3 or n * 3 <= len(pairs):
             return None
         maxima, minima = _turn_votes(values[:_SAMPLE], d)
         if not maxima and not minima:
@@ -244,6 +246,10 @@ def _turn_votes(values: list, d) -> tuple[list, list]:
     from collections import Counter
     maxima, minima = Counter(), Counter()
     known = [(i, v) for i, v in enumerate(values) if v is not None]
+    if not known:
+        return [], []
+    # a maximum lies above the middle of the values shown, a minimum below it
+    middle = Fraction(min(v for _, v in known) + max(v for _, v in known), 2)
     for k, (i, yi) in enumerate(known):
         for j, yj in known[k + 1:k + 1 + _WINDOW]:
             s = j - i
@@ -252,8 +258,11 @@ def _turn_votes(values: list, d) -> tuple[list, list]:
             if abs(yj - yi) >= s * d:
                 continue    # a straight run (or a slip away from the turns): no turn between
             total = yi + yj
-            maxima[_half(total + s * d)] += 1
-            minima[_half(total - s * d)] += 1
+            high, low = _half(total + s * d), _half(total - s * d)
+            if high >= middle:
+                maxima[high] += 1
+            if low <= middle:
+                minima[low] += 1
     # an extreme must lie beyond (or on) the lines it is proposed by; one
     # proposed by a single pair only is noise unless nothing better is there
     return _ranked(maxima), _ranked(minima)
@@ -277,7 +286,7 @@ def _local_extremes(values: list) -> tuple[list, list]:
     return peaks, troughs
 
 
-def _merged(ranked: list, extra: list, k: int = 4, most: int = 7) -> list:
+def _merged(ranked: list, extra: list, k: int = 5, most: int = 8) -> list:
     out = list(ranked[:k])
     for v in extra:
         if v not in out and len(out) < most:
