@@ -106,3 +106,24 @@ def test_a_slip_in_the_argument_column_carried_on_is_no_gap_when_a_column_says_s
     n[8:] = [str(i + 3) for i in range(8, 20)]       # the numbers jump, but no line is missing
     r = audit(pd.DataFrame({"n": n, "A": [sxt(x) for x in a]}))
     assert all(f["kind"] != "lines-missing" for f in r.flags)
+
+
+def test_the_command_line_states_schemes_and_relations_with_json(tmp_path, capsys):
+    import json
+    from numcheck.cli import main
+    from tablegen import zigzag
+    ys = zigzag(12, M=sx("15;16,5"), m=sx("11;5,5"), d=sx("0;36"), start=sx("13;10,35"))
+    txt = [sxt(y) for y in ys]
+    txt[5] = sxt(ys[5] + sx("0;0,10"))
+    path = tmp_path / "fragment.tsv"
+    path.write_text("F\n" + "\n".join(txt) + "\n", encoding="utf-8")
+    for extra in (["--scheme", "F: ACT-LUN-B-F"], ["-s", "F: zigzag d=0;36 M=15;16,5 m=11;5,5"],
+                  ["--relation", "F = zigzag(d=0;36, M=15;16,5, m=11;5,5)"]):
+        assert main(["audit", str(path), *extra, "--json"]) == 0
+        out = json.loads(capsys.readouterr().out)
+        (s,) = out["schemes"]
+        assert s["stated"] == extra[1] and s["published"][0]["id"] == "ACT-LUN-B-F"
+        assert [(f["row"], f["expected"]) for f in out["flags"]] == [(6, sxt(ys[5]))]
+    assert main(["audit", str(path), "--scheme", "F: zigzag d=0;36 Q=1", "--json"]) != 0
+    out = json.loads(capsys.readouterr().out)
+    assert "'Q'" in out["message"]
