@@ -117,8 +117,11 @@ def _column_fit_quiet(frame, name, argument, models, forced):
     return FunctionScheme(name, frame, argument, best, places, interp, values, alternatives)
 
 
-def fit_functions(frame: Frame, chosen: dict[str, Scheme], model=None) -> None:
-    """Add a function scheme to *chosen* for each column a model explains (and its difference columns)."""
+def fit_functions(frame: Frame, chosen: dict[str, Scheme], model=None, keep=frozenset()) -> None:
+    """Add a function scheme to *chosen* for each column a model explains (and its difference columns).
+
+    The columns in *keep* (those the user stated a relation or scheme for) are left as they are.
+    """
     from ..schemes import support_row
     forced = parse_models(model)
     for column in forced:
@@ -133,7 +136,7 @@ def fit_functions(frame: Frame, chosen: dict[str, Scheme], model=None) -> None:
     # of a running sum): a model would only blur it
     sources = {i for s in chosen.values() if s.support == 1.0 for i in s.inputs}
     for name in frame.names:
-        if name in arguments or (name in sources and name not in forced):
+        if name in arguments or name in keep or (name in sources and name not in forced):
             continue
         current = chosen.get(name)
         asked = name in forced or None in forced
@@ -162,7 +165,7 @@ def fit_functions(frame: Frame, chosen: dict[str, Scheme], model=None) -> None:
             functions.append(scheme)
     if not functions:
         return
-    free = [n for n in frame.names if n not in arguments]
+    free = [n for n in frame.names if n not in arguments and n not in keep]
     for s in fit_differences(frame, functions, free):
         current = chosen.get(s.column)
         if current is None or s.support > current.support:
