@@ -13,7 +13,8 @@ from fractions import Fraction
 from ..reading import Reading, Status, exact_text
 from .write import Edit
 
-__all__ = ["unresolved", "is_unit_fraction", "decide"]
+__all__ = ["unresolved", "is_unit_fraction", "decide", "supports", "positive_range",
+           "certainty_match", "CERTAINTY_MATCHES"]
 
 #: Enumerate every reading of a damaged number up to this many when checking
 #: an existing ``@value`` against the letters (beyond it, only the range).
@@ -47,25 +48,101 @@ def is_unit_fraction(el, reading: Reading, existing: dict) -> bool:
     return False
 
 
-def _allowed(reading: Reading, value: Fraction, unit_fraction: bool) -> bool:
-    target = 1 / value if unit_fraction and value else value
-    if reading.count <= ENUMERATE_READINGS:
-        return any(v == target for v in reading.readings())
-    return reading.min <= target <= reading.max
+#: Notations of letters, where a lost or unread numeral is never nothing: a
+#: documentary number has no zero, so a lone illegible letter is at least 1.
+_LETTER_NOTATIONS = {"greek", "greek-ascending", "attic", "roman", "abjad", "abjad-maghribi"}
+
+#: The ``@match`` of the ``<certainty>`` elements annotate writes (and replaces).
+CERTAINTY_MATCHES = ("../@value", "../@atLeast | ../@atMost", "../@atLeast", "../@atMost")
+
+
+def certainty_match(attrs) -> str | None:
+    """What a ``<certainty locus="value">`` points at, given the attributes the ``<num>`` has.
+
+    ``../@value`` only where there is a ``@value`` (EpiDoc ``trans-numnoncongruent``);
+    otherwise the bounds that exist (``@match`` is an XPath: EpiDoc ``ref-certainty``).
+
+    >>> certainty_match({"atLeast", "atMost"})
+    '../@atLeast | ../@atMost'
+    """
+    if "value" in attrs:
+        return "../@value"
+    bounds = [f"../@{k}" for k in ("atLeast", "atMost") if k in attrs]
+    return " | ".join(bounds) or None
+
+
+def positive_range(reading: Reading) -> tuple[Fraction, Fraction]:
+    """The least and greatest value of *reading*, a lost letter counting at least 1.
+
+    In a notation of letters a lost or unread letter is some numeral, never
+    the absence of one: ``[.]`` is 1 to 9000, not 0 to 9000.
+    """
+    lo, hi = reading.min, reading.max
+    if lo == 0 < hi and reading.damaged and reading.notation in _LETTER_NOTATIONS \
+            and reading.count <= ENUMERATE_READINGS:
+        positive = [v for v in reading.readings() if v > 0]
+        if positive:
+            lo = min(positive)
+    return lo, hi
+
+
+def _values(reading: Reading, unit_fraction: bool, lo: Fraction, hi: Fraction):
+    """Every reading of *reading* within [lo, hi], as the ``<num>`` means it (None: too many)."""
+    if reading.count > ENUMERATE_READINGS:
+        return None
+    out = []
+    for v in reading.readings():
+        v = 1 / v if unit_fraction and v else v
+        if lo <= v <= hi:
+            out.append(v)
+    return out
+
+
+def supports(reading: Reading, written: Fraction, unit_fraction: bool,
+             lo: Fraction, hi: Fraction) -> bool:
+    """Whether some valid reading of the letters gives *written*.
+
+    The readings the traces allow, the unit fraction the letters also write
+    (γ is 3 or 1/3), and the readings of the documentary conventions of the
+    notation (a lone capital letter read as thousands).
+    """
+    values = _values(reading, unit_fraction, lo, hi)
+    if values is None:
+        if lo <= written <= hi:
+            return True
+    elif written in values:
+        return True
+    if 0 < written < 1 and (1 / written).denominator == 1 and not unit_fraction:
+        back = _values(reading, False, reading.min, reading.max)
+        if back is not None and 1 / written in back:
+            return True
+    return written in other_readings(reading)
+
+
+def other_readings(reading: Reading) -> set[Fraction]:
+    """Values the documentary conventions of the notation also give the same letters."""
+    return set()
 
 
 def decide(res, edit: Edit, existing: dict, reading: Reading,
             exact: Fraction | None, lo: Fraction, hi: Fraction, fix: bool) -> None:
-    """Choose the attributes to write; report an existing value the letters contradict."""
+    """Choose the attributes to write; report an existing value the letters contradict.
+
+    ``fix`` replaces only a value that no valid reading of the letters gives.
+    """
     if "value" in existing:
         raw = existing["value"]
         try:
             written = Fraction(raw.strip())
         except (ValueError, ZeroDivisionError):
             written = None
-        if written is not None and (written == exact if exact is not None
-                                    else _allowed(reading, written, res.unit_fraction)):
-            res.status = "kept"
+        if written is not None and (written == exact or
+                                    supports(reading, written, res.unit_fraction, lo, hi)):
+            res.status = "agrees"
+            if exact is not None and written != exact:
+                res.message = (f"@value={raw!r} is another valid reading of the letters "
+                               f"{res.text!r} (numcheck reads {exact_text(exact)} first); kept")
+                res.value = written
             return
         if exact is not None:
             ours = exact_text(exact)
@@ -98,21 +175,24 @@ def decide(res, edit: Edit, existing: dict, reading: Reading,
         edit.set_attrs.update(wanted)
         res.status = "range-added"
         return
-    # The editor gave a range already.  A range narrower than the letters
-    # allow is the editor's knowledge (EpiDoc's L[.] = 51-55 leaves out LX),
-    # not a contradiction; a range reaching outside them, or holding no
-    # reading at all, is.
+    # The editor gave a range already, perhaps one-sided.  It agrees with the
+    # letters when some reading of the letters lies within it: a range
+    # narrower than the letters allow is the editor's knowledge (EpiDoc's
+    # L[.] = 51-55 leaves out LX), an @atLeast alone a bound the letters may
+    # satisfy (TEI att.ranging); a range holding no reading contradicts them.
     try:
-        a = Fraction(existing["atLeast"].strip()) if "atLeast" in existing else lo
-        b = Fraction(existing["atMost"].strip()) if "atMost" in existing else hi
-        ok = lo <= a <= b <= hi and _any_between(reading, a, b, res.unit_fraction)
+        a = Fraction(existing["atLeast"].strip()) if "atLeast" in existing else None
+        b = Fraction(existing["atMost"].strip()) if "atMost" in existing else None
+        ok = _any_between(reading, a, b, res.unit_fraction, lo, hi)
     except (ValueError, ZeroDivisionError):
         ok = False
     if ok:
-        res.status = "kept"
-        if (a, b) != (lo, hi):
-            res.message = (f"the edition's range {exact_text(a)} to {exact_text(b)} is narrower than "
-                           f"the letters {res.text!r} allow ({exact_text(lo)} to {exact_text(hi)})")
+        res.status = "agrees"
+        a_, b_ = (a if a is not None else lo), (b if b is not None else hi)
+        if lo < a_ or b_ < hi:
+            shown = " and ".join(f"@{k}={existing[k]!r}" for k in wanted if k in existing)
+            res.message = (f"the edition's {shown} is narrower than the letters {res.text!r} "
+                           f"allow ({exact_text(lo)} to {exact_text(hi)})")
         return
     shown = ", ".join(f"@{k}={existing[k]!r}" for k in wanted if k in existing)
     res.message = (f"the letters {res.text!r} allow {exact_text(lo)} to {exact_text(hi)}, "
@@ -122,14 +202,12 @@ def decide(res, edit: Edit, existing: dict, reading: Reading,
         edit.set_attrs.update(wanted)
 
 
-def _any_between(reading: Reading, a: Fraction, b: Fraction, unit_fraction: bool) -> bool:
-    if reading.count > ENUMERATE_READINGS:
-        return True
-    for v in reading.readings():
-        v = 1 / v if unit_fraction and v else v
-        if a <= v <= b:
-            return True
-    return False
+def _any_between(reading: Reading, a, b, unit_fraction: bool, lo, hi) -> bool:
+    """Whether a reading within [lo, hi] lies within the editor's bounds *a*, *b* (None: open)."""
+    values = _values(reading, unit_fraction, lo, hi)
+    if values is None:
+        return (a is None or hi >= a) and (b is None or lo <= b) and (a is None or b is None or a <= b)
+    return any((a is None or v >= a) and (b is None or v <= b) for v in values)
 
 
 def _check_bound(res, edit, existing, key, exact, fix) -> None:
