@@ -238,8 +238,10 @@ def identify(reading_or_text, *, notation: str | None = None, unit: str | None =
                               (f"The value {exact_text(value)} is not positive; the catalogue holds lengths "
                                "and counts only.",))
     notes: list[str] = []
-    use_range = reading.damaged and reading.count <= limits.IDENTIFY_DAMAGE_READINGS
-    if reading.damaged and not use_range:
+    # An ambiguous reading (a Greek 'ο' that may be 0 or 70) is compared like a damaged one.
+    open_reading = reading.damaged or reading.ambiguous
+    use_range = open_reading and reading.count <= limits.IDENTIFY_DAMAGE_READINGS
+    if open_reading and not use_range:
         notes.append(f"The damage allows {reading.count:,} readings (over numcheck.limits."
                      f"IDENTIFY_DAMAGE_READINGS = {limits.IDENTIFY_DAMAGE_READINGS}): only the edition's value "
                      f"({sexagesimal_text(value, fixed=not reading.floating)}) was compared. "

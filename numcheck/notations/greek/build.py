@@ -20,6 +20,7 @@ from ...errors import NumcheckRangeError
 from ... import limits
 from ...reading import Slot, Status
 from .letters import CANONICAL, exponent
+from .conventions import ASTRONOMICAL, GENERIC, capital_thousands, lone_letter
 from .model import RANK_NAMES, STATUS_ORDER, UNDERDOT, ZERO, Form, Item, fail
 
 __all__ = ["group_slots", "letter_text", "widen"]
@@ -44,13 +45,17 @@ def letter_text(value: int, upper: bool = False) -> str:
 
 
 def group_slots(text: str, index: int, items: list[Item], group: Tree, gkind: str, place: int,
-                ascending: bool, notes: list[str], upper: bool = False) -> list[Slot]:
+                ascending: bool, notes: list[str], upper: bool = False, convention: str = GENERIC,
+                places: bool = False) -> list[Slot]:
     """The slots of one group (see the module docstring).
 
     *upper* is the case of the number so far: a group with no letter read
-    (``[.]``) writes its restorations in that case.
+    (``[.]``) writes its restorations in that case.  *convention* is one of
+    :data:`CONVENTIONS` (how a lone ``ο`` and a lone capital are read, see
+    :mod:`numcheck.notations.greek.conventions`); *places* says that the
+    number has sexagesimal places after its whole part.
     """
-    keraia = any(t.type == "KERAIA" for t in group.children)
+    keraia = any(t.type == "KERAIA" for t in group.children[1:])   # a leading one is ͵ ('Αωϙγ)
     letters = [i for i in items if i.kind == "letter"]
     if letters:
         upper = all(i.char.isupper() for i in letters)
@@ -74,14 +79,28 @@ def group_slots(text: str, index: int, items: list[Item], group: Tree, gkind: st
                      form=(Form(role="zero", pieces=((ZERO + (UNDERDOT if z.doubtful else ""),
                                                       _BRACKET.get(z.status)),), **base),))]
     only = counted[0] if len(counted) == 1 else None
-    if gkind == "place" and only is not None and only.kind == "letter" and only.value == 70 and only.bar:
-        notes.append(True)
-        notes.append(f"{group_text!r} read as the zero sign: a barred omicron is the Byzantine form of "
-                     "the zero (Cajori, A History of Mathematical Notations I §43), and 70 cannot "
-                     "stand in a sexagesimal place")
+    if gkind == "place" and only is not None and only.kind == "letter" and only.value == 70 \
+            and (only.bar or only.char == "ο"):
+        why = ("a barred omicron is the Byzantine form of the zero (Cajori, A History of Mathematical "
+               "Notations I §43)" if only.bar else
+               "digital texts of Greek tables type the zero as a plain omicron (Heiberg's Almagest "
+               "prints it without its bar, Cajori §44)")
+        if convention != ASTRONOMICAL:
+            notes.append(True)
+        notes.append(f"{group_text!r} read as the zero sign: {why}, and 70 cannot stand in a "
+                     "sexagesimal place")
         return [Slot(values=(Fraction(0),), place=place, status=_status(only), text=group_text,
                      span=(only.start, only.end),
                      form=(Form(role="zero", pieces=((ZERO, _BRACKET.get(only.status)),), **base),))]
+    if gkind == "whole" and only is not None and only.kind == "letter" and not keraia:
+        special = lone_letter(only, group_text, convention, places, notes)
+        if special is not None:
+            values, role = special
+            piece = only.char + (UNDERDOT if only.doubtful else "")
+            start, end = widen(text, only.start, only.end)
+            return [Slot(values=tuple(Fraction(v) for v in values), place=place, status=_status(only),
+                         text=text[start:end], span=(start, end),
+                         form=(Form(role=role, pieces=((piece, _BRACKET.get(only.status)),), **base),))]
     if gkind == "place" and only is not None and only.kind == "gap":
         notes.append(f"{group_text!r} read as 1 to {limits.GAP_MAX_PLACES} lost sexagesimal places "
                      "(numcheck.limits.GAP_MAX_PLACES)")
@@ -170,6 +189,10 @@ def _part(text, items, top, place, mult, limit, allow_zero, ascending, notes, ba
         elif it.kind == "dot" and it.thousands:
             exps[k] = 3
     keys = sorted(exps)
+    if top >= 2:
+        for k in capital_thousands(positions, exps, notes):
+            exps[k] = 3
+            implicit.add(k)
     if not ascending and top >= 2:
         for a, b in zip(keys, keys[1:]):
             if (b == a + 1 and exps[a] == 0 and exps[b] == 2 and positions[a].kind == "letter"

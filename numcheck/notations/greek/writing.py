@@ -78,6 +78,14 @@ def _slot_pieces(slot: Slot, f, value: Fraction | None) -> list[tuple[str, str |
     if value is None or not _is_open(slot, f):
         return list(f.pieces)
     bracket = None if slot.status is Status.UNREAD else "["
+    if f.role in ("omicron", "capital"):
+        # One letter read, its meaning open: write the reading chosen plainly.
+        written = f.pieces[0][0]
+        if f.role == "omicron":
+            text = ZERO if value == 0 else written
+        else:
+            text = written if value < 1000 else "͵" + written
+        return [(text, f.pieces[0][1])]
     if f.role == "unitfrac":
         return _unit_fraction_pieces(f, value)
     n = int(value / f.mult)
