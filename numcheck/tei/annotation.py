@@ -41,10 +41,11 @@ from .markup import (TEI_NS, TeiError, has_expansion, leiden_text, local_name, n
                      num_pieces, parse_tei, plain_text, read_bytes)
 from ..tables.tei import table_to_dataframe
 from .table_context import table_restorations
+from ..notations import NOTATIONS
 from .places import num_places
 from .values import (CERTAINTY_MATCHES, certainty_match, decide, is_unit_fraction,
                      positive_range, unresolved)
-from .words import looks_like_words
+from .words import looks_like_words, read_words
 from .write import Edit, apply_edits, apply_edits_tree, decode_source, scan_elements
 
 __all__ = ["annotate", "annotate_bytes", "AnnotateResult", "NumResult", "TeiError",
@@ -262,6 +263,10 @@ def _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of, f
     if not has_letters:
         empty_result(res, el, pieces)
         return res, None
+    if looks_like_words(plain) and read_words(plain) is not None:
+        # ἕξ is the word six, not the letters ε and ξ.
+        words_result(res, plain)
+        return res, None
     try:
         reading, text = _read_num(el, name, res.line, pieces, plain, notation)
     except NumcheckError as err:
@@ -333,6 +338,10 @@ def _annotate_reading(el, res, reading, text, fix, alternatives, restore_fn, ind
     return res, (edit if has_edit else None)
 
 
+#: The Greek convention annotate reads with when no notation is given.
+DOCUMENTARY_GREEK = "greek-documentary"
+
+
 def _read_num(el, name, line, pieces, plain: str, notation: str | None):
     """Read a ``<num>``: in the notation given, else the one its letters suggest.
 
@@ -353,11 +362,21 @@ def _read_num(el, name, line, pieces, plain: str, notation: str | None):
         if not candidates:
             raise TeiError(name, line, "a <num> with no legible letter and no xml:lang to tell "
                                        "its notation; give the notation (--notation)")
+    if notation is None:
+        # EpiDoc's numbers are mostly those of documentary papyri and
+        # inscriptions: read Greek with their conventions (a lone capital
+        # units letter is thousands).  --notation greek keeps every reading open.
+        candidates = [DOCUMENTARY_GREEK if c == "greek" and DOCUMENTARY_GREEK in NOTATIONS else c
+                      for c in candidates]
     first_error = None
     for chosen in candidates:
         text = leiden_text(pieces, chosen)
         try:
-            return read(text, notation=chosen), text
+            with warnings.catch_warnings():
+                # How odd letters were read is kept in reading.warnings, one
+                # per number, not raised once per <num> of a long file.
+                warnings.simplefilter("ignore", NumcheckWarning)
+                return read(text, notation=chosen), text
         except NumcheckError as err:
             if first_error is None:
                 first_error = (chosen, text, err)

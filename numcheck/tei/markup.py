@@ -47,6 +47,13 @@ TEI_NS = "http://www.tei-c.org/ns/1.0"
 #: (digit strings) write a lost digit as ``x`` (``5[x]``).  Roman uses dots
 #: because ``x`` is one of its letters.
 _DOT_NOTATIONS = {"greek", "greek-ascending", "attic", "roman", "abjad", "abjad-maghribi"}
+
+
+def _dots(notation: str) -> bool:
+    # Every Greek convention (greek-documentary, greek-astronomical ...) writes letters.
+    return notation in _DOT_NOTATIONS or notation.startswith("greek")
+
+
 #: Notations where an underdot is not a mark of doubt (cuneiform: ṣ, ṭ are
 #: letters; Arabic script: dots are part of the letters) and ``?`` is used.
 _QUERY_NOTATIONS = {"cuneiform", "abjad", "abjad-maghribi"}
@@ -282,7 +289,7 @@ def word_text(pieces: list[Piece]) -> str:
 def _lost_mark(notation: str, count: int | None) -> str:
     if count is None:
         return "[...]"
-    letter = "." if notation in _DOT_NOTATIONS else "x"
+    letter = "." if _dots(notation) else "x"
     if letter == "." and count == 3:
         # "[...]" is the sign for an unknown number of lost letters; three
         # counted letters are written one bracket each.
@@ -298,7 +305,7 @@ _UNREAD = {"greek": ".", "greek-ascending": ".", "attic": ".", "roman": "+"}
 def _unread_mark(notation: str, count: int | None) -> str:
     if count is None:
         return "[...]"
-    return _UNREAD.get(notation, "x") * count
+    return _UNREAD.get("greek" if notation.startswith("greek") else notation, "x") * count
 
 
 def _wrap_words(text: str, left: str, right: str) -> str:
@@ -332,7 +339,7 @@ def leiden_text(pieces: list[Piece], notation: str) -> str:
             parts.append(_unread_mark(notation, p.count))
         # "ex": the editor's expansion is not part of the numeral as written
     text = " ".join("".join(parts).split())
-    if notation not in _DOT_NOTATIONS:
+    if not _dots(notation):
         # Adjacent lost runs are one lacuna: "[x][5]" -> "[x5]".  Counted dots
         # stay apart, lest three of them read as the unknown-extent "[...]".
         text = text.replace("][", "")

@@ -8,8 +8,10 @@ contradicted by the letters.
 
 from __future__ import annotations
 
+import warnings
 from fractions import Fraction
 
+from ..errors import NumcheckError, NumcheckWarning
 from ..reading import Reading, Status, exact_text
 from .write import Edit
 
@@ -50,7 +52,8 @@ def is_unit_fraction(el, reading: Reading, existing: dict) -> bool:
 
 #: Notations of letters, where a lost or unread numeral is never nothing: a
 #: documentary number has no zero, so a lone illegible letter is at least 1.
-_LETTER_NOTATIONS = {"greek", "greek-ascending", "attic", "roman", "abjad", "abjad-maghribi"}
+_LETTER_NOTATIONS = {"greek", "greek-ascending", "greek-documentary", "greek-astronomical",
+                     "attic", "roman", "abjad", "abjad-maghribi"}
 
 #: The ``@match`` of the ``<certainty>`` elements annotate writes (and replaces).
 CERTAINTY_MATCHES = ("../@value", "../@atLeast | ../@atMost", "../@atLeast", "../@atMost")
@@ -120,8 +123,30 @@ def supports(reading: Reading, written: Fraction, unit_fraction: bool,
 
 
 def other_readings(reading: Reading) -> set[Fraction]:
-    """Values the documentary conventions of the notation also give the same letters."""
-    return set()
+    """Values the other conventions of the notation give the same letters.
+
+    Greek letters read with the documentary conventions (a lone capital is
+    thousands) are also read with the generic ones, which keep every
+    reading open (``Α`` is 1 or 1000; ``ο`` is 0 or 70), and the other way round.
+    """
+    from ..notations import NOTATIONS
+    from ..reader import read
+
+    if not reading.notation.startswith("greek") or reading.notation == "greek-ascending":
+        return set()
+    out: set[Fraction] = set()
+    for other in ("greek", "greek-documentary"):
+        if other == reading.notation or other not in NOTATIONS:
+            continue
+        try:
+            with warnings.catch_warnings():
+                warnings.simplefilter("ignore", NumcheckWarning)
+                alt = read(reading.text, notation=other)
+        except NumcheckError:
+            continue
+        if alt.count <= ENUMERATE_READINGS:
+            out.update(alt.readings())
+    return out
 
 
 def decide(res, edit: Edit, existing: dict, reading: Reading,
@@ -183,7 +208,10 @@ def decide(res, edit: Edit, existing: dict, reading: Reading,
     try:
         a = Fraction(existing["atLeast"].strip()) if "atLeast" in existing else None
         b = Fraction(existing["atMost"].strip()) if "atMost" in existing else None
-        ok = _any_between(reading, a, b, res.unit_fraction, lo, hi)
+        # Two bounds reaching outside what the letters allow deny the letters
+        # read; one bound alone only says "at least" (or "at most").
+        inside = a is None or b is None or lo <= a <= b <= hi
+        ok = inside and _any_between(reading, a, b, res.unit_fraction, lo, hi)
     except (ValueError, ZeroDivisionError):
         ok = False
     if ok:
