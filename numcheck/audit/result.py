@@ -101,5 +101,9 @@ class AuditResult:
             "flags": self.flags,
             "restorations": [r.to_dict() for r in self.restorations],
             "unchecked": list(self.unchecked),
+            # Cells that cannot be read (row, column, text, message): the audit
+            # went on without them, as if they were lost.
+            "unreadable": self.table.unreadable,
+            "left_out": [{"column": k, "message": v} for k, v in self.table.left_out.items()],
             "note": SUGGESTION,
         }
