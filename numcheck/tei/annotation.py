@@ -90,6 +90,7 @@ class NumResult:
     text_line: str | None = None    # the @n of the <lb> before it
     div: str | None = None          # the <div> it is in
     read_from: str | None = None    # letters, expansion, words, words before; None: not read
+    expanded: bool = False          # the editor wrote part of it out (<ex>)
 
     def to_dict(self) -> dict:
         # The text as numcheck read it (NFC): decomposed accents give the same JSON.
@@ -258,7 +259,8 @@ def _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of, f
     pieces = num_pieces(el)
     plain = plain_text(pieces)
     has_letters = bool(plain) or any(p.kind in ("lost", "illegible") for p in pieces)
-    if has_expansion(pieces) and expansion_result(res, pieces, plain):
+    res.expanded = has_expansion(pieces)
+    if res.expanded and expansion_result(res, pieces, plain):
         return res, None
     if not has_letters:
         empty_result(res, el, pieces)

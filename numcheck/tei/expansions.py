@@ -77,7 +77,7 @@ def expansion_result(res, pieces, plain: str, letters_failed: bool = False) -> b
     editor's value is kept, not checkable.
     """
     words = word_text(pieces)
-    reading = read_words(words)
+    reading = read_words(words, numerals=True)
     if reading is None and plain and not letters_failed:
         return False
     res.text, res.notation = words, "words"

@@ -15,7 +15,7 @@ from ..errors import NumcheckError, NumcheckWarning
 from ..reading import Reading, Status, exact_text
 from .write import Edit
 
-__all__ = ["unresolved", "is_unit_fraction", "decide", "supports", "positive_range",
+__all__ = ["unresolved", "is_unit_fraction", "decide", "supports", "positive_range", "fix_refusal",
            "certainty_match", "CERTAINTY_MATCHES"]
 
 #: Enumerate every reading of a damaged number up to this many when checking
@@ -149,6 +149,22 @@ def other_readings(reading: Reading) -> set[Fraction]:
     return out
 
 
+def fix_refusal(res) -> str | None:
+    """Why ``--fix`` may not replace the editor's value here, or None when it may.
+
+    Only where the letters are plainly a numeral: not where they were read
+    only after cleaning (accents or breathings left out: a word, perhaps),
+    nor where the editor expanded part of the number (``<ex>``).
+    """
+    from .words import looks_like_words
+
+    if looks_like_words(res.text):
+        return "the letters carry accents or breathings: a word, perhaps, not a numeral"
+    if res.expanded:
+        return "the editor expanded part of the number (<ex>)"
+    return None
+
+
 def decide(res, edit: Edit, existing: dict, reading: Reading,
             exact: Fraction | None, lo: Fraction, hi: Fraction, fix: bool) -> None:
     """Choose the attributes to write; report an existing value the letters contradict.
@@ -177,8 +193,11 @@ def decide(res, edit: Edit, existing: dict, reading: Reading,
         else:
             res.message = (f"@value={raw!r} is not a reading the letters {res.text!r} allow "
                            f"({exact_text(lo)} to {exact_text(hi)})")
-        if not fix:
+        refusal = fix_refusal(res) if fix else None
+        if not fix or refusal:
             res.status = "contradiction"
+            if refusal:
+                res.message += f" (not changed: {refusal})"
             return
         res.status = "fixed"
         if exact is not None:
@@ -225,8 +244,11 @@ def decide(res, edit: Edit, existing: dict, reading: Reading,
     shown = ", ".join(f"@{k}={existing[k]!r}" for k in wanted if k in existing)
     res.message = (f"the letters {res.text!r} allow {exact_text(lo)} to {exact_text(hi)}, "
                    f"which contradicts {shown}")
-    res.status = "fixed" if fix else "contradiction"
-    if fix:
+    refusal = fix_refusal(res) if fix else None
+    if refusal:
+        res.message += f" (not changed: {refusal})"
+    res.status = "fixed" if fix and not refusal else "contradiction"
+    if res.status == "fixed":
         edit.set_attrs.update(wanted)
 
 
@@ -246,6 +268,9 @@ def _check_bound(res, edit, existing, key, exact, fix) -> None:
         ok = False
     if not ok:
         res.message = f"@{key}={existing[key]!r} does not agree with the letters' value {exact_text(exact)}"
-        res.status = "fixed" if fix else "contradiction"
-        if fix:
+        refusal = fix_refusal(res) if fix else None
+        if refusal:
+            res.message += f" (not changed: {refusal})"
+        res.status = "fixed" if fix and not refusal else "contradiction"
+        if res.status == "fixed":
             edit.drop_attrs.append(key)

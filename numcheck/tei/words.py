@@ -21,6 +21,7 @@ import csv
 import functools
 import re
 import unicodedata
+import warnings
 from dataclasses import dataclass
 from fractions import Fraction
 from importlib import resources
@@ -103,13 +104,33 @@ def _tokens(text: str) -> list[str]:
     return [t for t in _SPLIT.split(text) if t]
 
 
-def read_words(text: str) -> WordsReading | None:
+def _numeral(token: str) -> WordEntry | None:
+    """A Greek numeral standing among number words (μυριάδες β), read as documents write it."""
+    if looks_like_words(token):
+        return None
+    from ..errors import NumcheckError
+    from ..reader import read
+
+    try:
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore")
+            reading = read(token, notation="greek-documentary")
+    except NumcheckError:
+        return None
+    if reading.damaged or reading.count != 1:
+        return None
+    return WordEntry(reading.value, "numeral", "a numeral", "read as a Greek numeral")
+
+
+def read_words(text: str, numerals: bool = False) -> WordsReading | None:
     """The value of *text* when every word of it is a number word of the table, else None.
 
-    Cardinals add up (ἑξήκοντα πέντε = 65); a myriad word counts the
-    number before it in ten thousands; an ordinal alone stands for the number
+    Cardinals add up (ἑξήκοντα πέντε = 65); a myriad word counts the number
+    before it in ten thousands (or, with nothing before it, the number just
+    after it: μυριάδες β may be 20000); an ordinal alone stands for the number
     or for its part (τέταρτον: 4 or 1/4), and the value the editor gave
-    decides between them.
+    decides between them.  With *numerals*, Greek numerals may stand among
+    the words (the count of an expanded myriad sign).
 
     >>> read_words("ἑξήκοντα πέντε").value
     Fraction(65, 1)
@@ -117,21 +138,25 @@ def read_words(text: str) -> WordsReading | None:
     Fraction(21, 1)
     >>> sorted(read_words("ἑκατοστόν").values)
     [Fraction(1, 100), Fraction(100, 1)]
+    >>> read_words("μυριάδες β", numerals=True).values
+    (Fraction(20000, 1), Fraction(10002, 1))
     >>> read_words("πόλεως") is None
     True
     """
     words = [w for w in _tokens(text) if word_key(w) not in _JOINERS]
     if not words:
         return None
-    entries = [lookup(w) for w in words]
-    if any(e is None for e in entries):
+    entries = [lookup(w) or (_numeral(w) if numerals else None) for w in words]
+    if any(e is None for e in entries) or all(e.kind == "numeral" for e in entries):
         return None
     kinds = tuple(e.kind for e in entries)
     if "myriad" in kinds:
         k = kinds.index("myriad")
-        before = sum((e.value for e in entries[:k]), Fraction(0)) or Fraction(1)
-        after = sum((e.value for e in entries[k + 1:] if e.kind != "myriad"), Fraction(0))
-        values: tuple[Fraction, ...] = (before * 10000 + after,)
+        before = sum((e.value for e in entries[:k]), Fraction(0))
+        after = [e.value for e in entries[k + 1:] if e.kind != "myriad"]
+        values: tuple[Fraction, ...] = ((before or 1) * 10000 + sum(after, Fraction(0)),)
+        if not before and after:
+            values = (after[0] * 10000 + sum(after[1:], Fraction(0)),) + values
     else:
         total = sum((e.value for e in entries), Fraction(0))
         values = (total,)
