@@ -281,3 +281,24 @@ def test_doctests(name):
     import importlib
 
     assert doctest.testmod(importlib.import_module(name)).failed == 0
+
+
+@pytest.mark.parametrize("body, reason", [
+    # the thousands sign unwritten or lost: the editor reads thousands
+    ('<num value="1000">α</num>', "thousands"),
+    # two characters lost may be a numeral and its sign (papyri.info counts characters)
+    ('<num value="2"><gap reason="lost" quantity="2" unit="character"/></num>', "fewer letters"),
+])
+def test_fix_leaves_alone_values_a_loose_reading_gives(body, reason):
+    out, result = run(body, fix=True)
+    (n,) = result.nums
+    assert n.status == "contradiction" and reason in n.message
+    assert out == doc(body)
+
+
+def test_a_sign_glyph_keeps_the_editors_value_and_takes_no_words_from_before():
+    # DDbDP writes some signs as <g type=".."/>: no letters to read
+    out, result = run('δραχμὰς δύο <num value="1"><g type="obol"/></num>', fix=True)
+    (n,) = result.nums
+    assert (n.status, n.read_from, n.value) == ("not-checkable", None, None)
+    assert "obol" in n.text

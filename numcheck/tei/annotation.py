@@ -36,7 +36,7 @@ from ..errors import LimitError, NumcheckError, NumcheckWarning
 from ..files import check_distinct, write_atomic
 from ..reader import read
 from ..reading import Reading, exact_text
-from .expansions import empty_result, expansion_result, words_result
+from .expansions import empty_result, expansion_result, sign_result, words_result
 from .markup import (TEI_NS, TeiError, has_expansion, leiden_text, local_name, notation_hint,
                      num_pieces, parse_tei, plain_text, read_bytes)
 from ..tables.tei import table_to_dataframe
@@ -91,6 +91,7 @@ class NumResult:
     div: str | None = None          # the <div> it is in
     read_from: str | None = None    # letters, expansion, words, words before; None: not read
     expanded: bool = False          # the editor wrote part of it out (<ex>)
+    loose: tuple | None = None      # the range if each counted lacuna held fewer letters
 
     def to_dict(self) -> dict:
         # The text as numcheck read it (NFC): decomposed accents give the same JSON.
@@ -263,7 +264,11 @@ def _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of, f
     if res.expanded and expansion_result(res, pieces, plain):
         return res, None
     if not has_letters:
-        empty_result(res, el, pieces)
+        inside = [c for c in el if local_name(c) and local_name(c) not in ("certainty", "note")]
+        if inside:
+            sign_result(res, inside)
+        else:
+            empty_result(res, el, pieces)
         return res, None
     if looks_like_words(plain) and read_words(plain) is not None:
         # ἕξ is the word six, not the letters ε and ξ.
@@ -284,7 +289,7 @@ def _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of, f
         return res, None
     try:
         return _annotate_reading(el, res, reading, text, fix, alternatives, restore_fn, index_of,
-                                 from_table)
+                                 from_table, pieces)
     except NumcheckError as err:
         res.status = "unreadable"
         res.message = _reason(err)
@@ -299,7 +304,31 @@ def _reason(err) -> str:
     return text.split("\n", 1)[0]
 
 
-def _annotate_reading(el, res, reading, text, fix, alternatives, restore_fn, index_of, from_table):
+def _loose_range(pieces, reading, unit_fraction: bool):
+    """The range of the letters if each counted lacuna held fewer letters, or None.
+
+    An editor's count of lost letters may include a numeral sign or a space;
+    a value that fits a shorter lacuna is one ``--fix`` must not overwrite.
+    """
+    from .markup import Piece
+
+    if not any(p.kind in ("lost", "illegible") and p.count for p in pieces):
+        return None
+    loose = [Piece(p.kind, p.text, None) if p.kind in ("lost", "illegible") else p for p in pieces]
+    try:
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore", NumcheckWarning)
+            other = read(leiden_text(loose, reading.notation), notation=reading.notation)
+    except NumcheckError:
+        return None
+    lo, hi = other.min, other.max
+    if unit_fraction:
+        return (1 / hi, 1 / lo) if lo > 0 else None
+    return lo, hi
+
+
+def _annotate_reading(el, res, reading, text, fix, alternatives, restore_fn, index_of, from_table,
+                      pieces):
     res.text, res.notation = text, reading.notation
     res.damaged, res.warnings = reading.damaged, list(reading.warnings)
     res.read_from = "letters"
@@ -316,6 +345,8 @@ def _annotate_reading(el, res, reading, text, fix, alternatives, restore_fn, ind
     res.value = exact
     if exact is None:
         res.at_least, res.at_most = lo, hi
+    if fix and reading.damaged:
+        res.loose = _loose_range(pieces, reading, res.unit_fraction)
     edit = Edit()
     decide(res, edit, existing, reading, exact, lo, hi, fix)
     if alternatives and restore_fn is not None and reading.count > 1:

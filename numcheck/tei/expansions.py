@@ -23,7 +23,7 @@ from ..reading import exact_text
 from .markup import text_before, word_text
 from .words import read_words, trailing_number_words
 
-__all__ = ["expansion_result", "words_result", "empty_result"]
+__all__ = ["expansion_result", "words_result", "empty_result", "sign_result"]
 
 
 def _editor_value(existing: dict) -> Fraction | None:
@@ -125,3 +125,16 @@ def empty_result(res, el, pieces) -> None:
     # The words are found by their place, not marked up: a disagreement is
     # said, not called a contradiction.
     _compare(res, reading, "words before it", contradict=False)
+
+
+def sign_result(res, inside) -> None:
+    """A ``<num>`` with markup but no letters to read (a ``<g>`` sign, a deletion ...)."""
+    res.notation, res.status, res.read_from = "", "not-checkable", None
+    shown = []
+    for c in inside:
+        name = c.tag.rsplit("}", 1)[-1]
+        kind = c.get("type") or c.get("ref") or ""
+        shown.append(f"<{name} {kind}>".replace(" >", ">") if kind else f"<{name}>")
+    res.text = " ".join(shown)
+    res.message = (f"no letters to read, only {res.text}: the editor's value is kept, not checked"
+                   if res.existing else f"no letters to read, only {res.text}, and no value given")

@@ -149,12 +149,16 @@ def other_readings(reading: Reading) -> set[Fraction]:
     return out
 
 
-def fix_refusal(res) -> str | None:
+def fix_refusal(res, written: Fraction | None = None) -> str | None:
     """Why ``--fix`` may not replace the editor's value here, or None when it may.
 
-    Only where the letters are plainly a numeral: not where they were read
-    only after cleaning (accents or breathings left out: a word, perhaps),
-    nor where the editor expanded part of the number (``<ex>``).
+    Only where the letters are plainly a numeral and no loose reading of
+    them gives the value: not where they were read only after cleaning
+    (accents or breathings left out: a word, perhaps), nor where the editor
+    expanded part of the number (``<ex>``), nor where the value is the
+    letters' value in thousands (the thousands sign unwritten or lost), nor
+    where the value fits if a counted lacuna held fewer letters (a numeral
+    sign or a space counted among them).
     """
     from .words import looks_like_words
 
@@ -162,6 +166,12 @@ def fix_refusal(res) -> str | None:
         return "the letters carry accents or breathings: a word, perhaps, not a numeral"
     if res.expanded:
         return "the editor expanded part of the number (<ex>)"
+    if written is not None and res.value is not None and res.value and \
+            written == 1000 * res.value and res.value < 10 and res.value.denominator == 1:
+        return "the editor's value is the letter's in thousands: the thousands sign may be unwritten or lost"
+    loose = getattr(res, "loose", None)
+    if written is not None and loose is not None and loose[0] <= written <= loose[1]:
+        return "the value fits if the lacuna holds fewer letters than counted (a numeral sign, a space)"
     return None
 
 
@@ -193,7 +203,7 @@ def decide(res, edit: Edit, existing: dict, reading: Reading,
         else:
             res.message = (f"@value={raw!r} is not a reading the letters {res.text!r} allow "
                            f"({exact_text(lo)} to {exact_text(hi)})")
-        refusal = fix_refusal(res) if fix else None
+        refusal = fix_refusal(res, written) if fix else None
         if not fix or refusal:
             res.status = "contradiction"
             if refusal:
