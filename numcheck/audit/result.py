@@ -105,5 +105,6 @@ class AuditResult:
             # went on without them, as if they were lost.
             "unreadable": self.table.unreadable,
             "left_out": [{"column": k, "message": v} for k, v in self.table.left_out.items()],
+            "table_notes": list(getattr(self.table, "notes", [])),
             "note": SUGGESTION,
         }

@@ -53,7 +53,7 @@ from ...errors import LimitError, NumcheckSyntaxError, NumcheckWarning
 from ..grammars import parser_for
 from ... import limits
 from ...reading import Reading, Slot, Status
-from .build import group_slots
+from .build import group_slots, unread_mark_slot
 from .writing import format, render
 from .letters import BARRED, letter_value
 from .conventions import CONVENTIONS, GENERIC
@@ -167,7 +167,7 @@ def parse(text: str, *, ascending: bool = False, notation: str = NAME, conventio
         _raise_from_lark(text, err)
     state = {"lost": None, "added": None, "superfluous": None}
     trees = [piece for g in tree.children if isinstance(g, Tree) for piece in _split_runs(g)]
-    groups = [(_items(text, g, state, notes), g) for g in trees]
+    groups = [([] if _is_mark_group(g) else _items(text, g, state, notes), g) for g in trees]
     for name, opened in state.items():
         if opened is not None:
             fail(text, "a bracket opened and never closed", opened, f"a closing bracket for the {name} part")
@@ -180,8 +180,20 @@ def parse(text: str, *, ascending: bool = False, notation: str = NAME, conventio
     upper = False
     kinds = [_group_kind(index, items, g) for index, (items, g) in enumerate(groups)]
     places = "place" in kinds
+    alone = len(kinds) == 1
     for index, (items, tree_group) in enumerate(groups):
         gkind = kinds[index]
+        if gkind == "unread":
+            if index == 0:
+                fail(text, "a recognition mark '??' in place of the whole number", 0,
+                     "the letters of the whole part first")
+            if not places:
+                seen_fraction = seen_fraction if seen_fraction is not None else index
+            else:
+                place -= 1
+            base = dict(group=index, gkind="unread", upper=upper, keraia=False, ascending=ascending)
+            slots.append(unread_mark_slot(text, tree_group, place if places else 0, places, notes, base))
+            continue
         if gkind in ("unitfrac", "fraction"):
             seen_fraction = seen_fraction if seen_fraction is not None else index
         elif gkind == "place":
@@ -190,7 +202,7 @@ def parse(text: str, *, ascending: bool = False, notation: str = NAME, conventio
                       "the sexagesimal places before the unit fractions")
             place -= 1
         built = group_slots(text, index, items, tree_group, gkind, place if gkind == "place" else 0,
-                            ascending, notes, upper=upper, convention=convention, places=places)
+                            ascending, notes, upper=upper, convention=convention, places=places, alone=alone)
         upper = next((s.form[0].upper for s in built if s.form), upper)
         if gkind == "place" and len(built) == 1 and built[0].gap is not None:
             place -= built[0].gap[0] - 1
@@ -210,7 +222,14 @@ def parse(text: str, *, ascending: bool = False, notation: str = NAME, conventio
     return Reading(text=text, notation=notation, slots=tuple(slots), base=60, warnings=tuple(said))
 
 
+def _is_mark_group(group: Tree) -> bool:
+    """A group of '?' only: what a recognised text leaves for a sign it could not read."""
+    return all(t.type == "DOUBT" for t in group.children)
+
+
 def _group_kind(index: int, items: list[Item], group: Tree) -> str:
+    if _is_mark_group(group):
+        return "unread"
     if index == 0:
         return "whole"
     counted = [i for i in items if i.status is not Status.SUPERFLUOUS]

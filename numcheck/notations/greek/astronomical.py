@@ -24,6 +24,6 @@ def parse(text: str) -> Reading:
     """Read *text* as a Greek numeral of an astronomical text.
 
     >>> parse("ο νθ η").value
-    Fraction(1481, 1500)
+    Fraction(887, 900)
     """
     return _parse(text, notation=NAME, convention=ASTRONOMICAL)

@@ -44,16 +44,18 @@ _OMICRON_WHY = ("'ο' is seventy, or the zero as digital texts of Greek tables t
 
 
 def lone_letter(item: Item, group_text: str, convention: str, places: bool,
-                notes: list) -> tuple[tuple[int, ...], str] | None:
+                notes: list, alone: bool = True) -> tuple[tuple[int, ...], str] | None:
     """The values of a whole part written as one letter, when its convention matters.
 
     Returns ``(values, role)`` or None for an ordinary letter.  *places* says
-    that sexagesimal places follow the whole part.
+    that sexagesimal places follow the whole part, *alone* that nothing
+    follows it (a capital is thousands only standing alone: ``Ϛ ∠ʹ`` in an
+    astronomical text is 6 1/2).
     """
     if item.thousands or item.value is None:
         return None
     value = int(item.value)
-    if value == 70 and item.char == "ο":
+    if value == 70 and item.char in "οΟ":
         if convention == DOCUMENTARY:
             return None
         if convention == ASTRONOMICAL:
@@ -63,7 +65,7 @@ def lone_letter(item: Item, group_text: str, convention: str, places: bool,
         notes.append(f"{group_text!r} may be 0 or 70: {_OMICRON_WHY}; both readings are kept "
                      "(--notation greek-astronomical reads it as 0, greek-documentary as 70)")
         return (0, 70), "omicron"
-    if item.char.isupper() and exponent(value) == 0 and not places:
+    if item.char.isupper() and exponent(value) == 0 and alone:
         if convention == ASTRONOMICAL:
             return None
         if convention == DOCUMENTARY:

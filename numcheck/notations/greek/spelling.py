@@ -85,12 +85,21 @@ def clean(text: str) -> tuple[str, list[str]]:
                      "numeral (a recognised text often leaves them on the letters); the bare letters "
                      "were read")
         text = unicodedata.normalize("NFC", "".join(out))
+    groups = text.split(" ")
+    if any(g in ("o", "O") for g in groups):
+        notes.append("'o' (U+006F LATIN SMALL LETTER O) standing alone in a group read as the Greek "
+                     "omicron ο: recognised texts type the Greek zero or seventy with the Latin letter")
+        text = " ".join("ο" if g == "o" else "Ο" if g == "O" else g for g in groups)
     body = text.rstrip(" ")
+    if body.endswith("\u00b7"):   # GREEK ANO TELEIA (NFC: MIDDLE DOT) as punctuation
+        body = body[:-1] + "."
     if body.endswith(".") and not body.endswith("..") and len(body) > 1:
         before = body[-2]
         group = body[:-1].split(" ")[-1]
         if before in _CLOSED or (before in _UNITS and len(group) > 1 and group[-2] not in "[<{͵."):
-            notes.append(f"the full stop after {body[:-1]!r} left out: no letter can stand after "
-                         f"{before!r}, so it is punctuation, not an unread letter")
+            mark = text.rstrip(" ")[-1]
+            notes.append(f"the {'full stop' if mark == '.' else 'ano teleia ·'} after {body[:-1]!r} left "
+                         f"out: no letter can stand after {before!r}, so it is punctuation, not an "
+                         "unread letter")
             text = body[:-1]
     return text, notes
