@@ -302,3 +302,30 @@ def test_a_sign_glyph_keeps_the_editors_value_and_takes_no_words_from_before():
     (n,) = result.nums
     assert (n.status, n.read_from, n.value) == ("not-checkable", None, None)
     assert "obol" in n.text
+
+
+# -- tables written as lists ------------------------------------------------------
+
+LIST_TABLE = '''<list rend="table">
+  <list rend="row" type="head"><label>day</label><label>amount</label></list>
+  <item><list rend="row"><item><num>α</num></item><item><num>ι</num></item></list></item>
+  <list rend="row"><item><num>β</num></item><item><num>κ</num></item></list>
+  <list rend="row"><item><num>γ</num></item><item><num>λ</num></item></list>
+  <list rend="row"><item><num>δ</num></item><item><num>ν</num></item></list>
+  <list rend="row"><item><num>ε</num></item><item><num>ν</num></item></list>
+  <list rend="row"><item><num>ϛ</num></item><item>Ἀπολλώνιος</item></list>
+</list>'''
+
+
+def test_a_table_written_as_lists_is_audited(tmp_path):
+    # <list rend="table"> of <list rend="row"> (TEI P5 §3.8 lists, @rend for the layout)
+    from numcheck.audit import audit
+
+    path = tmp_path / "list.xml"
+    path.write_bytes(doc("</ab>" + LIST_TABLE + "<ab>"))
+    out = audit(path).to_dict()
+    assert out["columns"] == ["day", "amount"]
+    # a name in the amount column is listed and the audit goes on with the rest
+    assert [(u["row"], u["column"], u["text"]) for u in out["unreadable"]] == [(6, "amount", "Ἀπολλώνιος")]
+    assert [(f["row"], f["column"], f["written"], f["expected"]) for f in out["flags"]] == [
+        (4, "amount", "ν", "μ")]
