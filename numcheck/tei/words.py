@@ -184,6 +184,8 @@ def trailing_number_words(text: str) -> WordsReading | None:
     Fraction(200, 1)
     >>> trailing_number_words("ἠγόρασας ἐκ δραχμῶν") is None
     True
+    >>> Fraction(1, 50) in trailing_number_words("ἑκατοστὴν καὶ πεντηκοστὴν").values
+    True
     """
     tokens = _tokens(text)
     run: list[str] = []
@@ -196,4 +198,13 @@ def trailing_number_words(text: str) -> WordsReading | None:
             break
     while run and word_key(run[0]) in _JOINERS:
         run.pop(0)
-    return read_words(" ".join(run)) if run else None
+    if not run:
+        return None
+    whole = read_words(" ".join(run))
+    if whole is None or len(run) == 1:
+        return whole
+    # Two taxes named together (ἑκατοστὴν καὶ πεντηκοστήν) are no one number:
+    # the last word alone is a reading too, after the run as a whole.
+    last = read_words(run[-1])
+    extra = tuple(v for v in last.values if v not in whole.values) if last else ()
+    return WordsReading(whole.values + extra, whole.words, whole.kinds)
