@@ -329,3 +329,12 @@ def test_a_table_written_as_lists_is_audited(tmp_path):
     assert [(u["row"], u["column"], u["text"]) for u in out["unreadable"]] == [(6, "amount", "Ἀπολλώνιος")]
     assert [(f["row"], f["column"], f["written"], f["expected"]) for f in out["flags"]] == [
         (4, "amount", "ν", "μ")]
+
+
+def test_a_word_not_in_the_table_is_a_word_not_letters():
+    # δίμοιρον (two-thirds) is not in the table: kept as a word, never read letter by letter
+    body = '<num value="2/3">δίμοιρον</num>'
+    out, result = run(body, fix=True)
+    (n,) = result.nums
+    assert (n.status, n.read_from, n.value) == ("word", None, None)
+    assert out == doc(body)

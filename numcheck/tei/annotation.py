@@ -45,7 +45,7 @@ from ..notations import NOTATIONS
 from .places import num_places
 from .values import (CERTAINTY_MATCHES, certainty_match, decide, is_unit_fraction,
                      positive_range, unresolved)
-from .words import looks_like_words, read_words
+from .words import is_word, looks_like_words, read_words
 from .write import Edit, apply_edits, apply_edits_tree, decode_source, scan_elements
 
 __all__ = ["annotate", "annotate_bytes", "AnnotateResult", "NumResult", "TeiError",
@@ -270,8 +270,8 @@ def _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of, f
         else:
             empty_result(res, el, pieces)
         return res, None
-    if looks_like_words(plain) and read_words(plain) is not None:
-        # ἕξ is the word six, not the letters ε and ξ.
+    if looks_like_words(plain) and (read_words(plain) is not None or is_word(plain)):
+        # ἕξ is the word six, not the letters ε and ξ; δίμοιρον is a word too.
         words_result(res, plain)
         return res, None
     try:

@@ -27,7 +27,7 @@ from fractions import Fraction
 from importlib import resources
 
 __all__ = ["WordEntry", "WordsReading", "word_key", "lookup", "read_words", "trailing_number_words",
-           "looks_like_words"]
+           "looks_like_words", "is_word"]
 
 #: Marks dropped before looking a word up: accents, diaeresis, iota subscript,
 #: length marks and the underdot.  Breathings stay: they tell ἕξ (six) from ἐξ
@@ -175,6 +175,20 @@ def looks_like_words(text: str) -> bool:
     if any(c in _DROP or c in ("\u0313", "\u0314") for c in letters):
         return True
     return any(len(t) > 4 and t.isalpha() for t in _tokens(text))
+
+
+def is_word(text: str) -> bool:
+    """Whether *text* is plainly a written word: accents or breathings on four letters or more.
+
+    A numeral is a few bare letters; an editor's text may leave an accent on
+    one (``μὲ``), but not on a run of four.
+
+    >>> is_word("δίμοιρον"), is_word("μὲ"), is_word("αχο")
+    (True, False, False)
+    """
+    marked = any(c in _DROP or c in ("\u0313", "\u0314")
+                 for c in unicodedata.normalize("NFD", text))
+    return marked and any(len(t) >= 4 and t.isalpha() for t in _tokens(text))
 
 
 def trailing_number_words(text: str) -> WordsReading | None:
