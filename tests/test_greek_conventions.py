@@ -71,7 +71,12 @@ NOISY = [
     ("ιε.", 15, "full stop", "a trailing full stop"),
     ("κθ λα.", F(1771, 60), "full stop", "a full stop after a sexagesimal place"),
     ("δʹ.", 4, "full stop", "a full stop after the numeral sign"),
+    ("κθ ° λ", F(3481, 120), "U+00B0", "the zero typed as a degree sign (a small circle)"),
 ]
+
+
+def test_a_degree_sign_after_a_number_is_still_a_unit():
+    assert read("12;30°").unit is not None and read("12;30°").value == F(25, 2)
 
 
 @pytest.mark.parametrize("text, value, named, note", NOISY)
@@ -177,3 +182,23 @@ def test_capital_thousands_written_back():
     r = read("Γ", notation="greek")
     assert render_choice(r, (F(3000),)) == "͵Γ"
     assert render_choice(r, (F(3),)) == "Γ"
+
+
+@pytest.mark.parametrize("text", ["ο νθ η ιζ ιγ ιβ λα", "ο λβ γ", "Γ", "ο", "κε ∠ʹ γʹ", "β ∠ʹ δʹ", "κθ ??",
+                                  "κθ 𐆊 λ", "ϛ γʹ ιβʹ"])
+def test_canonical_forms_write_back_as_read(text):
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", NumcheckWarning)
+        r = parse(text)
+        assert format_reading(r) == text
+        again = parse(format_reading(r))
+    assert [s.values for s in again.slots] == [s.values for s in r.slots]
+
+
+def test_every_choice_of_an_unread_fraction_reads_back():
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", NumcheckWarning)
+        r = parse("κθ ??")
+        for v in r.slots[-1].values:
+            choice = tuple(s.values[0] for s in r.slots[:-1]) + (v,)
+            assert parse(render_choice(r, choice)).value == 29 + v

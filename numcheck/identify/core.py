@@ -335,17 +335,15 @@ def _match(reading, tab, how, item, idx, factor, scale, target, residual, v) -> 
 
 def _nearest(reading: Reading, tab: _t.Table, count: int = 5) -> tuple[dict, ...]:
     """The catalogue numbers (factor 1) closest to the reading, and how far they are."""
-    import numpy as np
-
     value = float(reading.value)
-    if not len(tab.values):
+    if not tab.values:
         return ()
     best = []
     for scale in _scales(reading):
         v = value * 60.0 ** scale
-        rel = np.abs(tab.values - v) / tab.values
-        for i in np.argsort(rel)[:count]:
-            best.append((float(rel[i]), int(i), scale))
+        rel = [abs(x - v) / x for x in tab.values]
+        for i in sorted(range(len(rel)), key=rel.__getitem__)[:count]:
+            best.append((rel[i], i, scale))
     best.sort()
     out, seen = [], set()
     for rel, i, scale in best:

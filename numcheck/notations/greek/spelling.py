@@ -13,7 +13,7 @@ from __future__ import annotations
 import re
 import unicodedata
 
-__all__ = ["clean", "ACCENTS", "CODE_POINT_SIGNS"]
+__all__ = ["clean", "degree_sign_as_zero", "ACCENTS", "CODE_POINT_SIGNS"]
 
 #: Combining accents and breathings a recognised Greek text leaves on letters
 #: (Unicode names: COMBINING GRAVE/ACUTE ACCENT, COMBINING DIAERESIS, COMBINING
@@ -34,6 +34,22 @@ _CODE_POINT = re.compile(r"[Uu]\+([0-9A-Fa-f]{4,5})")
 _UNITS = frozenset("αβγδεϛςϝζηθΑΒΓΔΕϚϜΖΗΘ")
 _CLOSED = frozenset("\u02b9'\u2019\u2032\u00b4\u02ca\u0384\u02bc∠\U00010175\U00010176\U00010177"
                     "\U00010178\U0001018B\U0001018Aō")
+
+
+_GREEK_LETTER = re.compile(r"[\u0370-\u03FF\u1F00-\u1FFF]")
+
+
+def degree_sign_as_zero(text: str) -> bool:
+    """Whether *text* is a Greek numeral with a degree sign standing alone as a group.
+
+    Digital texts of Greek tables type the zero sign as ``°`` (a small circle):
+    ``κθ ° λ`` is 29;0,30, not a quantity in degrees.
+
+    >>> degree_sign_as_zero("κθ ° λ"), degree_sign_as_zero("12;30°")
+    (True, False)
+    """
+    groups = text.split()
+    return "°" in groups and any(_GREEK_LETTER.search(g) for g in groups if g != "°")
 
 
 def _name(ch: str) -> str:
@@ -86,6 +102,11 @@ def clean(text: str) -> tuple[str, list[str]]:
                      "were read")
         text = unicodedata.normalize("NFC", "".join(out))
     groups = text.split(" ")
+    if "°" in groups:
+        notes.append("'°' (U+00B0 DEGREE SIGN) standing alone in a group read as the zero sign 𐆊: "
+                     "digital texts of Greek tables type the zero as a small circle")
+        groups = ["\U0001018A" if g == "°" else g for g in groups]
+        text = " ".join(groups)
     if any(g in ("o", "O") for g in groups):
         notes.append("'o' (U+006F LATIN SMALL LETTER O) standing alone in a group read as the Greek "
                      "omicron ο: recognised texts type the Greek zero or seventy with the Latin letter")
