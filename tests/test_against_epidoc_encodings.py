@@ -338,3 +338,13 @@ def test_a_word_not_in_the_table_is_a_word_not_letters():
     (n,) = result.nums
     assert (n.status, n.read_from, n.value) == ("word", None, None)
     assert out == doc(body)
+
+
+@pytest.mark.parametrize("form", ["NFC", "NFD"])
+def test_words_and_expansions_read_the_same_in_either_normal_form(form):
+    import unicodedata
+
+    body = unicodedata.normalize(form, '<num value="6">ἕξ</num> <num value="2"><expan><ex>διώβολον</ex>'
+                                       '</expan></num> <num>2 bēru 10 UŠ</num>')
+    _, result = run(body)
+    assert [(n.status, n.value) for n in result.nums] == [("word", 6), ("agrees", 2), ("value-added", 70)]

@@ -165,20 +165,39 @@ def read_words(text: str, numerals: bool = False) -> WordsReading | None:
     return WordsReading(values, tuple(words), kinds)
 
 
-def looks_like_words(text: str) -> bool:
-    """Whether *text* is written words rather than a numeral (accents, breathings, or long).
+def _greek(c: str) -> bool:
+    return "\u0370" <= c <= "\u03ff" or "\u1f00" <= c <= "\u1fff"
 
-    >>> looks_like_words("πεντώβολον"), looks_like_words("ιβ")
-    (True, False)
+
+def _marked_greek(text: str) -> bool:
+    """Whether an accent or breathing sits on a Greek letter of *text* (any normal form)."""
+    base = ""
+    for c in unicodedata.normalize("NFD", text):
+        if unicodedata.combining(c):
+            if _greek(base) and (c in _DROP or c in ("\u0313", "\u0314")):
+                return True
+        else:
+            base = c
+    return False
+
+
+def _greek_tokens(text: str) -> list[str]:
+    return [t for t in _tokens(unicodedata.normalize("NFC", text)) if any(_greek(c) for c in t)]
+
+
+def looks_like_words(text: str) -> bool:
+    """Whether *text* is Greek words rather than a numeral (accents, breathings, or long).
+
+    >>> looks_like_words("πεντώβολον"), looks_like_words("ιβ"), looks_like_words("2 bēru 10 UŠ")
+    (True, False, False)
     """
-    letters = [c for c in unicodedata.normalize("NFD", text) if not c.isspace()]
-    if any(c in _DROP or c in ("\u0313", "\u0314") for c in letters):
+    if _marked_greek(text):
         return True
-    return any(len(t) > 4 and t.isalpha() for t in _tokens(text))
+    return any(len(t) > 4 and t.isalpha() for t in _greek_tokens(text))
 
 
 def is_word(text: str) -> bool:
-    """Whether *text* is plainly a written word: accents or breathings on four letters or more.
+    """Whether *text* is plainly a written Greek word: accents or breathings, four letters or more.
 
     A numeral is a few bare letters; an editor's text may leave an accent on
     one (``μὲ``), but not on a run of four.
@@ -186,9 +205,7 @@ def is_word(text: str) -> bool:
     >>> is_word("δίμοιρον"), is_word("μὲ"), is_word("αχο")
     (True, False, False)
     """
-    marked = any(c in _DROP or c in ("\u0313", "\u0314")
-                 for c in unicodedata.normalize("NFD", text))
-    return marked and any(len(t) >= 4 and t.isalpha() for t in _tokens(text))
+    return _marked_greek(text) and any(len(t) >= 4 and t.isalpha() for t in _greek_tokens(text))
 
 
 def trailing_number_words(text: str) -> WordsReading | None:
