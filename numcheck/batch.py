@@ -106,6 +106,7 @@ class BatchResult:
             "damaged": sum(f.get("damaged", 0) for f in ok),
             "flagged": sum(f.get("flagged", 0) for f in ok),
             "restored": sum(f.get("restored", 0) for f in ok),
+            "unreadable": sum(f.get("unreadable", 0) for f in ok),
         }
 
     def findings(self) -> list[dict]:
@@ -416,8 +417,11 @@ def _annotate_one(job: tuple) -> dict:
         entry["error"] = short(str(err), limits.MAX_ECHO * 4)
         return entry
     d = result.to_dict()
-    entry.update({k: d[k] for k in ("numbers", "damaged", "flagged", "restored", "statuses")})
+    entry.update({k: d[k] for k in ("numbers", "damaged", "flagged", "restored", "unreadable",
+                                    "statuses")})
     entry["contradictions"] = [n for n in d["nums"] if n["status"] in ("contradiction", "fixed")]
+    # A number that cannot be read is listed with its place; the file was still annotated.
+    entry["unreadable_nums"] = [n for n in d["nums"] if n["status"] == "unreadable"]
     if d["notes"]:
         entry["notes"] = d["notes"]
     return entry
@@ -477,14 +481,16 @@ def annotate_folder(in_dir: str | os.PathLike, out_dir: str | os.PathLike, *,
 # -- audit ----------------------------------------------------------------
 
 def _audit_one(job: tuple) -> dict:
-    rel, src, report_dir, notation, relation = job
+    rel, src, report_dir, notation, relation, scheme, *rest = job
+    model, join = rest if rest else (None, None)
     from .audit import audit
 
     from .tei.markup import NoTableError
 
     entry: dict = {"file": display_name(rel)}
     try:
-        result = audit(Path(src), notation=notation, relation=relation)
+        result = audit(Path(src), notation=notation, relation=relation, scheme=scheme,
+                       model=model, join=join)
     except NoTableError as err:
         entry["skipped"] = short(str(err), limits.MAX_ECHO * 4)
         return entry
@@ -499,6 +505,7 @@ def _audit_one(job: tuple) -> dict:
         "damaged": damaged,
         "flagged": len(flags),
         "restored": len({(r.get("row"), r.get("column")) for r in restorations}),
+        "unreadable": len(d.get("unreadable", [])),
         "schemes": d.get("schemes", []),
         "flags": flags,
         "restorations": restorations,
@@ -552,7 +559,7 @@ def _write_reports(result, report_dir: Path, rel: str) -> dict:
 def audit_folder(in_dir: str | os.PathLike, *, report_dir: str | os.PathLike | None = None,
                  notation: str | None = None, relation=None, workers: int | None = None,
                  progress: Progress | None = None, summary_dir: str | os.PathLike | None = None,
-                 fresh: bool = False) -> dict:
+                 fresh: bool = False, scheme=None, model=None, join=None) -> dict:
     """Audit every table (``.tsv``, ``.csv``, a TEI ``.xml`` with a ``<table>``) under *in_dir*.
 
     With *report_dir*, each file gets its HTML report, plot and flags CSV
@@ -577,11 +584,15 @@ def audit_folder(in_dir: str | os.PathLike, *, report_dir: str | os.PathLike | N
     jobs, stamps = [], []
     for p in files:
         jobs.append((p.relative_to(src_root).as_posix(), str(p),
-                     str(rdir) if rdir is not None else None, notation, relation))
+                     str(rdir) if rdir is not None else None, notation, relation, scheme,
+                     model, join))
         stamps.append(_stamp(str(p)))
     key = {"kind": "audit", "input": display_name(os.path.realpath(src_root)),
            "reports": display_name(os.path.realpath(rdir)) if rdir is not None else None,
-           "notation": notation, "relation": relation if isinstance(relation, str) else repr(relation)}
+           "notation": notation, "relation": relation if isinstance(relation, str) else repr(relation),
+           "scheme": scheme if scheme is None or isinstance(scheme, str) else repr(scheme),
+           "model": model if model is None or isinstance(model, str) else repr(model),
+           "join": join if join is None or isinstance(join, str) else repr(join)}
     journal = _Journal(sdir, key)
     if fresh:
         journal.clear()
