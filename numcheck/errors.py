@@ -26,7 +26,21 @@ class NumcheckWarning(UserWarning):
 
 
 class NumcheckError(ValueError):
-    """Base of every error a user of numcheck can cause."""
+    """Base of every error a user of numcheck can cause.
+
+    A message is at most ``limits.MAX_MESSAGE`` characters: a longer one (a
+    message that quotes a pasted input whole) keeps its beginning and its end
+    and says how much was left out.
+    """
+
+    def __init__(self, *args):
+        from . import limits
+
+        if len(args) == 1 and isinstance(args[0], str) and len(args[0]) > limits.MAX_MESSAGE:
+            text, keep = args[0], max(40, limits.MAX_MESSAGE // 2)
+            args = (f"{text[:keep]} … [{len(text) - 2 * keep:,} characters left out] … "
+                    f"{text[-keep:]}",)
+        super().__init__(*args)
 
 
 def caret_line(text: str, position: int) -> str:

@@ -74,3 +74,5 @@ MAX_RELATION_TOKENS = 200
 #: A table cell whose text allows more readings than this (a Greek 'ο' as 0 or 70, times
 #: other open places) is not decided by its column; the audit restores it from the scheme.
 SETTLE_MAX_READINGS = 16
+#: Longest message of an error (characters): a longer one keeps its beginning and its end.
+MAX_MESSAGE = 2000

@@ -330,3 +330,12 @@ def test_stale_temp_seconds(monkeypatch, tmp_path):
     assert sweep_stale_temporaries(tmp_path) == []
     monkeypatch.setattr(limits, "STALE_TEMP_SECONDS", -1)
     assert sweep_stale_temporaries(tmp_path) == [mine.name]
+
+
+def test_max_message(monkeypatch):
+    from numcheck.errors import NumcheckError
+    monkeypatch.setattr(limits, "MAX_MESSAGE", 100)
+    err = NumcheckError("start " + "q" * 10_000 + " end")
+    assert len(str(err)) < 200 and str(err).startswith("start") and str(err).endswith("end")
+    assert "characters left out" in str(err)
+    assert str(NumcheckError("short")) == "short"
