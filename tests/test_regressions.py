@@ -151,6 +151,20 @@ CASES = [
      "restore: Attic restorations that break the sign order ('[ΔΗ]Δ'), which read rejects"),
     ("restore-readback", ("[ΗΗΗ]Δ", "attic"), "restore: the same with three restored signs"),
     ("restore-readback", ("[...]Δ", "attic"), "restore: lost Attic signs of unknown number"),
+    ("audit-file", (".tsv", b"\xff\xfe" + "A\tB\n1\t2\n".encode("utf-16-le") + b"\x00\xd8"
+                    + "\t3\n".encode("utf-16-le")),
+     "audit: a UTF-16 table with a lone surrogate raised UnicodeEncodeError"),
+    ("audit-file", (".csv", ('A,B\n"' + "1" * 140_000 + '",2\n3,4\n').encode()),
+     "audit: a quoted CSV cell over 131,072 characters raised _csv.Error"),
+    ("audit-file", (".tsv", b"A\tB\n\x00\x01\x02\x03"), "audit: a binary file read as a table"),
+    ("audit-relation", "B = A mod x", "audit --relation 'B = A mod x' raised ValueError"),
+    ("audit-relation", "B = A mod 1e3", "audit --relation 'B = A mod 1e3' raised ValueError"),
+    ("audit-relation", "B = " + "(" * 1000 + "A" + ")" * 1000,
+     "audit: a relation of 1,000 parentheses raised RecursionError"),
+    ("audit-relation", "B = " + " + ".join(["A"] * 1000),
+     "audit: a relation of 1,000 terms raised RecursionError"),
+    ("audit-relation", float("inf"), "audit: relation=inf raised TypeError"),
+    ("audit-relation", [1], "audit: relation=[1] raised TypeError (a list of relations holds texts)"),
     ("audit-wide", 300, "audit: 1,000 columns x 3 rows took 152 s (cubic cross-column fit); "
                         "300 columns here (the fit is now linear in the columns past 20)"),
     ("write-back", 50_000,
@@ -220,6 +234,17 @@ def _run(entry: str, data) -> None:
             again = numcheck.read(cand.text, notation=notation)
             assert again.value == cand.value, (cand.text, cand.value)
         assert sum(c.probability for c in result.candidates) <= 1 + 1e-9
+    elif entry == "audit-file":
+        import tempfile
+        from pathlib import Path
+        suffix, raw = data
+        with tempfile.TemporaryDirectory() as tmp:
+            path = Path(tmp) / ("t" + suffix)
+            path.write_bytes(raw)
+            numcheck.audit(path).to_dict()
+    elif entry == "audit-relation":
+        frame = pd.DataFrame({"A": ["1", "2", "3"], "B": ["1", "3", "6"]}, dtype=object)
+        numcheck.audit(frame, relation=data).to_dict()
     elif entry == "audit-wide":
         frame = pd.DataFrame({f"c{i}": [str(i), str(i + 1), str(i + 3)] for i in range(data)},
                              dtype=object)

@@ -75,9 +75,16 @@ def _own(frame: Frame, name: str) -> Scheme | None:
 
 
 def _listed(texts) -> list[str]:
-    if not texts:
-        return []
-    return [texts] if isinstance(texts, str) else [t for t in texts if t]
+    # The door of relation= and scheme=: a text, or a list or tuple of texts.
+    if texts is None or isinstance(texts, str):
+        return [texts] if texts else []
+    bad = texts if not isinstance(texts, (list, tuple)) else next(
+        (t for t in texts if t is not None and not isinstance(t, str)), None)
+    if bad is not None:
+        from ..errors import NumcheckError
+        raise NumcheckError(f"A relation or scheme is a text like 'C = A + B' (or a list of "
+                            f"them), not {type(bad).__name__}.")
+    return [t for t in texts if t]
 
 
 def _stated(frame: Frame, relation, scheme) -> dict[str, Scheme]:
