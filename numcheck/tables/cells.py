@@ -238,7 +238,7 @@ def _fast(row, column, number, notation, text) -> Cell | None:
     # Too many places, or a place of more digits than the reader accepts:
     # let the reader give its own error (the same limits as numcheck.read).
     if number.count(",") + number.count(";") >= limits.MAX_PLACES or \
-            any(len(p) > 6 for p in _SEPARATORS.split(number.lstrip("-"))):
+            any(len(p) > limits.MAX_WHOLE_PLACE_DIGITS for p in _SEPARATORS.split(number.lstrip("-"))):
         return None
     neg = number.startswith("-")
     whole, _, frac = (number[1:] if neg else number).partition(";")
