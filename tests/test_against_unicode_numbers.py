@@ -23,3 +23,15 @@ UCD = unicodedata.unidata_version
 def test_apostrophic_forms_equal_unicode_values(written, char):
     assert read(written, notation="roman").value == int(unicodedata.numeric(char)), UCD
     assert read(char, notation="roman").value == read(written, notation="roman").value
+
+
+@pytest.mark.parametrize("zero,name", [(0x0660, "arabic-indic"), (0x06F0, "persian"), (0x0966, "devanagari")])
+def test_every_digit_has_its_unicode_decimal_value(zero, name):
+    for k in range(10):
+        ch = chr(zero + k)
+        assert read(ch, notation=name).value == unicodedata.decimal(ch), (UCD, unicodedata.name(ch))
+        assert read(ch).notation == name
+    # Two-digit numbers in each script, against the UCD values digit by digit.
+    for tens in range(1, 10):
+        text = chr(zero + tens) + chr(zero + 7)
+        assert read(text).value == 10 * unicodedata.decimal(text[0]) + unicodedata.decimal(text[1])

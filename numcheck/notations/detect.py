@@ -12,6 +12,8 @@ The rules, in the order they are tried (each names the evidence that decided):
    a repeated sign (ΔΔ, ΙΙΙ) points to Attic (alphabetic numerals never
    repeat a letter), and so does an order that is Attic (largest first) but
    not alphabetic; otherwise alphabetic, and the reason says Attic was possible.
+4b. Arabic-Indic, Persian (extended Arabic-Indic) or Devanagari digits ->
+   ``arabic-indic``, ``persian`` or ``devanagari``.
 5. Roman numeral letters (I V X L C D M, j) or the Unicode Number Forms
    (U+2160 block), with no digits -> ``roman``; but a lone small ``x`` or an
    ``x`` with Leiden marks (``[x]``, ``x,x``) is an unread sexagesimal place.
@@ -26,6 +28,8 @@ from __future__ import annotations
 
 import re
 import unicodedata
+
+from .digits import script_of
 
 __all__ = ["detect_notation", "ATTIC_CAPITALS"]
 
@@ -83,6 +87,10 @@ def detect_notation(text: str) -> tuple[str, str]:
         return _greek_or_attic(greek)
     if any(c in _GREEK_SIGNS for c in text):
         return "greek", "a Greek numeral sign (zero sign, fraction sign or lower numeral sign)"
+    for c in text:
+        script = script_of(c)
+        if script is not None:
+            return script.name, f"{script.label} digits ({_name(c)})"
     number_forms = [c for c in text if 0x2160 <= ord(c) <= 0x2188]
     if number_forms:
         return "roman", f"Unicode Roman numeral characters ({_name(number_forms[0])})"
