@@ -26,6 +26,7 @@ NOTATIONS: dict[str, str] = {
     "greek": "numcheck.notations.greek",
     "greek-ascending": "numcheck.notations.greek.ascending",
     "attic": "numcheck.notations.attic",
+    "hebrew": "numcheck.notations.hebrew",
     "arabic-indic": "numcheck.notations.digits.arabic_indic",
     "persian": "numcheck.notations.digits.persian",
     "devanagari": "numcheck.notations.digits.devanagari",

@@ -3,7 +3,8 @@
 The rules, in the order they are tried (each names the evidence that decided):
 
 1. Unicode cuneiform numeric signs (U+12400 block, DIŠ, U) -> ``cuneiform``.
-2. Arabic-script letters -> ``abjad`` (eastern order; ``--notation
+2. Hebrew letters -> ``hebrew``.
+2b. Arabic-script letters -> ``abjad`` (eastern order; ``--notation
    abjad-maghribi`` for the western values).
 3. An Attic acrophonic sign (U+10140..U+10174) or the ASCII fallback of a
    combined sign (``Π(Δ)``) -> ``attic``.
@@ -73,6 +74,9 @@ def detect_notation(text: str) -> tuple[str, str]:
     cuneiform = [c for c in text if 0x12400 <= ord(c) <= 0x1247F or c in "\U00012079\U0001230B"]
     if cuneiform:
         return "cuneiform", f"Unicode cuneiform numeric signs ({_name(cuneiform[0])})"
+    hebrew = [c for c in text if 0x05D0 <= ord(c) <= 0x05EA]
+    if hebrew:
+        return "hebrew", f"Hebrew letters ({_name(hebrew[0])})"
     arabic = [c for c in text if _is_arabic_letter(c)]
     if arabic:
         return "abjad", ("Arabic-script letters (eastern abjad order; use --notation abjad-maghribi "
