@@ -27,6 +27,7 @@ NOTATIONS: dict[str, str] = {
     "greek-ascending": "numcheck.notations.greek.ascending",
     "attic": "numcheck.notations.attic",
     "hebrew": "numcheck.notations.hebrew",
+    "aryabhata": "numcheck.notations.aryabhata",
     "arabic-indic": "numcheck.notations.digits.arabic_indic",
     "persian": "numcheck.notations.digits.persian",
     "devanagari": "numcheck.notations.digits.devanagari",

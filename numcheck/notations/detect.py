@@ -18,6 +18,9 @@ The rules, in the order they are tried (each names the evidence that decided):
 5. Roman numeral letters (I V X L C D M, j) or the Unicode Number Forms
    (U+2160 block), with no digits -> ``roman``; but a lone small ``x`` or an
    ``x`` with Leiden marks (``[x]``, ``x,x``) is an unread sexagesimal place.
+5b. Latin letters that are all IAST letters of syllables (consonants and
+   their vowels, khyughṛ), not only Roman numeral letters -> ``aryabhata``
+   when the text is a whole number of syllables or carries an IAST diacritic.
 6. Digits: with ``,`` or ``;`` -> ``sexagesimal``; groups separated by spaces
    with no ``;`` -> ``cuneiform`` (the magnitude floats); plain digits ->
    ``sexagesimal`` (one place, an integer).
@@ -106,6 +109,8 @@ def detect_notation(text: str) -> tuple[str, str]:
                                "Roman ten use --notation roman)")
     if not digits and letters and all(c in _ROMAN for c in letters):
         return "roman", "the Latin letters of Roman numerals (I V X L C D M)"
+    if not digits and letters and all(c in _IAST for c in letters) and _aryabhata_like(text):
+        return "aryabhata", "IAST syllables (Āryabhaṭa's alphabetic numerals)"
     if digits:
         if "," in text or ";" in text:
             return "sexagesimal", "digits with sexagesimal separators (',' between places, ';' after the units)"
@@ -114,6 +119,22 @@ def detect_notation(text: str) -> tuple[str, str]:
                                  "whose magnitude the text does not fix")
         return "sexagesimal", "plain digits with no separator: one place, an integer"
     return "sexagesimal", "no numeral letters or signs of another notation; read as sexagesimal"
+
+
+_IAST = frozenset("aāiīuūṛṝḷḹeokgṅcjñṭḍṇtdnpbmyrlvśṣshx")
+_IAST_MARKED = frozenset("āīūṛṝḷḹṅñṭḍṇśṣ")
+
+
+def _aryabhata_like(text: str) -> bool:
+    if any(c in _IAST_MARKED for c in text):
+        return True
+    from .aryabhata import parse
+    from ..errors import NumcheckError
+    try:
+        parse(text)
+    except NumcheckError:
+        return False
+    return True
 
 
 def _greek_or_attic(letters: list[str]) -> tuple[str, str]:
