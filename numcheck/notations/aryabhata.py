@@ -220,7 +220,17 @@ def format(reading: Reading, choice: tuple[Fraction, ...] | None = None) -> str:
                 pieces.append(("[.]", None))
             else:
                 pieces.append((x.text + ("?" if x.doubtful else ""), _BRACKET.get(x.status)))
-    return join_marked(pieces)
+    return join_marked(_kept_apart(pieces))
+
+
+def _kept_apart(pieces: list[tuple[str, str | None]]) -> list[tuple[str, str | None]]:
+    """A hyphen (ignored when read) between a consonant and an h that would join it (k + h is not kh)."""
+    out: list[tuple[str, str | None]] = []
+    for text, bracket in pieces:
+        if out and out[-1][1] == bracket and text[:1] == "h" and out[-1][0][-1:] + "h" in CONSONANTS:
+            out.append(("-", bracket))
+        out.append((text, bracket))
+    return out
 
 
 def render(reading: Reading, choice: tuple[Fraction, ...]) -> str:

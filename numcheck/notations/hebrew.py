@@ -284,7 +284,7 @@ def _group_slot(text: str, marks: list[_Mark], place: int, fractional: bool,
     if fractional:
         over = [t for t in spellings if t > 59]
         spellings = {t: f for t, f in spellings.items() if t <= 59}
-        if not spellings:
+        if not spellings and over:
             raise NumcheckRangeError(
                 f"The sexagesimal place {written!r} is {min(over)}, but a sexagesimal place holds 0 to 59.",
                 value=min(over), legal="0 to 59", text=text, position=start)

@@ -65,6 +65,8 @@ BAD_EXAMPLES: list[tuple[str, int, str]] = [
     ("\u2183", 1, "a Number Forms character with no value of its own"),
     ("X]", 2, "a closing bracket with no opening bracket"),
     ("..", 1, "framing points with no letter"),
+    ("X[.?]", 3, "a framing point inside brackets"),
+    ("X.?", 3, "a doubt mark with no letter before it"),
     ("ↃI", 1, "a Number Forms character with no value of its own"),
     ("[X", 1, "a bracket opened and never closed"),
 ]
@@ -170,6 +172,9 @@ def _letters(text: str, nfd: str, where: list[int], tokens) -> list[_Letter]:
         if track_bracket(t, start, state, lambda pos, what, exp: _error(text, pos, what, exp)):
             continue
         if t == "POINT":
+            if state["lost"] is not None:
+                raise _error(text, start, "a framing point inside brackets",
+                             "points outside [ ] ('[.]' is a lost letter)")
             bracket = _BRACKET_OF(state)
             if letters:
                 letters[-1] = replace(letters[-1], after=letters[-1].after + ((str(tok), bracket),))
@@ -180,12 +185,12 @@ def _letters(text: str, nfd: str, where: list[int], tokens) -> list[_Letter]:
             letters.extend(_apostrophic(str(tok), start, state))
             continue
         if t in ("DOUBT", "UNDERDOT"):
-            if not letters or letters[-1].kind != "letter":
+            if not letters or letters[-1].kind != "letter" or letters[-1].after:
                 raise _error(text, start, "a doubt mark with no letter before it", "a letter before it")
             letters[-1] = replace(letters[-1], doubtful=True, end=max(letters[-1].end, end),
                                   mark="?" if t == "DOUBT" else "\u0323")
         elif t == "OVERLINE":
-            if not letters or letters[-1].kind != "letter" or letters[-1].value >= 1000 and \
+            if not letters or letters[-1].kind != "letter" or letters[-1].after or letters[-1].value >= 1000 and \
                     letters[-1].text.endswith("\u0305"):
                 raise _error(text, start, "an overline with no letter before it",
                              "a letter before the overline (U+0305)")
