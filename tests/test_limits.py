@@ -259,3 +259,14 @@ def test_whole_place_open_digits(monkeypatch):
     monkeypatch.setattr(limits, "MAX_WHOLE_PLACE_OPEN_DIGITS", 2)
     assert numcheck.read("1577xx;0").count == 100
     _raises_limit("MAX_WHOLE_PLACE_OPEN_DIGITS", numcheck.read, "157xxx;0")
+
+
+def test_settle_max_readings(monkeypatch):
+    # A column decides a Greek 'ο' (0 or 70) only while the cell allows few readings.
+    import pandas as pd
+    from numcheck.tables import read_table
+
+    df = pd.DataFrame({"min": ["νε", "ο", "ε", "ι"]})
+    assert read_table(df, notation="greek").columns["min"].values[1] == 0
+    monkeypatch.setattr(limits, "SETTLE_MAX_READINGS", 1)
+    assert read_table(df, notation="greek").columns["min"].values[1] is None

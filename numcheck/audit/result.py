@@ -101,5 +101,6 @@ class AuditResult:
             "flags": self.flags,
             "restorations": [r.to_dict() for r in self.restorations],
             "unchecked": list(self.unchecked),
+            "table_notes": list(getattr(self.table, "notes", [])),
             "note": SUGGESTION,
         }

@@ -53,6 +53,9 @@ def run(args, console) -> dict:
         out["written"] = written
     if console is not None:
         report.show(result, console)
+        from rich.markup import escape
+        for note in out.get("table_notes", []):
+            console.print(f"[yellow]note:[/yellow] {escape(note)}")
         for what, where in written.items():
             console.print(f"{what} written to {where}")
     return out
