@@ -142,7 +142,7 @@ def _plain(text: str, *, floating: bool, notation: str) -> Reading | None:
     for k, place in enumerate(whole + fraction):
         value = int(place)
         capped = not (lone_whole and k == 0)
-        if (capped and value > 59) or (not capped and len(place) > 6):
+        if (capped and value > 59) or (not capped and len(place) > limits.MAX_WHOLE_PLACE_DIGITS):
             return None
         form = tuple(_Pos(ch, Status.READ, False, start + i) for i, ch in enumerate(place))
         slots.append(Slot(values=(Fraction(value),), status=Status.READ, text=place,
