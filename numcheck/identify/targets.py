@@ -177,7 +177,9 @@ def _cycles(side) -> tuple[Fraction, str] | None:
             name, amount = unit, term.number
         name = name.rstrip("s")
         key = side_unit_key(name)
-        if key is not None and UNITS[key].dimension == "time" and key not in ("months", "years"):
+        # Years give the sun's motion, which the rows of daily motions state
+        # themselves; a derived one would only crowd them.
+        if key is not None and key != "months":
             return None
         if cycle not in (None, name):
             return None
