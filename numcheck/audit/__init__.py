@@ -27,14 +27,22 @@ from ..tables import read_table
 __all__ = ["audit", "AuditResult", "SUGGESTION"]
 
 
-def audit(table, *, notation: str | None = None, relation: str | None = None,
-          columns=None) -> AuditResult:
+def audit(table, *, notation: str | None = None, relation=None, columns=None,
+          scheme=None, model=None, join=None) -> AuditResult:
     """Audit *table* (a path to a TSV/CSV/aligned text table, or a DataFrame).
 
     *notation* is the default notation of every cell (detected otherwise);
     *relation* a relation between columns to check (``"C = A + B"``,
-    ``"B = prev(B) + A mod 360"``); *columns* the header names to audit (the
-    others are left out, e.g. a column of month names).
+    ``"B = prev(B) + A mod 360"``, ``"F = zigzag(d=0;36, M=15;16,5, m=11;5,5)"``),
+    or a list of them; *scheme* a known scheme of a column, or a list
+    (``"F: zigzag d=0;36 M=15;16,5 m=11;5,5"``, ``"F: ACT-LUN-B-F"``);
+    *columns* the header names to audit (the others are left out, e.g. a
+    column of month names); *model* the model of the function columns
+    (``"chord"``, or ``"B=declination"`` per column; chosen automatically
+    otherwise, see ``numcheck.audit.functions``); *join* the columns that
+    hold one number together (``{"crd": ["crd_d", "crd_m", "crd_s"]}`` or
+    ``"crd=crd_d,crd_m,crd_s"``; columns headed ``x°``, ``x′``, ``x″`` are
+    joined by themselves).
     """
     from .diagnose import Finding
 
@@ -45,9 +53,9 @@ def audit(table, *, notation: str | None = None, relation: str | None = None,
     collecting = gc.isenabled()
     gc.disable()
     try:
-        tab = read_table(table, notation=notation, columns=columns)
+        tab = read_table(table, notation=notation, columns=columns, join=join)
         frame = make_frame(tab)
-        schemes = detect_schemes(frame, relation=relation)
+        schemes = detect_schemes(frame, relation=relation, scheme=scheme, model=model)
         findings, pending, true = diagnose(tab, frame, schemes)
         restorations, misfits = restore_cells(tab, frame, pending)
     finally:
