@@ -138,8 +138,9 @@ def _items_of(entry: catalogue.Entry) -> list[Item]:
     if per == " per day":
         # Tables give a daily motion per Egyptian year and per hour as well
         # (Almagest III.2: the sun's motion per year, month, day and hour).
+        # Compared as they stand: parts of a yearly motion are the daily motion's own multiples.
         for factor, name, label in RATE_FORMS:
-            add(entry.value * factor, head + name, label)
+            add(entry.value * factor, head + name, label, alone=True)
     for value, label in _daily_motions(entry):
         add(value, "degrees per day", label)
     for side in entry.sides:

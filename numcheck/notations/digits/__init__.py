@@ -72,10 +72,12 @@ def _to_ascii(text: str, script: Script) -> str:
         other = script_of(ch)
         if other is not None or "0" <= ch <= "9":
             found = other.label if other is not None else "ASCII"
-            own = next(c for c in text if script.digit(c) is not None)
+            own = next((c for c in text if script.digit(c) is not None), None)
+            first = (f" (the first {script.label} digit is {own!r}, U+{ord(own):04X})" if own
+                     else f" (no {script.label} digit at all)")
             raise NumcheckSyntaxError(
-                f"Cannot read {text!r} as {script.label} digits: a digit of another script ({found}) "
-                f"among them (the first {script.label} digit is {own!r}, U+{ord(own):04X})", text, i,
+                f"Cannot read {text!r} as {script.label} digits: a digit of another script ({found})"
+                f"{first}", text, i,
                 expected=f"{script.label} digits only (or --notation {other.name if other else 'sexagesimal'})")
         out.append("," if ch == script.comma else ";" if ch == script.semicolon else ch)
     return "".join(out)
