@@ -11,6 +11,8 @@ Outside values:
 """
 
 import math
+
+import pytest
 from fractions import Fraction as F
 
 from numcheck import identify, read
@@ -77,3 +79,16 @@ def test_floating_matches_say_when_they_are_coincidences():
     notes = identify("2 5", notation="cuneiform").notes
     assert any("coincidences" in n for n in notes)
     assert not any("by chance" in n for n in identify("29;31,50,8,20", unit="days").notes)
+
+
+@pytest.mark.parametrize("school", ["indian/aryabhata", "indian/khandakhadyaka"])
+def test_a_yuga_closes_every_cycle_of_its_own_school(school):
+    # The periods derived from a school's yuga numbers give back those numbers exactly.
+    from numcheck.cycles import relate
+
+    result = relate(4320000, "years", values="ancient", tradition=school)
+    assert result.unit_defined_by == "sun sidereal"
+    counted = {(c.body, c.cycle): c for c in result.bodies}
+    for key in [("moon", "sidereal"), ("mars", "sidereal"), ("saturn", "sidereal")]:
+        assert counted[key].residual_days == 0
+    assert counted[("moon", "sidereal")].nearest == 57753336
