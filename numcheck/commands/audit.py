@@ -74,6 +74,7 @@ def run(args, console) -> dict:
         from rich.markup import escape
         for note in out.get("table_notes", []):
             console.print(f"[yellow]note:[/yellow] {escape(note)}")
+        _show_unreadable(out, console)
         for what, where in written.items():
             console.print(f"{what} written to {where}")
     return out
@@ -106,3 +107,17 @@ def _folder(args, path: Path, console) -> dict:
         if out.get("index"):
             console.print(f"reports: {escape(str(out['index']))}")
     return out
+
+
+def _show_unreadable(out: dict, console) -> None:
+    """The cells the audit could not read, and the columns it left out."""
+    from rich.markup import escape
+
+    for u in out.get("unreadable", []):
+        console.print(f"[red]unreadable:[/red] row {u['row']}, column {escape(str(u['column']))} "
+                      f"({escape(u['text'])!s}): {escape(u['message'])}")
+    for c in out.get("left_out", []):
+        console.print(f"[yellow]left out:[/yellow] {escape(c['message'])}")
+    if out.get("unreadable"):
+        console.print(f"{len(out['unreadable'])} cells could not be read; the audit went on with "
+                      "the others (an unreadable cell counts as lost).")
