@@ -26,6 +26,8 @@ NOTATIONS: dict[str, str] = {
     "greek": "numcheck.notations.greek",
     "greek-ascending": "numcheck.notations.greek.ascending",
     "attic": "numcheck.notations.attic",
+    "atf": "numcheck.notations.atf",
+    "atf-math": "numcheck.notations.atf.mathstyle",
 }
 
 

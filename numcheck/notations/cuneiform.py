@@ -40,7 +40,8 @@ from . import sexagesimal
 from .sexagesimal import assign_places
 from .marks import join_marked, status_in, track_bracket
 
-__all__ = ["NAME", "parse", "format", "render", "sign_table", "SignInfo", "BAD_EXAMPLES", "is_cuneiform_sign"]
+__all__ = ["NAME", "parse", "format", "render", "sign_table", "SignInfo", "BAD_EXAMPLES", "is_cuneiform_sign",
+           "count_signs", "parse_count"]
 
 NAME = "cuneiform"
 
@@ -77,12 +78,28 @@ class SignInfo:
 
 
 @functools.cache
-def _signs() -> dict[str, SignInfo]:
+def _all_signs() -> dict[str, SignInfo]:
     table = resources.files("numcheck") / "data" / "cuneiform_signs.csv"
     with table.open(encoding="utf-8", newline="") as fh:
         return {row["sign"]: SignInfo(row["sign"], row["unicode_name"], row["column"],
                                       int(row["place_value"]), int(row["wedges"]), row["source"])
                 for row in csv.DictReader(fh)}
+
+
+@functools.cache
+def _signs() -> dict[str, SignInfo]:
+    """The place-value digits (the counting signs GESH2, GESHU, SHAR2 ... are apart)."""
+    return {k: v for k, v in _all_signs().items() if v.column != "count"}
+
+
+@functools.cache
+def count_signs() -> dict[str, SignInfo]:
+    """Sign -> :class:`SignInfo` for every sign a count may use: the digits and GESH2 ... SHAR2 GAL.
+
+    In a count the sign fixes its magnitude (ONE GESH2 is 60, whatever
+    stands beside it); the digits count their own value (U is 10).
+    """
+    return dict(_all_signs())
 
 
 def sign_table() -> dict[str, SignInfo]:
@@ -288,6 +305,8 @@ def _sign_item(text: str, tok: Token, state: dict) -> _Item:
         name = unicodedata.name(ch, "an unnamed code point")
         what = ("a metrological sign, not a sexagesimal place-value digit"
                 if unicodedata.numeric(ch, None) is not None else "a cuneiform sign that is not a numeral")
+        if ch in count_signs():
+            what += f"; as a count it is {count_signs()[ch].value} (read counts with --notation atf)"
         raise _syntax(text, tok.start_pos, f"{what} ({name})",
                       "the place-value signs DISH, MIN, THREE..NINE DISH (units), U, U U, U U U, "
                       "FOUR U, FIVE U (tens) or the vertical colon (an empty place)")
@@ -446,3 +465,36 @@ def _slot_pieces(slot: Slot, chosen: Fraction | None) -> list[tuple[str, str | N
     if not pieces:
         pieces.append((table[("zero", 0)], bracket))
     return pieces
+
+
+# -- counts (the sign names fix the magnitude) ----------------------------------
+
+def parse_count(text: str, notation: str = NAME) -> Reading:
+    """Read Unicode signs as a count: each sign adds its value (ONE GESH2 = 60, U = 10).
+
+    Administrative texts write counts this way; the value is absolute (not
+    floating).  Signs stand largest first; spaces between them are allowed.
+
+    >>> parse_count("\U00012415\U0001230D\U00012442").value
+    Fraction(97, 1)
+    """
+    table = count_signs()
+    slots = []
+    last = None
+    for pos, ch in enumerate(text):
+        if ch in " \t\u00a0":
+            continue
+        info = table.get(ch)
+        if info is None or info.column == "zero":
+            name = unicodedata.name(ch, f"U+{ord(ch):04X}")
+            raise _syntax(text, pos, f"a sign that is not a counting sign ({name})",
+                          "DISH ... NINE DISH, U ... FIVE U, ONE..NINE GESH2, ONE..FIVE GESHU, SHAR2 ...")
+        if last is not None and info.value > last:
+            raise _syntax(text, pos, "a sign larger than the one before it (a count writes the "
+                          "largest first)", "the signs in descending order")
+        last = info.value
+        slots.append(Slot(values=(Fraction(info.value),), place=0, status=Status.READ, text=ch,
+                          span=(pos, pos + 1), form=("sign", ch)))
+    if not slots:
+        raise _syntax(text, 0, "no sign", "counting signs")
+    return Reading(text=text, notation=notation, slots=tuple(slots), base=60, floating=False)
