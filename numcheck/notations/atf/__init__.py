@@ -36,7 +36,7 @@ NAME = "atf"
 
 #: Known-bad inputs, the column (1-based) each error points at, and its label.
 BAD_EXAMPLES: list[tuple[str, int, str]] = [
-    ("3(u) 7(disz) 1(u)", 14, "a sign after a sign of smaller value"),
+    ("3(gesz2) 1(u) 2(gesz2)", 15, "after a sign of a smaller value"),
     ("1(u) 1.40", 6, "a place of the mathematical style among COUNT(SIGN) graphemes"),
     ("12(disz)", 1, "12 signs disz (one order holds 1 to 9"),
     ("6(u)", 1, "6 signs u (one order holds 1 to 5"),

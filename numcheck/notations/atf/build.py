@@ -149,6 +149,8 @@ def _can_count(text: str, pieces: list[Atom]) -> bool:
     """Whether the graphemes stand in descending order, as a count writes them."""
     weights = []
     for a in pieces:
+        if a.kind == "numeral" and grapheme(text, a, text).key not in ("disz", "asz", "u"):
+            return True     # a sign that fixes the magnitude: a count whatever the order
         if a.kind == "word" and a.text.lower() in _MINUS:
             break
         if a.kind == "numeral":
@@ -232,7 +234,7 @@ def _count(text: str, pieces: list[Atom], notation: str) -> Reading:
         i += 1
     if pending:
         a = last_word
-        raise syntax_error(text, a.end, f"nothing after {a.text!r}", "a number after la2")
+        raise syntax_error(text, a.start, f"nothing after {a.text!r}", "a number after la2")
     if len(systems) > 1:
         raise syntax_error(text, 0, f"signs of more than one metrological system ({', '.join(sorted(systems))})",
                            "one system per number")

@@ -142,7 +142,8 @@ def style_of(reading: Reading) -> dict:
     names += [w.partition("(")[2].rstrip(")") for s in reading.slots if s.form and s.form[0] == "place"
               for _j, w, *_ in s.form[1] if "(" in w]
     mods = {split_modifiers(n)[1] for n in names}
-    return {"style": style, "unicode": any(is_unicode_spelling(n) for n in names),
+    units = "asz" if any(sign_key(n) == "asz" for n in names) else "disz"
+    return {"style": style, "unicode": any(is_unicode_spelling(n) for n in names), "units": units,
             "modifier": mods.pop() if len(mods) == 1 else "", "floating": reading.floating}
 
 
@@ -159,15 +160,16 @@ def write_like(reading: Reading, value: Fraction) -> str | None:
     if how["style"] == "math":
         return write_math(value, floating=how["floating"])
     if how["style"] == "place":
-        return write_places(value, unicode=how["unicode"], modifier=how["modifier"])
-    return write_count(value, unicode=how["unicode"], modifier=how["modifier"])
+        return write_places(value, unicode=how["unicode"], modifier=how["modifier"], units=how["units"])
+    return write_count(value, unicode=how["unicode"], modifier=how["modifier"], units=how["units"])
 
 
 def _name(key: str, unicode: bool, modifier: str) -> str:
     return (_UNICODE_NAMES.get(key, key) if unicode else key) + modifier
 
 
-def write_count(value: Fraction, *, unicode: bool = False, modifier: str = "") -> str | None:
+def write_count(value: Fraction, *, unicode: bool = False, modifier: str = "",
+                units: str = "disz") -> str | None:
     """A whole count (and one of the fractions 1/2 1/3 2/3 5/6) in the counting signs.
 
     >>> write_count(Fraction(97))
@@ -189,13 +191,14 @@ def write_count(value: Fraction, *, unicode: bool = False, modifier: str = "") -
         if key == "szargal" and k > 9:
             return None
         if k:
-            out.append(f"{k}({_name(key, unicode, modifier)})")
+            out.append(f"{k}({_name(units if key == 'disz' else key, unicode, modifier)})")
     if frac:
-        out.append(f"{exact_text(frac)}({_name('disz', unicode, modifier)})")
+        out.append(f"{exact_text(frac)}({_name(units, unicode, modifier)})")
     return " ".join(out) if out else None
 
 
-def write_places(value: Fraction, *, unicode: bool = False, modifier: str = "") -> str | None:
+def write_places(value: Fraction, *, unicode: bool = False, modifier: str = "",
+                 units: str = "disz") -> str | None:
     """A floating number in disz and u graphemes, place after place (empty places unwritten).
 
     >>> write_places(Fraction(435))
@@ -211,7 +214,7 @@ def write_places(value: Fraction, *, unicode: bool = False, modifier: str = "") 
         if t:
             out.append(f"{t}({_name('u', unicode, modifier)})")
         if u:
-            out.append(f"{u}({_name('disz', unicode, modifier)})")
+            out.append(f"{u}({_name(units, unicode, modifier)})")
     return " ".join(out) if out else None
 
 
