@@ -44,7 +44,8 @@ _GREEK_SIGNS = frozenset("\U0001018A\u014d\u0375\u2220") | frozenset(
     chr(c) for c in (0x10175, 0x10176, 0x10177, 0x10178, 0x1018B))
 _ROMAN = frozenset("IVXLCDMJivxlcdmj")
 _ATF_GRAPHEME = re.compile(r"(?:[0-9]+|[nN]|[nN]\+[0-9]+|[0-9]+/[0-9]+)\([^()\s]+\)")
-_ATF_MATH = re.compile(r"(?<![\w.,;])[0-9]+(?:@v)?(?:\.:?[0-9]{2}(?:@v)?)+(?![\w.,;])"
+_ATF_MATH = re.compile(r"(?<![\w.,;])[\[<]*[0-9]+(?:@v)?[\]#?!*>]*"
+                       r"(?:\.:?[\[<]*[0-9]{2}(?:@v)?[\]#?!*>]*)+(?![\w.,;])"
                        r"|[0-9]+[.-](?:KAM|KÁM|kam|KAM₂|en|et|TA)\b"
                        r"|\b[0-9]+ (?:ME|LIM)(?: [0-9]+)?\b")
 _DIGIT_GROUPS = re.compile(r"[0-9xXn\]?>⟩}\u0323]\s+[0-9xXn\[<⟨{]")
