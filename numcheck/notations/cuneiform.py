@@ -116,6 +116,22 @@ def _canonical_sign() -> dict[tuple[str, int], str]:
     return out
 
 
+#: The digits Oracc writes for 4, 7, 8 and 9 (its math.xdf table: the "variant form"
+#: code points, not FOUR..NINE DISH).  A number written with them is written back with them.
+ORACC_DIGITS = {4: "\U0001243C", 7: "\U00012442", 8: "\U00012444", 9: "\U00012446"}
+
+
+def _uses_oracc_digits(text: str) -> bool:
+    return any(ch in ORACC_DIGITS.values() for ch in text)
+
+
+def _table(oracc: bool) -> dict[tuple[str, int], str]:
+    table = _canonical_sign()
+    if not oracc:
+        return table
+    return {**table, **{("units", v): ch for v, ch in ORACC_DIGITS.items()}}
+
+
 def is_cuneiform_sign(char: str) -> bool:
     """Whether *char* is in the Unicode cuneiform blocks."""
     return len(char) == 1 and _CUNEIFORM_RANGE[0] <= ord(char) <= _CUNEIFORM_RANGE[1]
@@ -422,7 +438,7 @@ def _format_signs(reading: Reading, choice) -> str:
             fractional = slot.place < 0 and not reading.floating and not semi_done
             parts.append(" ; " if fractional else " ")
             semi_done = semi_done or fractional
-        parts.append(_bracketed(_slot_pieces(slot, chosen)))
+        parts.append(_bracketed(_slot_pieces(slot, chosen, _uses_oracc_digits(reading.text))))
     return "".join(parts)
 
 
@@ -430,19 +446,19 @@ def _bracketed(pieces: list[tuple[str, str | None]]) -> str:
     return join_marked(pieces)
 
 
-def _signs_for(value: int) -> str:
+def _signs_for(value: int, oracc: bool = False) -> str:
     tens, units = divmod(value, 10)
-    table = _canonical_sign()
+    table = _table(oracc)
     if value == 0:
         return table[("zero", 0)]
     return (table[("tens", tens * 10)] if tens else "") + (table[("units", units)] if units else "")
 
 
-def _slot_pieces(slot: Slot, chosen: Fraction | None) -> list[tuple[str, str | None]]:
+def _slot_pieces(slot: Slot, chosen: Fraction | None, oracc: bool = False) -> list[tuple[str, str | None]]:
     if slot.gap is not None or not slot.form:
         if chosen is None:
             return [("...", "[")]
-        return [(_signs_for(int(chosen)), "[" if slot.status is not Status.UNREAD else None)]
+        return [(_signs_for(int(chosen), oracc), "[" if slot.status is not Status.UNREAD else None)]
     items: list[_Item] = list(slot.form)
     if chosen is None or len(slot.values) == 1:
         return [(i.char + ("?" if i.doubtful else ""), _OPEN.get(i.status)) for i in items]
@@ -455,7 +471,7 @@ def _slot_pieces(slot: Slot, chosen: Fraction | None) -> list[tuple[str, str | N
     tens_read = [i for i in read_items if i.column == "tens"]
     units_read = [i for i in read_items if i.column == "units"]
     rest_tens, rest_units = divmod(rest, 10)
-    table = _canonical_sign()
+    table = _table(oracc)
     pieces += [(i.char + ("?" if i.doubtful else ""), _OPEN.get(i.status)) for i in tens_read]
     if rest_tens:
         pieces.append((table[("tens", rest_tens * 10)], bracket))

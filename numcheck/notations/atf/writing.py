@@ -109,8 +109,8 @@ def _slot_pieces(slot: Slot, chosen: Fraction | None, pieces: list, *, first: bo
     if chosen is not None:
         value = Fraction(chosen) / factor
         text = exact_text(value)
-        if len(digits) == 2 and digits.startswith("0") and len(text) == 1:
-            text = "0" + text
+        if len(text) == 1 and (len(digits) == 2 and digits.startswith("0") or joined in (".", ".:")):
+            text = "0" + text       # a place after '.' has two digits (1.03)
     if joined and not first:
         pieces.append((joined, SEPARATOR))
     pieces.append((text + flags, bracket))
