@@ -126,3 +126,17 @@ def test_a_number_of_min_or_u_u_alone_is_detected_as_cuneiform():
     for text, value in (("\U0001222B", 2), ("\U00012399", 20), ("\U0001230D", 30)):
         r = read(text)
         assert r.notation == "cuneiform" and r.value == value
+
+
+def test_oracc_digit_code_points_are_read_and_written_back():
+    # math.xdf's table: 4 U+1243C, 7 U+12442, 8 U+12444, 9 U+12446 (the "variant
+    # form" code points), not FOUR..NINE DISH; a number written with them keeps them.
+    import unicodedata
+    from fractions import Fraction
+    from numcheck.notations import render_choice
+    from numcheck.notations.cuneiform import ORACC_DIGITS
+    for value, ch in ORACC_DIGITS.items():
+        assert "VARIANT FORM" in unicodedata.name(ch)
+        assert read(ch, notation="cuneiform").value == value
+    r = read("\U0001230B[\U00012442]", notation="cuneiform")      # 1[7]
+    assert render_choice(r, (Fraction(18),)) == "\U0001230B[\U00012444]"

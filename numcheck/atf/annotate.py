@@ -107,9 +107,10 @@ def read_atf_text(source: str, name: str = "<atf>") -> AtfAnnotation:
                 if notes:
                     entry["notes"] = notes
             result.numbers.append(entry)
-            if len(result.numbers) > limits.MAX_XML_NUMS:
+            if len(result.numbers) > limits.MAX_ATF_NUMBERS:
                 raise LimitError(f"number of number words in {name!r}", len(result.numbers),
-                                 limits.MAX_XML_NUMS, "Set numcheck.limits.MAX_XML_NUMS higher to read it.")
+                                 limits.MAX_ATF_NUMBERS,
+                                 "Set numcheck.limits.MAX_ATF_NUMBERS higher to read it.")
     return result
 
 
