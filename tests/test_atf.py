@@ -160,3 +160,19 @@ def test_detection_of_both_styles():
 def test_unicode_counting_signs_read_as_a_count():
     r = read("\U00012415\U0001230D\U00012442", notation="atf")
     assert r.value == 97 and not r.floating
+
+
+_ATF_CHARS = list("0123456789()[]<>#?!*.-+/ :nNxX@cvt~a") + [
+    "disz", "u", "asz", "gesz2", "geš₂", "ban2", "la2", "igi", "gal2", "ME", "KAM₂", "...", "…",
+    "oo", "00", "<<", ">>", "[(", ")]", "<(", ")>", "⸢", "⸣", "sila3", "1/2", "n+"]
+
+
+@given(st.lists(st.sampled_from(_ATF_CHARS), max_size=14).map("".join))
+def test_any_text_of_atf_pieces_reads_or_fails_with_our_error(text):
+    try:
+        r = parse(text)
+    except NumcheckError:
+        return
+    assert r.min <= r.value <= r.max
+    again = read(format_reading(r), notation=r.notation)
+    assert (again.value, again.min, again.max) == (r.value, r.min, r.max), (text, format_reading(r))

@@ -344,7 +344,7 @@ def _place_value(text: str, pieces: list[Atom], notation: str) -> Reading:
         tail = "".join(a.joined + a.text + a.flags for a in suffix)
         slots[-1] = Slot(values=last.values, place=last.place, status=last.status, text=last.text,
                          span=(last.span[0], suffix[-1].end), editor=last.editor,
-                         form=last.form[:-1] + (tail,))
+                         form=last.form[:-1] + (last.form[-1] + tail,))
     if n > 1:
         warnings.append("places are not marked in this style: an empty place would be invisible "
                         "(1(disz) 3(u) may be 1,30 or 1,0,30)")
@@ -397,7 +397,11 @@ def _math(text: str, pieces: list[Atom], notation: str) -> Reading:
     groups: list[list[Atom]] = []        # one list per place-value number (space separated)
     words: list[Atom] = []
     suffix: list[Atom] = []
-    for a in pieces:
+    for k, a in enumerate(pieces):
+        if a.kind in ("places", "fraction") and k and a.joined == "" and \
+                pieces[k - 1].kind in ("places", "fraction"):
+            raise syntax_error(text, a.start, "a bracket inside a number (ATF brackets whole "
+                               "places: [12] or 1.[40])", "brackets around whole places")
         if a.kind == "places" and (a.joined == "." and groups and groups[-1]):
             groups[-1].append(a)
         elif a.kind in ("places",) or a.kind == "fraction":
@@ -437,7 +441,7 @@ def _math(text: str, pieces: list[Atom], notation: str) -> Reading:
         tail = "".join(a.joined + a.text + a.flags for a in suffix)
         slots[-1] = Slot(values=last.values, place=last.place, status=last.status, text=last.text,
                          span=(last.span[0], suffix[-1].end), editor=last.editor, gap=last.gap,
-                         form=last.form[:-1] + (tail,))
+                         form=last.form[:-1] + (last.form[-1] + tail,))
     return Reading(text=text, notation=notation if notation != "atf" else "atf", slots=tuple(slots),
                    base=60, floating=floating, warnings=tuple(warnings))
 
@@ -513,6 +517,9 @@ def _math_count(text: str, groups: list[list[Atom]], warnings: list[str]) -> lis
     while k < len(groups):
         g = groups[k]
         a = g[0]
+        if a.kind == "gap":
+            raise syntax_error(text, a.start, "'...' (signs of unknown number lost) in a count with "
+                               "ME or a fraction: its value has no bound", "1 ME 43 or 2 1/2")
         if a.kind == "fraction":
             num, den = a.text.split("/")
             if not int(den) or int(num) >= int(den):
