@@ -274,7 +274,7 @@ def _reciprocal(text: str, igi: Atom, num: Atom, gal: Atom, sign: int, pending) 
     status = max((_status(igi), _status(num), _status(gal)), key=_WORST.__getitem__)
     return Slot(values=(value,), place=0, status=status, text=text[igi.start:gal.end], span=(igi.start, gal.end),
                 form=("igi", g.count, g.sign, num.flags, igi.joined, tuple(pending),
-                      text[igi.start:gal.end] + gal.flags, ""))
+                      tuple((p.joined, p.text + p.flags, p.status) for p in (igi, num, gal)), ""))
 
 
 def _unread_sign(text: str, a: Atom, nxt: Atom | None, slots: list[Slot], sign: int, pending,

@@ -35,8 +35,14 @@ def _bracket(status: Status) -> str | None:
 def format(reading: Reading, choice: tuple[Fraction, ...] | None = None) -> str:
     """*reading* as ATF, its marks included; with *choice*, that reading of it."""
     pieces: list[tuple[str, str | None]] = []
+    style = None
     for k, slot in enumerate(reading.slots):
         chosen = None if choice is None else choice[k]
+        if not slot.form:
+            # a place of an unknown number of lost places, once their number is chosen
+            style = style or style_of(reading)["style"]
+            _formless_pieces(slot, chosen, pieces, style, first=k == 0)
+            continue
         _slot_pieces(slot, chosen, pieces, first=k == 0)
     text = join_marked(pieces).strip()
     return text
@@ -71,7 +77,16 @@ def _slot_pieces(slot: Slot, chosen: Fraction | None, pieces: list, *, first: bo
                     text = ""
             text += form[3]
         elif kind == "igi":
-            text = form[6]
+            # igi-N-gal2: three pieces, each in its own brackets
+            if joined and not (first and not form[5]):
+                pieces.append((joined, SEPARATOR))
+            for k, (part_joined, part, status) in enumerate(form[6]):
+                if k:
+                    pieces.append((part_joined, SEPARATOR))
+                pieces.append((part, _bracket(status)))
+            if form[-1]:
+                pieces.append((form[-1], RAW))
+            return
         else:
             text = "x" + form[3]
             if chosen is not None:
@@ -116,6 +131,21 @@ def _slot_pieces(slot: Slot, chosen: Fraction | None, pieces: list, *, first: bo
     pieces.append((text + flags, bracket))
     if suffix:
         pieces.append((suffix, RAW))
+
+
+def _formless_pieces(slot: Slot, chosen, pieces: list, style: str, *, first: bool) -> None:
+    bracket = "[" if slot.status in (Status.LOST, Status.RESTORED) else None
+    if chosen is None:
+        text = "x"
+    elif style == "math":
+        text = f"{int(chosen):02d}" if not first else str(int(chosen))
+    else:
+        text = write_places(Fraction(chosen)) if chosen else None   # an empty place is not written
+    if text is None:
+        return
+    if not first:
+        pieces.append(("." if style == "math" else " ", SEPARATOR))
+    pieces.append((text, bracket))
 
 
 def _place_signs(items) -> tuple[str, str]:
