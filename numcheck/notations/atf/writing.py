@@ -78,8 +78,8 @@ def _slot_pieces(slot: Slot, chosen: Fraction | None, pieces: list, *, first: bo
             text += form[3]
         elif kind == "igi":
             # igi-N-gal2: three pieces, each in its own brackets
-            if joined and not (first and not form[5]):
-                pieces.append((joined, SEPARATOR))
+            if not (first and not form[5]):
+                pieces.append((joined or " ", SEPARATOR))
             for k, (part_joined, part, status) in enumerate(form[6]):
                 if k:
                     pieces.append((part_joined, SEPARATOR))
@@ -94,8 +94,8 @@ def _slot_pieces(slot: Slot, chosen: Fraction | None, pieces: list, *, first: bo
                 weight = numeral_signs()[key].value
                 text = "" if chosen == 0 else f"{exact_text(abs(chosen) / weight)}({key})"
         if text:
-            if joined and not (first and not form[5]):
-                pieces.append((joined, SEPARATOR))
+            if not (first and not form[5]):
+                pieces.append((joined or " ", SEPARATOR))
             pieces.append((text, bracket))
         if form[-1]:
             pieces.append((form[-1], RAW))
@@ -104,8 +104,9 @@ def _slot_pieces(slot: Slot, chosen: Fraction | None, pieces: list, *, first: bo
         items = form[1]
         if chosen is None:
             for j, (joined, written, flags, status, _key) in enumerate(items):
-                if joined and not (first and j == 0):
-                    pieces.append((joined, SEPARATOR))
+                if not (first and j == 0):
+                    # signs glued only by a bracket ([x][x]) are written apart
+                    pieces.append((joined or " ", SEPARATOR))
                 pieces.append((written + flags, _bracket(status)))
         else:
             tens_sign, units_sign = _place_signs(items)
