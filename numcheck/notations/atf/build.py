@@ -398,8 +398,7 @@ def _math(text: str, pieces: list[Atom], notation: str) -> Reading:
     words: list[Atom] = []
     suffix: list[Atom] = []
     for k, a in enumerate(pieces):
-        if a.kind in ("places", "fraction") and k and a.joined == "" and \
-                pieces[k - 1].kind in ("places", "fraction"):
+        if k and a.joined == "" and _digit_like(a) and _digit_like(pieces[k - 1]):
             raise syntax_error(text, a.start, "a bracket inside a number (ATF brackets whole "
                                "places: [12] or 1.[40])", "brackets around whole places")
         if a.kind == "places" and (a.joined == "." and groups and groups[-1]):
@@ -444,6 +443,10 @@ def _math(text: str, pieces: list[Atom], notation: str) -> Reading:
                          form=last.form[:-1] + (last.form[-1] + tail,))
     return Reading(text=text, notation=notation if notation != "atf" else "atf", slots=tuple(slots),
                    base=60, floating=floating, warnings=tuple(warnings))
+
+
+def _digit_like(a: Atom) -> bool:
+    return a.kind in ("places", "fraction") or a.kind == "word" and a.text in ("x", "X", "n", "N")
 
 
 def _math_place_values(text: str, a: Atom, digits: str, status: Status):
