@@ -11,6 +11,8 @@ import json
 from fractions import Fraction as F
 
 import pytest
+from hypothesis import given
+from hypothesis import strategies as st
 
 from numcheck.atf import number_words, read_atf_text, text_lines
 from numcheck.audit import audit
@@ -198,3 +200,21 @@ def test_a_slip_is_found_alike_and_the_correction_is_written_in_atf(tmp_path, st
     out = atf.to_dict()
     (flag,) = [f for f in out["flags"] if f["kind"] != "carried-forward"]
     assert (flag["row"], flag["kind"], flag["written"], flag["expected"]) == (16, "unit-slip", written, expected)
+
+
+_LINE_PIECES = ["5(disz)", "[n(disz)", "3(disz)]", "sila3", "gin2", "kasz", "la2", "igi-6(disz)-gal2",
+                "{d}30", "u", "20", "1", "1.40", "ME", "43", "2/3(disz)", "[x]", "x", "[...]", "#", "?",
+                "_", "|SZU+LAGAB|", "mul1(IKU)gana₂", "2(u)", "4(ban2)#", "1(asz@t)", "sze", "gur",
+                "KUŠ₃", "SI", "GIN", "<", ">", "<<", ">>", "(", ")", "7(N14)", "-kam", "@v", "00", "oo"]
+
+
+@given(st.lists(st.lists(st.sampled_from(_LINE_PIECES), max_size=8).map(" ".join), max_size=5),
+       st.booleans())
+def test_any_atf_lines_are_read_and_never_crash(lines, math):
+    source = "&X1 = t\n" + ("#atf: use math\n" if math else "") + "@obverse\n" + \
+        "".join(f"{k}. {line}\n" for k, line in enumerate(lines, start=1))
+    out = read_atf_text(source).to_dict()
+    assert out["read"] + out["unread"] == out["numbers"]
+    for n in out["nums"]:
+        if "error" not in n:
+            assert F(n["min"]) <= F(n["value"]) <= F(n["max"])
