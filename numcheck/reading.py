@@ -15,6 +15,7 @@ gives one gapless Reading per possible count.
 
 from __future__ import annotations
 
+import functools
 import itertools
 import math
 from collections.abc import Iterator
@@ -22,7 +23,7 @@ from dataclasses import dataclass, field, replace
 from enum import Enum
 from fractions import Fraction
 
-__all__ = ["Status", "Slot", "Reading", "exact_text", "sexagesimal_text", "parse_exact"]
+__all__ = ["Status", "Slot", "Reading", "exact_text", "sexagesimal_text", "parse_exact", "place_sum"]
 
 
 class Status(str, Enum):
@@ -39,6 +40,30 @@ class Status(str, Enum):
     @property
     def damaged(self) -> bool:
         return self in (Status.DOUBTFUL, Status.UNREAD, Status.LOST, Status.RESTORED)
+
+
+def place_sum(terms, base: int = 60) -> Fraction:
+    """The exact sum of value x base**place over (value, place) pairs.
+
+    Whole values are summed as one integer over the lowest place (one
+    Fraction at the end, not one per place), which is what makes reading a
+    corpus of numbers cheap; fractional values (a unit fraction in a slot)
+    are added as Fractions.
+
+    >>> place_sum([(Fraction(1), 1), (Fraction(49), 0), (Fraction(20), -1)])
+    Fraction(328, 3)
+    """
+    terms = list(terms)
+    low = min((p for _, p in terms), default=0)
+    shift = -low if low < 0 else 0
+    whole = 0
+    rest = Fraction(0)
+    for v, p in terms:
+        if v.denominator == 1:
+            whole += v.numerator * base ** (p + shift)
+        else:
+            rest += v * Fraction(base) ** p
+    return Fraction(whole, base ** shift) + rest
 
 
 @dataclass(frozen=True)
@@ -109,6 +134,17 @@ class Reading:
         return any(s.status.damaged for s in self.slots)
 
     @property
+    def ambiguous(self) -> bool:
+        """A slot read clearly still has several values (the text alone cannot decide).
+
+        A Greek ``ο`` in the whole-number place is 0 or 70; a lone capital
+        letter of a papyrus is units or thousands: the letters are read, their
+        meaning is open, and the evidence (catalogue, table) decides.
+        """
+        return any(len(s.values) > 1 and not s.status.damaged and s.gap is None
+                   for s in self.counted_slots)
+
+    @property
     def counted_slots(self) -> tuple[Slot, ...]:
         return tuple(s for s in self.slots if s.counted)
 
@@ -155,21 +191,27 @@ class Reading:
         return Fraction(self.base) ** place
 
     def _bounds_gapless(self) -> tuple[Fraction, Fraction]:
-        lo = sum((s.values[0] * self._weight(s.place) for s in self.counted_slots), Fraction(0))
-        hi = sum((s.values[-1] * self._weight(s.place) for s in self.counted_slots), Fraction(0))
+        slots = self.counted_slots
+        lo = place_sum(((s.values[0], s.place) for s in slots), self.base)
+        hi = place_sum(((s.values[-1], s.place) for s in slots), self.base)
         return (lo, hi) if self.sign > 0 else (-hi, -lo)
+
+    @functools.cached_property
+    def _bounds(self) -> tuple[Fraction, Fraction]:
+        bounds = [r._bounds_gapless() for r in self.expansions()]
+        return min(b[0] for b in bounds), max(b[1] for b in bounds)
 
     @property
     def min(self) -> Fraction:
         """The smallest value the traces allow."""
-        return min(r._bounds_gapless()[0] for r in self.expansions())
+        return self._bounds[0]
 
     @property
     def max(self) -> Fraction:
         """The largest value the traces allow."""
-        return max(r._bounds_gapless()[1] for r in self.expansions())
+        return self._bounds[1]
 
-    @property
+    @functools.cached_property
     def value(self) -> Fraction:
         """The value as the edition gives it.
 
@@ -178,8 +220,7 @@ class Reading:
         unknown extent at its fewest places.
         """
         first = next(self.expansions())
-        total = sum((s.preferred * self._weight(s.place) for s in first.counted_slots), Fraction(0))
-        return self.sign * total
+        return self.sign * place_sum(((s.preferred, s.place) for s in first.counted_slots), self.base)
 
     @property
     def count(self) -> int:
@@ -232,6 +273,7 @@ class Reading:
             "decimal": decimal_text(self.value),
             "sexagesimal": sexagesimal_text(self.value, fixed=not self.floating),
             "damaged": self.damaged,
+            "ambiguous": self.ambiguous,
             "min": exact_text(self.min),
             "max": exact_text(self.max),
             "floating": self.floating,

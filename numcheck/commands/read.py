@@ -43,12 +43,13 @@ def _show(reading, result: dict, console) -> None:
     head.add_row("decimal", result["decimal"])
     if "unit" in result:
         head.add_row("unit", result["unit"])
-    if reading.damaged:
+    if reading.damaged or reading.ambiguous:
         head.add_row("range", f"{sexagesimal_text(reading.min, fixed=not reading.floating)} to "
                               f"{sexagesimal_text(reading.max, fixed=not reading.floating)}"
                               f"  ({exact_text(reading.min)} to {exact_text(reading.max)})")
         head.add_row("readings", f"{reading.count:,} readings remain possible")
-        head.add_row("value shown", "the edition's restorations, lost digits at their lowest")
+        head.add_row("value shown", "the edition's restorations, lost digits at their lowest"
+                     if reading.damaged else "the lowest of the readings the text allows (see the notes)")
     places = Table(title="places", show_edge=False, header_style="bold")
     for col in ("written", "place", "status", "may be"):
         places.add_column(col)

@@ -13,7 +13,8 @@ The rules, in the order they are tried (each names the evidence that decided):
    abjad-maghribi`` for the western values).
 3. An Attic acrophonic sign (U+10140..U+10174) or the ASCII fallback of a
    combined sign (``Π(Δ)``) -> ``attic``.
-4. Greek letters, the zero sign or Greek fraction signs -> ``greek``; except
+4. Greek letters, the zero sign or Greek fraction signs (also written as
+   their code point, ``U+2220``) -> ``greek``; except
    a number written only in the capitals Ι Π Γ Δ Η Χ Μ, which may be Attic:
    a repeated sign (ΔΔ, ΙΙΙ) points to Attic (alphabetic numerals never
    repeat a letter), and so does an order that is Attic (largest first) but
@@ -43,12 +44,20 @@ _ATTIC_ASCII = re.compile(r"[ΠP]\([ΔΗΧΜDHXM]\)")
 _GREEK_SIGNS = frozenset("\U0001018A\u014d\u0375\u2220") | frozenset(
     chr(c) for c in (0x10175, 0x10176, 0x10177, 0x10178, 0x1018B))
 _ROMAN = frozenset("IVXLCDMJivxlcdmj")
+<<<<<<< HEAD
 _ATF_GRAPHEME = re.compile(r"(?:[0-9]+|[nN]|[nN]\+[0-9]+|[0-9]+/[0-9]+)\([^()\s]+\)")
 _ATF_MATH = re.compile(r"(?<![\w.,;])[\[<]*[0-9]+(?:@v)?[\]#?!*>]*"
                        r"(?:\.:?[\[<]*[0-9]{2}(?:@v)?[\]#?!*>]*)+(?![\w.,;])"
                        r"|[0-9]+[.-](?:KAM|KÁM|kam|KAM₂|en|et|TA)\b"
                        r"|\b[0-9]+ (?:ME|LIM)(?: [0-9]+)?\b")
+=======
+# The half sign and the Greek numeral signs as a converter writes them (U+2220 for ∠).
+_CODE_POINT_SIGN = re.compile(r"[Uu]\+(?:2220|0374|0375|1018[AaBb]|1017[5-8])")
+>>>>>>> main
 _DIGIT_GROUPS = re.compile(r"[0-9xXn\]?>⟩}\u0323]\s+[0-9xXn\[<⟨{]")
+_PLAIN_SEXAGESIMAL = re.compile(r"-?[0-9]+(?:,[0-9]+)*(?:;[0-9]+(?:,[0-9]+)*)?")
+_SEPARATED = "digits with sexagesimal separators (',' between places, ';' after the units)"
+_ONE_PLACE = "plain digits with no separator: one place, an integer"
 # What a transliterated cuneiform number is made of (digits, x, n, Leiden marks).
 _CUNEIFORM_CHARS = re.compile(r"[0-9xXn\[\]<>⟨⟩{}?\u0323\s]+")
 
@@ -81,7 +90,13 @@ def detect_notation(text: str) -> tuple[str, str]:
     >>> detect_notation("ΔΔΙΙ")[0]
     'attic'
     """
+<<<<<<< HEAD
     cuneiform = [c for c in text if 0x12400 <= ord(c) <= 0x1247F or c in _CUNEIFORM_DIGITS]
+=======
+    if text.isascii() and _PLAIN_SEXAGESIMAL.fullmatch(text):   # rule 6 at once, the usual case
+        return "sexagesimal", _SEPARATED if ("," in text or ";" in text) else _ONE_PLACE
+    cuneiform = [c for c in text if 0x12400 <= ord(c) <= 0x1247F or c in "\U00012079\U0001230B"]
+>>>>>>> main
     if cuneiform:
         return "cuneiform", f"Unicode cuneiform numeric signs ({_name(cuneiform[0])})"
     grapheme = _ATF_GRAPHEME.search(text)
@@ -106,6 +121,9 @@ def detect_notation(text: str) -> tuple[str, str]:
         return _greek_or_attic(greek)
     if any(c in _GREEK_SIGNS for c in text):
         return "greek", "a Greek numeral sign (zero sign, fraction sign or lower numeral sign)"
+    written = _CODE_POINT_SIGN.search(text)
+    if written:
+        return "greek", f"a Greek numeral sign written as its code point ({written.group()})"
     number_forms = [c for c in text if 0x2160 <= ord(c) <= 0x2188]
     if number_forms:
         return "roman", f"Unicode Roman numeral characters ({_name(number_forms[0])})"
@@ -119,11 +137,11 @@ def detect_notation(text: str) -> tuple[str, str]:
         return "roman", "the Latin letters of Roman numerals (I V X L C D M)"
     if digits:
         if "," in text or ";" in text:
-            return "sexagesimal", "digits with sexagesimal separators (',' between places, ';' after the units)"
+            return "sexagesimal", _SEPARATED
         if _DIGIT_GROUPS.search(text) and _CUNEIFORM_CHARS.fullmatch(text):
             return "cuneiform", ("digit groups separated by spaces and no ';': a cuneiform number "
                                  "whose magnitude the text does not fix")
-        return "sexagesimal", "plain digits with no separator: one place, an integer"
+        return "sexagesimal", _ONE_PLACE
     return "sexagesimal", "no numeral letters or signs of another notation; read as sexagesimal"
 
 
