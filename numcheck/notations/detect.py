@@ -44,16 +44,13 @@ _ATTIC_ASCII = re.compile(r"[ΠP]\([ΔΗΧΜDHXM]\)")
 _GREEK_SIGNS = frozenset("\U0001018A\u014d\u0375\u2220") | frozenset(
     chr(c) for c in (0x10175, 0x10176, 0x10177, 0x10178, 0x1018B))
 _ROMAN = frozenset("IVXLCDMJivxlcdmj")
-<<<<<<< HEAD
 _ATF_GRAPHEME = re.compile(r"(?:[0-9]+|[nN]|[nN]\+[0-9]+|[0-9]+/[0-9]+)\([^()\s]+\)")
 _ATF_MATH = re.compile(r"(?<![\w.,;])[\[<]*[0-9]+(?:@v)?[\]#?!*>]*"
                        r"(?:\.:?[\[<]*[0-9]{2}(?:@v)?[\]#?!*>]*)+(?![\w.,;])"
                        r"|[0-9]+[.-](?:KAM|KÁM|kam|KAM₂|en|et|TA)\b"
                        r"|\b[0-9]+ (?:ME|LIM)(?: [0-9]+)?\b")
-=======
 # The half sign and the Greek numeral signs as a converter writes them (U+2220 for ∠).
 _CODE_POINT_SIGN = re.compile(r"[Uu]\+(?:2220|0374|0375|1018[AaBb]|1017[5-8])")
->>>>>>> main
 _DIGIT_GROUPS = re.compile(r"[0-9xXn\]?>⟩}\u0323]\s+[0-9xXn\[<⟨{]")
 _PLAIN_SEXAGESIMAL = re.compile(r"-?[0-9]+(?:,[0-9]+)*(?:;[0-9]+(?:,[0-9]+)*)?")
 _SEPARATED = "digits with sexagesimal separators (',' between places, ';' after the units)"
@@ -90,13 +87,9 @@ def detect_notation(text: str) -> tuple[str, str]:
     >>> detect_notation("ΔΔΙΙ")[0]
     'attic'
     """
-<<<<<<< HEAD
-    cuneiform = [c for c in text if 0x12400 <= ord(c) <= 0x1247F or c in _CUNEIFORM_DIGITS]
-=======
     if text.isascii() and _PLAIN_SEXAGESIMAL.fullmatch(text):   # rule 6 at once, the usual case
         return "sexagesimal", _SEPARATED if ("," in text or ";" in text) else _ONE_PLACE
-    cuneiform = [c for c in text if 0x12400 <= ord(c) <= 0x1247F or c in "\U00012079\U0001230B"]
->>>>>>> main
+    cuneiform = [c for c in text if 0x12400 <= ord(c) <= 0x1247F or c in _CUNEIFORM_DIGITS]
     if cuneiform:
         return "cuneiform", f"Unicode cuneiform numeric signs ({_name(cuneiform[0])})"
     grapheme = _ATF_GRAPHEME.search(text)
