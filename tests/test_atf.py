@@ -42,6 +42,10 @@ READINGS = [
     ("2 1/2", F(5, 2), F(5, 2), F(5, 2), False, "a whole and a fraction"),
     ("43.KAM₂", F(43), F(43), F(43), True, "a number glued to a logogram"),
     ("1.[40]", F(100), F(60), F(119), True, "a restored place"),
+    ("2/3(disz) sila3 5(disz) gin2", F(45), F(45), F(45), False, "a quantity in the finest unit: gin2"),
+    ("1(disz) gin2 la2 igi-6(disz)-gal2", F(5, 6), F(5, 6), F(5, 6), False, "a shekel less a sixth"),
+    ("3(asz) sze gur", F(3), F(3), F(3), False, "barley counted in gur"),
+    ("[5(disz) sila3] 3(disz) gin2", F(303), F(63), F(543), False, "a restored count of sila3"),
 ]
 
 
@@ -58,7 +62,9 @@ def test_readings(text, value, lo, hi, floating, note):
 
 @pytest.mark.parametrize("text", [t for t, *_ in READINGS])
 def test_written_back_as_it_came(text):
-    assert format_reading(read(text, notation="atf")) == text
+    written = format_reading(read(text, notation="atf"))
+    # a unit word inside the brackets of its number is written after them
+    assert written == text.replace("[5(disz) sila3]", "[5(disz)] sila3")
 
 
 @pytest.mark.parametrize("text,column,label", BAD_EXAMPLES)
@@ -90,6 +96,22 @@ def test_brackets_may_open_before_the_number_in_a_line():
     state = {"lost": 0}
     r = parse_in_line("n(disz)]", state)
     assert r.slots[0].status is Status.LOST and state["lost"] is None
+
+
+@pytest.mark.parametrize("text,unit", [
+    ("2/3(disz) sila3 5(disz) gin2", "gin2"), ("3(asz) sze gur", "gur"), ("4(ban2) la2 1(asz@t) sila3", "sila3"),
+])
+def test_quantities_carry_their_unit(text, unit):
+    assert read(text, notation="atf").unit == unit
+
+
+def test_units_of_two_systems_or_a_number_without_unit_are_errors():
+    with pytest.raises(NumcheckError, match="more than one system"):
+        read("1(disz) sila3 2(disz) ma-na", notation="atf")
+    with pytest.raises(NumcheckError, match="no unit word after it"):
+        read("2/3(disz) sila3 5(disz)", notation="atf")
+    with pytest.raises(NumcheckError, match="counted in sila3"):
+        read("3(ban2) gur", notation="atf")
 
 
 def test_atf_math_reads_disz_and_u_as_floating_places():

@@ -242,11 +242,13 @@ def _attach_units(content: str, words: list[_Word], found: list[NumberWord]) -> 
             continue
         between = [words[x].core for x in range(ka + 1, kb)]
         ua = unit_word(between[0]) if between else None
-        if len(between) == 1 and b.unit and ua and unit_word(b.unit).system == ua.system:
-            _compound(a, b, ua, unit_word(b.unit), +1)
+        if len(between) == 1 and b.unit and ua and unit_word(b.unit, ua.system) is not None:
+            # gin2 is capacity or weight: the unit before it decides
+            b.system = ua.system
+            _compound(a, b, ua, unit_word(b.unit, ua.system), +1)
         elif len(between) == 2 and sign_key(between[1]) in _MINUS and ua is not None:
             b.unit, b.system = b.unit or a.unit, ua.system
-            _compound(a, b, ua, unit_word(b.unit), -1)
+            _compound(a, b, ua, unit_word(b.unit, ua.system), -1)
 
 
 def _compound(a: NumberWord, b: NumberWord, ua, ub, sign: int) -> None:

@@ -28,6 +28,7 @@ from ... import limits
 from ...errors import LimitError
 from ...reading import Reading, Slot, Status
 from .pieces import Atom, atoms, syntax_error
+from .quantities import build_quantity, merge_unit_words, unit_positions
 from .signs import MAX_COUNT, is_unicode_spelling, numeral_signs, sign_key, split_modifiers
 
 __all__ = ["build", "MODES", "Grapheme", "grapheme"]
@@ -126,6 +127,15 @@ def build(text: str, *, mode: str | None = None, state: dict | None = None, clos
     if len(pieces) > limits.MAX_PLACES:
         raise LimitError("number of signs", len(pieces), limits.MAX_PLACES,
                          "Set numcheck.limits.MAX_PLACES higher to read it.")
+    if any(a.kind == "word" for a in pieces):
+        pieces = merge_unit_words(pieces)
+    if unit_positions(pieces):
+        return build_quantity(text, pieces, lambda run: _read_run(text, run, mode, notation), notation)
+    return _read_run(text, pieces, mode, notation)
+
+
+def _read_run(text: str, pieces: list[Atom], mode: str | None, notation: str) -> Reading:
+    """One number (no unit words): a count, place value or the math style."""
     numerals = [a for a in pieces if a.kind == "numeral"]
     places = [a for a in pieces if a.kind == "places" or a.kind == "fraction" and not numerals]
     if numerals and any(a.kind == "places" for a in pieces):

@@ -23,7 +23,7 @@ from fractions import Fraction
 from importlib import resources
 
 __all__ = ["sign_key", "split_modifiers", "NumeralSign", "numeral_signs", "UnitWord", "unit_words",
-           "unit_word", "MAX_COUNT", "is_unicode_spelling"]
+           "unit_word", "unit_systems", "MAX_COUNT", "is_unicode_spelling"]
 
 _SUBSCRIPTS = str.maketrans("₀₁₂₃₄₅₆₇₈₉ₓ", "0123456789x")
 _LETTERS = {"š": "sz", "ṣ": "s,", "ṭ": "t,", "ḫ": "h", "ĝ": "j", "ŋ": "j", "ʾ": "'"}
@@ -109,23 +109,35 @@ class UnitWord:
 
 
 @functools.cache
-def unit_words() -> dict[str, UnitWord]:
-    """Key of every spelling of a unit word -> :class:`UnitWord`."""
+def _unit_rows() -> dict[str, tuple[UnitWord, ...]]:
     table = resources.files("numcheck") / "data" / "atf_units.csv"
-    out: dict[str, UnitWord] = {}
+    out: dict[str, list[UnitWord]] = {}
     with table.open(encoding="utf-8", newline="") as fh:
         for row in csv.DictReader(fh):
             unit = UnitWord(row["unit"], row["system"], Fraction(row["in_base"]), row["base"],
                             row["source"])
-            for spelling in [row["unit"], *row["aliases"].split()]:
-                out.setdefault(sign_key(spelling), unit)
-    return out
+            for spelling in dict.fromkeys([row["unit"], *row["aliases"].split()]):
+                out.setdefault(sign_key(spelling), []).append(unit)
+    return {k: tuple(v) for k, v in out.items()}
 
 
-def unit_word(word: str) -> UnitWord | None:
-    """The unit a word names (``sila₃``, ``gin2``, ``KUŠ₃``), or None.
+def unit_words() -> dict[str, UnitWord]:
+    """Key of every spelling of a unit word -> its first :class:`UnitWord` (see :func:`unit_systems`)."""
+    return {k: v[0] for k, v in _unit_rows().items()}
 
-    >>> unit_word("sila₃").name, unit_word("GIN₂").in_base
-    ('sila3', Fraction(1, 60))
+
+def unit_systems(word: str) -> tuple[UnitWord, ...]:
+    """Every unit a word may name: ``gin2`` is a shekel of weight and 1/60 sila3 of capacity."""
+    return _unit_rows().get(sign_key(word.strip("#?!*")), ())
+
+
+def unit_word(word: str, system: str | None = None) -> UnitWord | None:
+    """The unit a word names (``sila₃``, ``gin2``, ``KUŠ₃``), in *system* when given, or None.
+
+    >>> unit_word("sila₃").name, unit_word("GIN₂").in_base, unit_word("gin2", "weight").in_base
+    ('sila3', Fraction(1, 60), Fraction(1, 1))
     """
-    return unit_words().get(sign_key(word.strip("#?!*")))
+    for unit in unit_systems(word):
+        if system is None or unit.system == system:
+            return unit
+    return None

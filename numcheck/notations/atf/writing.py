@@ -11,6 +11,7 @@ a floating number in ``disz``/``u`` places, or Oracc's ``1.40``.
 
 from __future__ import annotations
 
+from dataclasses import replace
 from fractions import Fraction
 
 from ...placevalue import digits_of, mantissa
@@ -56,6 +57,18 @@ def render(reading: Reading, choice: tuple[Fraction, ...]) -> str:
 def _slot_pieces(slot: Slot, chosen: Fraction | None, pieces: list, *, first: bool) -> None:
     form = slot.form
     kind = form[0]
+    if kind == "scaled":            # a number of a quantity: its own form, then its unit words
+        _kind, factor, inner, tail = form
+        unscaled = replace(slot, values=tuple(sorted(v / factor for v in slot.values)),
+                           editor=None if slot.editor is None else slot.editor / factor, form=inner)
+        if inner:
+            _slot_pieces(unscaled, None if chosen is None else chosen / factor, pieces, first=first)
+        else:
+            _formless_pieces(unscaled, None if chosen is None else chosen / factor, pieces, "count",
+                             first=first)
+        if tail:
+            pieces.append((" " + tail, RAW))
+        return
     bracket = _bracket(slot.status)
     if chosen is not None and len(slot.values) == 1:
         chosen = None
@@ -162,6 +175,8 @@ def _place_signs(items) -> tuple[str, str]:
 
 def style_of(reading: Reading) -> dict:
     """How *reading* is written: ``style`` (count, place, math), Unicode spelling, sign modifier."""
+    forms = [s.form[2] if s.form and s.form[0] == "scaled" else s.form for s in reading.slots]
+    reading = replace(reading, slots=tuple(replace(s, form=f) for s, f in zip(reading.slots, forms)))
     kinds = {s.form[0] for s in reading.slots if s.form}
     if "math" in kinds:
         style = "math"
