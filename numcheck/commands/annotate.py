@@ -24,7 +24,8 @@ def add_arguments(parser) -> None:
                         help="add the K best restorations of each damaged number as "
                              "<certainty locus=\"value\" assertedValue=.. degree=..> (EpiDoc)")
     parser.add_argument("--fix", action="store_true",
-                        help="replace an existing @value that the letters contradict (default: report it)")
+                        help="replace an existing @value that no reading of the letters allows "
+                             "(default: report it); a value any valid reading gives is never changed")
     parser.add_argument("--notation", "-n", help="the notation of the numbers (detected when left out)")
     parser.add_argument("--workers", type=int, default=None,
                         help="processes for a folder of many files (default 2)")
@@ -102,33 +103,54 @@ def _show_file(out: dict, console) -> None:
     from rich.table import Table
 
     table = Table(title=f"numcheck annotate  {escape(out['input'])}", header_style="bold")
-    for col in ("line", "as read", "notation", "value", "status"):
+    for col in ("#", "text line", "as read", "notation", "value", "status"):
         table.add_column(col)
-    style = {"contradiction": "red", "fixed": "yellow", "range-added": "cyan"}
-    # A long file: list what needs the editor (damaged, contradicted), not every number.
+    style = {"contradiction": "red", "fixed": "yellow", "range-added": "cyan", "unreadable": "red",
+             "not-checkable": "magenta", "word": "blue"}
+    # A long file: list what needs the editor (damaged, contradicted, unread), not every number.
     shown = out["nums"] if len(out["nums"]) <= _LIST_ALL else [
-        n for n in out["nums"] if n["damaged"] or n["status"] in ("contradiction", "fixed")]
+        n for n in out["nums"] if n["damaged"] or n["status"] not in ("agrees", "value-added")]
     for n in shown:
-        value = _exact(n["value"]) if "value" in n else f"{_exact(n['atLeast'])} to {_exact(n['atMost'])}"
         status = n["status"]
-        table.add_row(str(n["line"] or ""), escape(n["text"]), n["notation"], value,
+        table.add_row(str(n["index"]), _text_line(n), escape(n["text"]), n["notation"], _value(n),
                       f"[{style[status]}]{status}[/]" if status in style else status)
     console.print(table)
     if len(shown) < len(out["nums"]):
         console.print(f"{len(out['nums']) - len(shown)} undamaged numbers that agree with their "
                       "letters are not listed (--json lists every one).")
     for n in out["nums"]:
+        where = f"<num> {n['index']} ({_text_line(n) or 'XML line ' + str(n['line'])})"
         if n.get("message"):
-            console.print(f"[red]line {n['line']}:[/red] {escape(n['message'])}")
+            colour = "red" if n["status"] in ("contradiction", "unreadable", "fixed") else "blue"
+            console.print(f"[{colour}]{escape(where)}:[/{colour}] {escape(n['message'])}")
         if n.get("alternatives"):
             alts = ", ".join(f"{escape(a['text'])} = {a['value']} ({a['probability']:.0%})"
                              for a in n["alternatives"])
-            console.print(f"line {n['line']}: restorations (suggestions, not readings): {alts}")
+            console.print(f"{escape(where)}: restorations (suggestions, not readings): {alts}")
     for note in out["notes"]:
         console.print(f"[yellow]note:[/yellow] {escape(note)}")
     where = f"written to {escape(out['output'])}" if out["output"] else "nothing written (no -o given)"
     console.print(f"{out['numbers']} numbers, {out['damaged']} damaged, {out['flagged']} contradicted "
-                  f"by their letters, {out['restored']} with restorations; {where}.")
+                  f"by their letters, {out.get('unreadable', 0)} unreadable, {out.get('words', 0)} in "
+                  f"words, {out['restored']} with restorations; {where}.")
+
+
+def _text_line(n: dict) -> str:
+    if n.get("text_line") is None:
+        return ""
+    return f"{n['text_line']}" + (f" ({n['div']})" if n.get("div") and n["div"] != "edition" else "")
+
+
+def _value(n: dict) -> str:
+    if "value" in n:
+        return _exact(n["value"])
+    if "atLeast" in n or "atMost" in n:
+        lo = _exact(n["atLeast"]) if "atLeast" in n else "…"
+        hi = _exact(n["atMost"]) if "atMost" in n else "…"
+        return f"{lo} to {hi}"
+    if n.get("existing", {}).get("value"):
+        return f"{n['existing']['value']} (the editor's)"
+    return ""
 
 
 def _exact(text: str) -> str:
@@ -147,20 +169,22 @@ def show_batch(out: dict, console, kind: str) -> None:
     from rich.table import Table
 
     table = Table(title=f"numcheck {kind}  {escape(out['folder'])}", header_style="bold")
-    for col in ("file", "numbers", "damaged", "flagged", "restored", "note"):
+    for col in ("file", "numbers", "damaged", "flagged", "unreadable", "restored", "note"):
         table.add_column(col)
     for f in out["files"]:
         if "error" in f:
-            table.add_row(escape(f["file"]), "", "", "", "", "[red]not read (see below)[/red]")
+            table.add_row(escape(f["file"]), "", "", "", "", "", "[red]not read (see below)[/red]")
         elif "skipped" in f:
-            table.add_row(escape(f["file"]), "", "", "", "", "skipped (see below)")
+            table.add_row(escape(f["file"]), "", "", "", "", "", "skipped (see below)")
         else:
             table.add_row(escape(f["file"]), str(f.get("numbers", 0)), str(f.get("damaged", 0)),
-                          str(f.get("flagged", 0)), str(f.get("restored", 0)), "")
+                          str(f.get("flagged", 0)), str(f.get("unreadable", 0)),
+                          str(f.get("restored", 0)), "")
     s = out["summary"]
     table.add_section()
-    table.add_row(f"{s['files']} files ({s['failed']} failed, {s.get('skipped', 0)} skipped)", str(s["numbers"]), str(s["damaged"]),
-                  str(s["flagged"]), str(s["restored"]), "", style="bold")
+    table.add_row(f"{s['files']} files ({s['failed']} failed, {s.get('skipped', 0)} skipped)",
+                  str(s["numbers"]), str(s["damaged"]), str(s["flagged"]), str(s.get("unreadable", 0)),
+                  str(s["restored"]), "", style="bold")
     console.print(table)
     for f in out["files"]:
         if "error" in f:

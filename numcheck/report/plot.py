@@ -10,6 +10,7 @@ from __future__ import annotations
 import io
 
 from ._common import write_output
+from .function_plot import draw_function, is_function
 
 __all__ = ["plot_bytes", "write_plot"]
 
@@ -35,6 +36,10 @@ def plot_bytes(result, fmt: str = "png") -> bytes:
         restored.setdefault(r.column, {}).setdefault(r.index, r)
     for k, name in enumerate(names):
         ax = fig.add_subplot(len(names), 1, k + 1)
+        function = next((s for s in schemes if s.column == name and is_function(s)), None)
+        if function is not None:   # a computed function: its residuals (report/function_plot.py)
+            draw_function(ax, result, function, by_col.get(name, []))
+            continue
         written = frame.written[name]
         rows = [i + 1 for i, v in enumerate(written) if v is not None]
         ys = [float(frame.fraction(v)) for v in written if v is not None]
