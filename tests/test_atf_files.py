@@ -218,3 +218,14 @@ def test_any_atf_lines_are_read_and_never_crash(lines, math):
     for n in out["nums"]:
         if "error" not in n:
             assert F(n["min"]) <= F(n["value"]) <= F(n["max"])
+
+
+def test_an_unreadable_number_of_an_atf_table_is_reported_and_the_rest_audited(tmp_path):
+    path = _write(tmp_path, RECIPROCALS, "cdli")
+    text = path.read_text(encoding="utf-8").replace("igi 1(u) 2(disz) gal2-bi 5(disz)",
+                                                     "igi 1(u) 2(disz) gal2-bi 12(disz)")
+    path.write_text(text, encoding="utf-8")
+    result = audit(path)
+    out = result.to_dict()
+    assert [s["kind"] for s in out["schemes"]] == ["reciprocal"]
+    assert [(u["row"], u["text"]) for u in result.table.unreadable] == [(9, "12(disz)")]

@@ -36,10 +36,9 @@ def atf_rows(source: str, name: str = "<atf>") -> tuple[list[str], list[list[str
             continue
         cells, before = [], []
         for w in found:
-            if w.reading is None:
-                raise NumcheckError(f"{name}, line {line.number} ({line.label}): cannot read "
-                                    f"{w.text!r}: {w.error}")
-            cells.append(format_atf(w.reading))
+            # a number word that cannot be read stays as written: the table reports it and
+            # audits the rest
+            cells.append(w.text if w.reading is None else format_atf(w.reading))
             head = line.content[:w.start].split()
             before.append(head[-1].strip("[]#?!*<>") if head else "")
         rows.append((line.label, cells, before))
