@@ -229,3 +229,17 @@ def test_an_unreadable_number_of_an_atf_table_is_reported_and_the_rest_audited(t
     out = result.to_dict()
     assert [s["kind"] for s in out["schemes"]] == ["reciprocal"]
     assert [(u["row"], u["text"]) for u in result.table.unreadable] == [(9, "12(disz)")]
+
+
+def test_annotate_reads_a_mathematical_text_as_floating_place_value(tmp_path, capsys):
+    src = tmp_path / "problem.atf"
+    src.write_text("&X900004 = Kurlil problem text (invented)\n@obverse\n"
+                   "1. i-gi 8(disz) i-li 7(disz) 3(u)\n2. 3(u) a-na 2(disz)\n", encoding="utf-8")
+    code, out, _ = run_cli(capsys, "annotate", str(src), "--notation", "atf-math", "--json")
+    nums = json.loads(out)["nums"]
+    assert code == 0 and [(n["word"], n["value"], n["floating"]) for n in nums] == [
+        ("8(disz)", "8", True), ("7(disz) 3(u)", "450", True), ("3(u)", "30", True), ("2(disz)", "2", True)]
+    code, out, _ = run_cli(capsys, "annotate", str(src), "--json")
+    assert [n["floating"] for n in json.loads(out)["nums"]] == [False, True, False, False]
+    code, _, err = run_cli(capsys, "annotate", str(src), "--notation", "greek")
+    assert code == 2 and "atf-math" in err

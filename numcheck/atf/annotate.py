@@ -69,11 +69,11 @@ def _marks(text: str, reading) -> list[str]:
     return marks
 
 
-def read_atf_text(source: str, name: str = "<atf>") -> AtfAnnotation:
-    """Read every number word of the ATF *source* text."""
+def read_atf_text(source: str, name: str = "<atf>", *, math: bool = False) -> AtfAnnotation:
+    """Read every number word of the ATF *source* text (*math*: as if ``#atf: use math`` were given)."""
     result = AtfAnnotation(input=name)
     for line in text_lines(source):
-        found, traps = number_words(line.content, math=line.math)
+        found, traps = number_words(line.content, math=line.math or math)
         for t in traps:
             result.not_numbers.append({"text_id": line.text_id, "label": line.label, "line": line.number,
                                        "column": line.offset + t.start + 1, "word": t.word,
@@ -102,7 +102,7 @@ def read_atf_text(source: str, name: str = "<atf>") -> AtfAnnotation:
                     value, lo, hi, qunit, qtext = w.quantity
                     entry["quantity"] = {"value": exact_text(value), "min": exact_text(lo),
                                          "max": exact_text(hi), "unit": qunit, "text": qtext}
-                notes = [n for n in r.warnings if line.math or not n.startswith("only disz and u")]
+                notes = [n for n in r.warnings if line.math or math or not n.startswith("only disz and u")]
                 notes += w.notes
                 if notes:
                     entry["notes"] = notes
@@ -114,8 +114,12 @@ def read_atf_text(source: str, name: str = "<atf>") -> AtfAnnotation:
     return result
 
 
-def annotate_atf(path, output=None) -> AtfAnnotation:
-    """Read every number word of the ATF file *path*; with *output*, write the listing as TSV."""
+def annotate_atf(path, output=None, *, math: bool = False) -> AtfAnnotation:
+    """Read every number word of the ATF file *path*; with *output*, write the listing as TSV.
+
+    *math* reads CDLI graphemes of disz and u as floating place value in every text, as
+    ``#atf: use math`` does for the texts that declare it.
+    """
     from ..files import check_distinct, write_atomic
     from ..tables.text import read_text_file
 
@@ -124,7 +128,7 @@ def annotate_atf(path, output=None) -> AtfAnnotation:
         source = read_text_file(src)
     except NumcheckError as err:
         raise NumcheckError(str(err).replace("table", "ATF file")) from None
-    result = read_atf_text(source, str(src))
+    result = read_atf_text(source, str(src), math=math)
     if output:
         check_distinct(src, output)
         rows = ["text_id\tlabel\tword\tvalue\tmin\tmax\tstatus\tunit\tnote"]

@@ -55,9 +55,13 @@ def run(args, console) -> dict:
 def _run_atf(args, console) -> dict:
     """An ATF transliteration: list every number word (numcheck.atf); the input is never changed."""
     from ..atf import annotate_atf
+    from ..errors import NumcheckError
     from ..report.atf import show_atf
 
-    out = annotate_atf(args.input, args.output).to_dict()
+    if args.notation not in (None, "atf", "atf-math"):
+        raise NumcheckError(f"An ATF file is read in the notation atf (or atf-math for "
+                            f"mathematical texts), not {args.notation!r}.")
+    out = annotate_atf(args.input, args.output, math=args.notation == "atf-math").to_dict()
     if console is not None:
         show_atf(out, console)
     return out
