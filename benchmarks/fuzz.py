@@ -68,6 +68,11 @@ SEEDS: dict[str | None, list[str]] = {
     "devanagari": ["१५७७९१७५००", "२९;३१,५[x],८,२०"],
     "abjad": ["{ب} نط", "ا {zero} ل", "ل [.]ه", "كط لا ن", "غكب"],
     "abjad-maghribi": ["كط لا ن", "ل [.]ه"],
+    "atf": ["1(gesz2) 3(u) 7(disz)", "2(u@c) 9(aš@c)", "1(u) la2 1(disz)", "igi-6(disz)-gal2",
+            "[1(u)] 9(disz)", "1(u@c)#?", "n(disz)", "4(ban2)# la2 1(asz@t)", "1(disz) 1/2(disz)",
+            "1.40", "1 ME 43", "2 1/2", "43.KAM₂", "7(disz) 1(u) 5(disz)", "[x] la₂ 1(aš@c)",
+            "2/3(disz) sila3 5(disz) gin2", "1(disz) gin2 la2 igi-6(disz)-gal2", "3(asz) sze gur"],
+    "atf-math": ["7(disz) 3(u)", "1.40", "9.30", "03", "3(u)", "1.[40]"],
     "quantity": ["2 bēru 10 UŠ", "3 signs 1[x];30°", "6585 days", "12;30 Taurus", "1[x] UŠ",
                  "6585 1/3 days", "3 signs 12;30°"],
 }

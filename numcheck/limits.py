@@ -24,6 +24,8 @@ MAX_XML_BYTES = 50_000_000
 MAX_XML_DEPTH = 200
 #: Most ``<num>`` elements annotated in one XML file.
 MAX_XML_NUMS = 200_000
+#: Most number words listed from one ATF file by ``annotate FILE.atf``.
+MAX_ATF_NUMBERS = 200_000
 #: Most files in one batch run (``annotate DIR``, ``audit DIR``).
 MAX_BATCH_FILES = 10_000
 #: Largest table file (TSV, CSV, aligned text) read by ``audit`` (bytes).

@@ -164,6 +164,13 @@ def test_xml_nums(monkeypatch):
     _raises_limit("MAX_XML_NUMS", annotate_bytes, TEI.format("<num>α</num><num>β</num><num>γ</num>").encode())
 
 
+def test_atf_numbers(monkeypatch):
+    from numcheck.atf import read_atf_text
+    monkeypatch.setattr(limits, "MAX_ATF_NUMBERS", 2)
+    read_atf_text("&X1 = t\n@obverse\n1. 1(disz) sze 2(disz) sze\n")
+    _raises_limit("MAX_ATF_NUMBERS", read_atf_text, "&X1 = t\n@obverse\n1. 1(disz) sze 2(disz) sze 3(disz)\n")
+
+
 def test_xml_entities_are_never_expanded(tmp_path):
     """No external entities (a local file, the network) and no entity bombs: lxml's safe settings."""
     secret = tmp_path / "secret.txt"

@@ -33,6 +33,8 @@ NOTATIONS: dict[str, str] = {
     "arabic-indic": "numcheck.notations.digits.arabic_indic",
     "persian": "numcheck.notations.digits.persian",
     "devanagari": "numcheck.notations.digits.devanagari",
+    "atf": "numcheck.notations.atf",
+    "atf-math": "numcheck.notations.atf.mathstyle",
 }
 
 

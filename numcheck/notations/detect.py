@@ -2,7 +2,13 @@
 
 The rules, in the order they are tried (each names the evidence that decided):
 
-1. Unicode cuneiform numeric signs (U+12400 block, DIŠ, U) -> ``cuneiform``.
+1. Unicode cuneiform numeric signs (U+12400 block, DIŠ, MIN, U, U U, U U U)
+   -> ``cuneiform``.
+1a. ATF transliterations -> ``atf``: a CDLI grapheme ``COUNT(SIGN)``
+   (``3(u)``, ``n(disz)``, ``1/2(disz)``), or Oracc's mathematical style:
+   places joined by ``.`` with two digits after each dot (``1.40``, ``1.03``;
+   ``29.5`` is not taken for it), a number glued to a logogram
+   (``43.KAM₂``, ``15-KAM₂``), hundreds ``1 ME 43``.
 2. Hebrew letters -> ``hebrew``.
 2b. Arabic-script letters -> ``abjad`` (eastern order; ``--notation
    abjad-maghribi`` for the western values).
@@ -46,6 +52,11 @@ _ATTIC_ASCII = re.compile(r"[ΠP]\([ΔΗΧΜDHXM]\)")
 _GREEK_SIGNS = frozenset("\U0001018A\u014d\u0375\u2220") | frozenset(
     chr(c) for c in (0x10175, 0x10176, 0x10177, 0x10178, 0x1018B))
 _ROMAN = frozenset("IVXLCDMJivxlcdmj")
+_ATF_GRAPHEME = re.compile(r"(?:[0-9]+|[nN]|[nN]\+[0-9]+|[0-9]+/[0-9]+)\([^()\s]+\)")
+_ATF_MATH = re.compile(r"(?<![\w.,;])[\[<]*[0-9]+(?:@v)?[\]#?!*>]*"
+                       r"(?:\.:?[\[<]*[0-9]{2}(?:@v)?[\]#?!*>]*)+(?![\w.,;])"
+                       r"|[0-9]+[.-](?:KAM|KÁM|kam|KAM₂|en|et|TA)\b"
+                       r"|\b[0-9]+ (?:ME|LIM)(?: [0-9]+)?\b")
 # The half sign and the Greek numeral signs as a converter writes them (U+2220 for ∠).
 _CODE_POINT_SIGN = re.compile(r"[Uu]\+(?:2220|0374|0375|1018[AaBb]|1017[5-8])")
 _DIGIT_GROUPS = re.compile(r"[0-9xXn\]?>⟩}\u0323]\s+[0-9xXn\[<⟨{]")
@@ -54,6 +65,10 @@ _SEPARATED = "digits with sexagesimal separators (',' between places, ';' after 
 _ONE_PLACE = "plain digits with no separator: one place, an integer"
 # What a transliterated cuneiform number is made of (digits, x, n, Leiden marks).
 _CUNEIFORM_CHARS = re.compile(r"[0-9xXn\[\]<>⟨⟩{}?\u0323\s]+")
+
+
+#: Cuneiform signs outside the numeric block that write digits: DIŠ, MIN, U, U U, U U U.
+_CUNEIFORM_DIGITS = frozenset("\U00012079\U0001222B\U0001230B\U00012399\U0001230D")
 
 
 def _name(ch: str) -> str:
@@ -82,9 +97,17 @@ def detect_notation(text: str) -> tuple[str, str]:
     """
     if text.isascii() and _PLAIN_SEXAGESIMAL.fullmatch(text):   # rule 6 at once, the usual case
         return "sexagesimal", _SEPARATED if ("," in text or ";" in text) else _ONE_PLACE
-    cuneiform = [c for c in text if 0x12400 <= ord(c) <= 0x1247F or c in "\U00012079\U0001230B"]
+    cuneiform = [c for c in text if 0x12400 <= ord(c) <= 0x1247F or c in _CUNEIFORM_DIGITS]
     if cuneiform:
         return "cuneiform", f"Unicode cuneiform numeric signs ({_name(cuneiform[0])})"
+    grapheme = _ATF_GRAPHEME.search(text)
+    if grapheme:
+        return "atf", (f"an ATF numeral grapheme COUNT(SIGN) ({grapheme.group()}): CDLI-style "
+                       "transliteration")
+    math = _ATF_MATH.search(text)
+    if math:
+        return "atf", (f"ATF in Oracc's mathematical style ({math.group()}: places joined by '.', "
+                       "a number glued to a logogram, or hundreds with ME)")
     hebrew = [c for c in text if 0x05D0 <= ord(c) <= 0x05EA]
     if hebrew:
         return "hebrew", f"Hebrew letters ({_name(hebrew[0])})"
