@@ -17,7 +17,7 @@ from numcheck.cli import main
 
 README = Path(__file__).resolve().parent.parent / "README.md"
 
-_NEEDS_A_FILE = re.compile(r"\.(tsv|csv|xml|html|png)\b|/\s|/$|\bDIR\b|\bTEXT\b|\bFILE\b|\bBODY\b|\bDATE\b|\bN\b|\[--")
+_NEEDS_A_FILE = re.compile(r"\.(tsv|csv|xml|html|png|atf)\b|/\s|/$|\bDIR\b|\bTEXT\b|\bFILE\b|\bBODY\b|\bDATE\b|\bN\b|\[--")
 
 
 def _examples() -> list[str]:
@@ -67,6 +67,10 @@ PROMISED = [
     ('numcheck read "شسه" --notation abjad', "value", "365"),
     ('numcheck read "3 signs 12;30°" --json', "value", "205/2"),
     ('numcheck read "2 bēru 10 UŠ" --unit hours', "value", "14/3"),
+    ('numcheck read "1(gesz2) 3(u) 7(disz)"', "value", "97"),
+    ('numcheck read "1(u) la2 1(disz)"', "value", "9"),
+    ('numcheck read "7(disz) 3(u)"', "value", "450"),
+    ('numcheck read "1 ME 43"', "value", "143"),
 ]
 
 

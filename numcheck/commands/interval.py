@@ -5,7 +5,8 @@ from __future__ import annotations
 from ..calendars import CALENDARS, DATE_EXAMPLES, interval
 
 NAME = "interval"
-HELP = "count the days between two dates (Egyptian, Alexandrian, Julian calendar, or JD)"
+HELP = ("count the days between two dates (Egyptian with the eras of Nabonassar, Philip, Augustus and "
+        "the kings of the Canon, Alexandrian, Hijra, Yazdegerd, Seleucid, Hebrew, Julian, or JD)")
 ORDER = 60
 
 
@@ -19,7 +20,8 @@ def add_arguments(parser) -> None:
                         help="calendar of a date that names no era: "
                              + "; ".join(f"{k} ({v})" for k, v in CALENDARS.items())
                              + ". Default: julian. A date that begins with an era "
-                               "(Nabonassar, Philip, Diocletian) carries its own calendar.")
+                               "(Nabonassar, Philip, Augustus, Hadrian ..., Diocletian, Hijra, "
+                               "Yazdegerd, Seleucid, AM) carries its own calendar.")
 
 
 def run(args, console) -> dict:
@@ -47,6 +49,9 @@ def _show(result, out: dict, console) -> None:
                       eq["julian"] + f"  ({eq['iso']})", eq.get("egyptian", "before the era"))
     console.print(table)
     years, rest = result.egyptian_years
+    for date in out["dates"]:
+        if date.get("note"):
+            console.print(f"[dim]{escape(date['note'])}[/dim]")
     console.print(f"[bold]{result.days:,}[/bold] days"
                   f"  = {years} Egyptian years of 365 days + {rest} days"
                   f"  = {float(result.julian_years):.4f} Julian years"

@@ -25,6 +25,9 @@ def add_arguments(parser) -> None:
                         help=f"with --search: the longest span in years (default {DEFAULT_SEARCH_YEARS})")
     parser.add_argument("--cycles", default=None,
                         help="with --search: the cycles to close at once, e.g. synodic,sidereal")
+    parser.add_argument("--year", choices=("tropical", "sidereal"), default="tropical",
+                        help="with --search: count spans in tropical (default) or sidereal years "
+                             "(the Babylonian relations count sidereal years)")
     parser.add_argument("--top", type=int, default=None, help="show only the first K rows of the table")
 
 
@@ -34,7 +37,7 @@ def run(args, console) -> dict:
             raise NumcheckRangeError(f"Give either N ({args.n!r}) or --search, not both.",
                                      legal="'relate N --unit years' or 'relate --search BODY'")
         result = search(args.search, max_years=args.max_years, values=args.values,
-                        tradition=args.tradition, cycles=args.cycles)
+                        tradition=args.tradition, cycles=args.cycles, year=args.year)
         out = result.to_dict()
         if console is not None:
             _show_search(result, console, args.top)
@@ -116,6 +119,7 @@ def _show_search(result, console, top) -> None:
                       _known_text(c.known), style="bold" if c.known else "")
     console.print(table)
     _legend([r.counted.known for r in ratios], console)
+    _show_attested(result, console)
     if not result.spans:
         return
     spans = Table(title=f"spans of whole {result.span_unit} ({result.reference}) close to whole "
@@ -132,3 +136,23 @@ def _show_search(result, console, top) -> None:
                       style="bold" if s.known else "")
     console.print(spans)
     _legend([s.known for s in result.spans], console)
+
+
+def _show_attested(result, console) -> None:
+    from rich.markup import escape
+    from rich.table import Table
+
+    if not result.attested:
+        return
+    table = Table(title=f"relations the catalogue attests, counted in {result.year} years "
+                        "(best approximation or not)", header_style="bold", show_edge=False)
+    for col, just in (("relation", "left"), ("span given in", "left"), ("years", "right"),
+                      ("cycles", "right"), ("residual days", "right"), ("residual °", "right"),
+                      ("best?", "left")):
+        table.add_column(col, justify=just)
+    for a in result.attested:
+        c = a.counted
+        table.add_row(escape(a.relation.id), escape(a.relation.given_in), str(a.years),
+                      f"{c.nearest} {c.body} {c.cycle}", f"{float(c.residual_days):+.3f}",
+                      f"{float(c.residual_degrees):+.2f}", "yes" if a.best else "no")
+    console.print(table)

@@ -299,6 +299,7 @@ def identify(reading_or_text, *, notation: str | None = None, unit: str | None =
     ranked = sorted(found.values(), key=lambda t: t[0])[:top]
     matches = tuple(_match(reading, tab, *row[1:]) for row in ranked)
     nearest = () if matches else _nearest(reading, tab)
+    notes.extend(_t.coincidence_notes(reading, unit, len(found)))
     return IdentifyResult(reading, unit, matches, nearest, considered, tuple(notes))
 
 

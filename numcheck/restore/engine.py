@@ -41,14 +41,16 @@ def _reading(reading_or_text, notation, unit) -> Reading:
 
 
 def restore(reading_or_text, *, notation=None, unit=None, expect=None, context=(), top=10,
-            use_catalogue=True) -> RestoreResult:
+            use_catalogue=True, satisfies=()) -> RestoreResult:
     """Rank the readings a damaged number allows, with probabilities and reasons.
 
     *reading_or_text* is a :class:`~numcheck.reading.Reading` or a text read
     with :func:`numcheck.read` (*notation*, *unit* as there).  *expect* is a
     value the user expects (a text or an exact number); *context* a sequence
     of :class:`Evidence` from the number's surroundings; the catalogue of
-    periods is consulted unless ``use_catalogue=False``.  Gives the *top*
+    periods is consulted unless ``use_catalogue=False``; *satisfies* is a
+    relation from mathematics (``"x^2 = 2"``) or several, weighed like an
+    expected value (:mod:`numcheck.restore.mathematics`).  Gives the *top*
     candidates, best first, with probabilities over the whole space.
 
     >>> restore("29;31,5[x],8,20", use_catalogue=False, expect="29;31,50,8,20").best.text
@@ -68,7 +70,8 @@ def restore(reading_or_text, *, notation=None, unit=None, expect=None, context=(
     reading = _reading(reading_or_text, notation, unit)
     space = build_space(reading)
     targets, ev_notes = gather(reading, space, expect=expect, context=context,
-                               use_catalogue=use_catalogue, unit=unit or reading.unit)
+                               use_catalogue=use_catalogue, unit=unit or reading.unit,
+                               satisfies=satisfies)
     notes = list(space.notes) + ev_notes
     if asked > top:
         notes.append(f"{asked:,} candidates were asked for; the best {top:,} are listed "
