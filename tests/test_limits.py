@@ -364,3 +364,12 @@ def test_max_message(monkeypatch):
     assert len(str(err)) < 200 and str(err).startswith("start") and str(err).endswith("end")
     assert "characters left out" in str(err)
     assert str(NumcheckError("short")) == "short"
+
+
+def test_the_readme_table_names_every_limit():
+    """Issue 21: every limit is documented in the README's table."""
+    from pathlib import Path
+    readme = (Path(__file__).resolve().parents[1] / "README.md").read_text(encoding="utf-8")
+    table = [line for line in readme.splitlines() if line.startswith("| `")]
+    missing = [n for n in dir(limits) if n.isupper() and not any(f"`{n}`" in line for line in table)]
+    assert missing == []
