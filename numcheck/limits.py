@@ -85,3 +85,6 @@ MAX_RELATION_TOKENS = 200
 SETTLE_MAX_READINGS = 16
 #: Longest message of an error (characters): a longer one keeps its beginning and its end.
 MAX_MESSAGE = 2000
+#: Most ways a restoration counts the lost places of the ``[...]`` of one number
+#: (each stands for 1 to GAP_MAX_PLACES places: six of them make 729).
+RESTORE_MAX_EXPANSIONS = 729

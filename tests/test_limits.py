@@ -373,3 +373,10 @@ def test_the_readme_table_names_every_limit():
     table = [line for line in readme.splitlines() if line.startswith("| `")]
     missing = [n for n in dir(limits) if n.isupper() and not any(f"`{n}`" in line for line in table)]
     assert missing == []
+
+
+def test_restore_max_expansions(monkeypatch):
+    monkeypatch.setattr(limits, "RESTORE_MAX_EXPANSIONS", 9)
+    numcheck.restore("κθ [...] ν κθ [...] ν", notation="greek", use_catalogue=False)   # 3 x 3
+    _raises_limit("RESTORE_MAX_EXPANSIONS", numcheck.restore, "κθ [...] ν κθ [...] ν κθ [...] ν",
+                  notation="greek", use_catalogue=False)

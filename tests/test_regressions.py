@@ -165,6 +165,9 @@ CASES = [
      "audit: a relation of 1,000 terms raised RecursionError"),
     ("audit-relation", float("inf"), "audit: relation=inf raised TypeError"),
     ("audit-relation", [1], "audit: relation=[1] raised TypeError (a list of relations holds texts)"),
+    ("restore", (" ".join(["κθ [...] ν"] * 10), "greek"),
+     "restore: ten '[...]' in one Greek number made 3^10 gapless readings, each searched "
+     "(73 s in the long fuzz run); now a LimitError before they are enumerated"),
     ("audit-wide", 300, "audit: 1,000 columns x 3 rows took 152 s (cubic cross-column fit); "
                         "300 columns here (the fit is now linear in the columns past 20)"),
     ("write-back", 50_000,

@@ -22,6 +22,7 @@ from functools import cached_property, lru_cache
 from fractions import Fraction
 
 from .. import limits
+from ..errors import LimitError
 from ..reading import Reading, Slot, Status
 from . import scoring
 
@@ -284,9 +285,29 @@ def _written_back(e: Reading, positions: tuple[Position, ...]) -> tuple[Position
     return tuple(out)
 
 
+def _check_expansions(reading: Reading) -> None:
+    """Refuse, before enumerating them, more ways to count the lost places than the limit.
+
+    Each ``[...]`` stands for 1 to ``GAP_MAX_PLACES`` places, so ten of them in
+    one number make 3^10 gapless readings, each searched (a restoration ran
+    past a minute).
+    """
+    count = 1
+    for slot in reading.slots:
+        if slot.gap is not None:
+            count *= slot.gap[1] - slot.gap[0] + 1
+    if count > limits.RESTORE_MAX_EXPANSIONS:
+        gaps = sum(1 for slot in reading.slots if slot.gap is not None)
+        raise LimitError(f"number of ways to count the lost places of {gaps} '[...]'", f"{count:,}",
+                         f"{limits.RESTORE_MAX_EXPANSIONS:,}",
+                         "Restore a shorter stretch of the number, write the lost places one by "
+                         "one ([x] or [.]), or set numcheck.limits.RESTORE_MAX_EXPANSIONS higher.")
+
+
 def build_space(reading: Reading) -> Space:
     """The candidate space of *reading*: sub-spaces, positions, options, priors."""
     notes: list[str] = []
+    _check_expansions(reading)
     expansions = list(reading.expansions())
     gap_weights = []
     gap_lists = []

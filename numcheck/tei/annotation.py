@@ -431,7 +431,12 @@ def _read_num(el, name, line, pieces, plain: str, notation: str | None):
 
 
 def _alternatives(restore_fn, reading: Reading, top: int, unit_fraction: bool) -> list[dict]:
-    result = restore_fn(reading, top=top)
+    try:
+        result = restore_fn(reading, top=top)
+    except LimitError:
+        # Too wide to restore (numcheck.limits): the number keeps its range,
+        # and the rest of the file is still annotated.
+        return []
     out = []
     for cand in list(result.candidates)[:top]:
         value = Fraction(cand.value)
