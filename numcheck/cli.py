@@ -16,6 +16,7 @@ import argparse
 import importlib
 import json
 import pkgutil
+import re
 import sys
 import warnings
 
@@ -37,7 +38,17 @@ def _command_modules():
 
 
 class _Parser(argparse.ArgumentParser):
-    """argparse, but bad options exit 2 with a one-line message (bad input)."""
+    """argparse, but bad options exit 2 with a one-line message (bad input).
+
+    A word that begins with ``-`` and a digit is a value, never an option:
+    ``numcheck read -3;30`` reads minus 3;30 and ``numcheck interval
+    -746-02-26 -323-11-12`` takes astronomical years (no option of numcheck
+    begins with a digit).
+    """
+
+    def __init__(self, *args, **kwargs):
+        super().__init__(*args, **kwargs)
+        self._negative_number_matcher = re.compile(r"^-\d")
 
     def error(self, message):
         self.print_usage(sys.stderr)
@@ -51,6 +62,9 @@ def build_parser() -> argparse.ArgumentParser:
         description="Read, identify, restore and audit the numbers of ancient and medieval "
                     "astronomical and mathematical texts.",
     )
+    from . import __version__
+
+    parser.add_argument("--version", action="version", version=f"numcheck {__version__}")
     sub = parser.add_subparsers(dest="command", metavar="COMMAND", parser_class=_Parser)
     for mod in _command_modules():
         p = sub.add_parser(mod.NAME, help=mod.HELP, description=mod.HELP)

@@ -41,14 +41,16 @@ def _reading(reading_or_text, notation, unit) -> Reading:
 
 
 def restore(reading_or_text, *, notation=None, unit=None, expect=None, context=(), top=10,
-            use_catalogue=True) -> RestoreResult:
+            use_catalogue=True, tradition=None) -> RestoreResult:
     """Rank the readings a damaged number allows, with probabilities and reasons.
 
     *reading_or_text* is a :class:`~numcheck.reading.Reading` or a text read
     with :func:`numcheck.read` (*notation*, *unit* as there).  *expect* is a
     value the user expects (a text or an exact number); *context* a sequence
     of :class:`Evidence` from the number's surroundings; the catalogue of
-    periods is consulted unless ``use_catalogue=False``.  Gives the *top*
+    periods is consulted unless ``use_catalogue=False``; *tradition*
+    (babylonian, greek ...) weighs that tradition's catalogue rows above the
+    others (without it, the tradition the notation says).  Gives the *top*
     candidates, best first, with probabilities over the whole space.
 
     >>> restore("29;31,5[x],8,20", use_catalogue=False, expect="29;31,50,8,20").best.text
@@ -61,9 +63,16 @@ def restore(reading_or_text, *, notation=None, unit=None, expect=None, context=(
         raise LimitError("number of candidates asked for", f"{top:,}", f"{limits.RESTORE_MAX_TOP:,}",
                          "Ask for fewer, or set numcheck.limits.RESTORE_MAX_TOP higher.")
     reading = _reading(reading_or_text, notation, unit)
+    if tradition is not None:
+        from .. import catalogue
+        from ..errors import UnknownNameError
+
+        if tradition not in catalogue.traditions():
+            raise UnknownNameError("tradition", tradition, catalogue.traditions())
     space = build_space(reading)
     targets, ev_notes = gather(reading, space, expect=expect, context=context,
-                               use_catalogue=use_catalogue, unit=unit or reading.unit)
+                               use_catalogue=use_catalogue, unit=unit or reading.unit,
+                               tradition=tradition)
     notes = list(space.notes) + ev_notes
     grids = [grid_for(s) for s in space.subspaces]
     order = sorted(range(len(targets)), key=lambda i: targets[i].value)
