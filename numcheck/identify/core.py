@@ -192,6 +192,39 @@ def _explain(reading: Reading, m_how: str, factor: Fraction, item: _t.Item, scal
     return f"{shown}{scale_text} = {what} ({where}{conv}): {how}"
 
 
+_HOW = {
+    "exact": "exact",
+    "truncated": "the catalogue value cut at the last written place (texts truncate)",
+    "rounded": "the catalogue value rounded at the last written place",
+    "damage": "agrees with a reading the damage allows",
+}
+
+
+def _describe(reading: Reading, ms) -> str:
+    """One distinct statement in words, with every catalogue row that makes it.
+
+    "1,49,45;20 = 223 synodic months, converted to days with the babylonian
+    (default month) convention: off by +0.65 in the last written place.
+    Rows: saros_almagest (a side: ...; Ptolemy, Almagest IV.2; published); ..."
+    """
+    m = ms[0]
+    shown = (sexagesimal_text(reading.value * Fraction(60) ** m.scale, fixed=True, max_places=8)
+             if reading.floating else reading.text)
+    scale_text = f" read at 60^{m.scale}" if m.scale else ""
+    conv = f", converted to {m.unit} with the {m.convention} convention" if m.convention else ""
+    if m.how == "near":
+        rel = float(abs(m.target - reading.value) / m.target) if m.target else 0.0
+        how = f"off by {float(m.residual):+.3g} in the last written place ({rel:.1e} relative)"
+    else:
+        how = _HOW[m.how]
+    rows = []
+    for x in ms:
+        side = f"{x.label}; " if x.label != "the value" else ""
+        rows.append(f"{x.id} ({side}{_short_source(x.source)}; {x.confidence})")
+    label = "Row" if len(rows) == 1 else f"{len(rows)} rows"
+    return f"{shown}{scale_text} = {m.what}{conv}: {how}. {label}: " + "; ".join(rows) + "."
+
+
 def _short_source(source: str) -> str:
     """The author, work and section of a source, without the notes that follow.
 
@@ -310,7 +343,7 @@ def identify(reading_or_text, *, notation: str | None = None, unit: str | None =
     # Enough matches to fill *top* distinct statements (rows that say the same fold into one).
     pool = [_match(reading, tab, *row[1:]) for row in ranked[:top * 12]]
     matches = tuple(pool[:top])
-    groups = _rank.group_matches(pool)[:top]
+    groups = _rank.group_matches(pool, describe=lambda ms: _describe(reading, ms))[:top]
     nearest = () if matches else _nearest(reading, tab)
     return IdentifyResult(reading, unit, matches, nearest, considered, tuple(notes), groups, wanted)
 

@@ -144,6 +144,7 @@ class MatchGroup:
     residual: Fraction
     score: float
     matches: tuple      # the Match objects, best first
+    explanation: str = ""
 
     @property
     def ids(self) -> tuple[str, ...]:
@@ -163,17 +164,19 @@ class MatchGroup:
             "residual_decimal": float(self.residual),
             "score": round(self.score, 6),
             "ids": list(self.ids),
+            "explanation": self.explanation,
             "sources": [{"id": m.id, "tradition": m.tradition, "confidence": m.confidence,
                          "source": m.source, "side": m.label} for m in self.matches],
         }
 
 
-def group_matches(matches) -> tuple[MatchGroup, ...]:
+def group_matches(matches, describe=None) -> tuple[MatchGroup, ...]:
     """Fold matches that say the same thing (the same number, factor, scale and class) into one.
 
     Three rows that all give 223 synodic months are one statement with three
     sources; its score is that of its best row.  Groups keep the order of
-    their best match.
+    their best match.  *describe* (the matches of a group -> text) gives
+    each group its explanation.
     """
     groups: dict[tuple, list] = {}
     for m in matches:
@@ -182,6 +185,7 @@ def group_matches(matches) -> tuple[MatchGroup, ...]:
     out = []
     for (what, how, scale, residual), ms in groups.items():
         ms.sort(key=lambda m: -m.score)
-        out.append(MatchGroup(what, how, scale, residual, ms[0].score, tuple(ms)))
+        out.append(MatchGroup(what, how, scale, residual, ms[0].score, tuple(ms),
+                              describe(ms) if describe else ms[0].explanation))
     out.sort(key=lambda g: -g.score)
     return tuple(out)

@@ -113,7 +113,7 @@ class Sheet:
                   header_style="bold" if color else None, title_style="bold" if color else None,
                   padding=(0, 1), collapse_padding=True)
         for k, col in enumerate(self._cols):
-            cells = [r[0][k][0] for r, _ in self._rows if r is not None]
+            cells = [r[k][0] for r, _ in self._rows if r is not None]
             if col.kind == "text":
                 width = max([_longest_word(col.name)] + [_longest_word(c) for c in cells])
                 t.add_column(col.name, justify=col.justify, min_width=width, overflow="fold")
