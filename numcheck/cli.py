@@ -86,6 +86,47 @@ def _console_class():
     return _PipeAwareConsole
 
 
+class _TrimmedLines:
+    """A pipe's stdout for rich: each line without the spaces that pad it to the width.
+
+    What goes through a pipe is pasted into editions and e-mails; trailing
+    blanks would only get in the way.
+    """
+
+    def __init__(self, out):
+        self._out = out
+        self._partial = ""
+        self.encoding = getattr(out, "encoding", None) or "utf-8"
+
+    def write(self, text: str) -> int:
+        lines = (self._partial + text).split("\n")
+        self._partial = lines.pop()
+        for line in lines:
+            self._out.write(line.rstrip() + "\n")
+        return len(text)
+
+    def flush(self) -> None:
+        if self._partial:
+            self._out.write(self._partial)
+            self._partial = ""
+        self._out.flush()
+
+    def isatty(self) -> bool:
+        return False
+
+    def fileno(self) -> int:
+        return self._out.fileno()
+
+
+def _stdout():
+    out = sys.stdout
+    try:
+        tty = out.isatty()
+    except (AttributeError, ValueError):
+        tty = False
+    return out if tty else _TrimmedLines(out)
+
+
 def main(argv: list[str] | None = None) -> int:
     parser = build_parser()
     args = parser.parse_args(argv)
@@ -95,7 +136,7 @@ def main(argv: list[str] | None = None) -> int:
     from rich.console import Console
 
     _Console = _console_class()
-    console = _Console(stderr=False, highlight=False, soft_wrap=False)
+    console = _Console(file=_stdout(), highlight=False, soft_wrap=False)
     err_console = Console(stderr=True, highlight=False)
     try:
         with warnings.catch_warnings(record=True) as caught:
@@ -104,6 +145,7 @@ def main(argv: list[str] | None = None) -> int:
         if args.json:
             sys.stdout.write(json.dumps(result, ensure_ascii=False, sort_keys=False) + "\n")
         else:
+            console.file.flush()
             for w in caught:
                 err_console.print(f"[yellow]warning:[/yellow] {w.message}", markup=True)
         return 0

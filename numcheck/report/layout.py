@@ -26,7 +26,7 @@ from rich.cells import cell_len
 from rich.table import Table
 from rich.text import Text
 
-__all__ = ["Sheet", "notes", "note", "busy", "PLAIN", "key_line"]
+__all__ = ["Sheet", "notes", "note", "busy", "PLAIN", "key_line", "singular_ones"]
 
 #: Through a pipe: a header rule of ASCII hyphens, nothing else.
 PLAIN = box.Box(
@@ -70,9 +70,9 @@ class Sheet:
     >>> s = Sheet(c, [("id", "key"), ("value", "number")])
     >>> s.row("saros_almagest", "6585;20")
     >>> s.print()
-    >>> print(c.file.getvalue().rstrip())
-     id               value
-     -------------------------
+    >>> for line in c.file.getvalue().splitlines(): print(line.rstrip())
+     id              value
+    -------------------------
      saros_almagest  6585;20
     """
 
@@ -185,3 +185,22 @@ def busy(console, what: str):
                   transient=True) as bar:
         bar.add_task(what, total=None)
         yield
+
+
+_ONE_PLURAL = None
+
+
+def singular_ones(text: str) -> str:
+    """"1 synodic months" reads "1 synodic month" (a count of one is singular).
+
+    >>> singular_ones("1 synodic months = 29;31,50,8,20 days")
+    '1 synodic month = 29;31,50,8,20 days'
+    >>> singular_ones("241 sidereal months + 10 2/3 degrees; 1 readings")
+    '241 sidereal months + 10 2/3 degrees; 1 reading'
+    """
+    import re
+
+    global _ONE_PLURAL
+    if _ONE_PLURAL is None:
+        _ONE_PLURAL = re.compile(r"(?<![\d/;,.:])\b1 ((?:[A-Za-zāēīōū]+ )?)([A-Za-z]+?)s\b")
+    return _ONE_PLURAL.sub(lambda m: f"1 {m.group(1)}{m.group(2)}", text)
