@@ -24,6 +24,9 @@ def add_arguments(parser) -> None:
     parser.add_argument("--report", metavar="OUT.html", help="write a self-contained HTML report "
                         "(for a folder: the folder to write the reports to)")
     parser.add_argument("--csv", metavar="OUT.csv", help="write the flags as CSV")
+    parser.add_argument("--full", action="store_true",
+                        help="show every line of the table and every restoration with its reasons "
+                             "(--json is always complete)")
 
 
 def run(args, console) -> dict:
@@ -52,7 +55,7 @@ def run(args, console) -> dict:
     if written:
         out["written"] = written
     if console is not None:
-        report.show(result, console)
+        report.show(result, console, full=args.full)
         for what, where in written.items():
             console.print(f"{what} written to {where}")
     return out

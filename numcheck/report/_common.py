@@ -16,6 +16,29 @@ def style_for(kind: str) -> str:
     return KIND_STYLE.get(kind, SLIP_STYLE)
 
 
+#: What a cell's colour (and, where there is no colour, its mark) means: the key of
+#: every screen and picture of an audit.  (name, rich style, mark, HTML colour, plot colour)
+KEY = (
+    ("slip", SLIP_STYLE, "!", "#fdd", "tab:red"),
+    ("carried forward", KIND_STYLE["carried-forward"], "^", "#ffc", "tab:olive"),
+    ("unexplained", KIND_STYLE["unexplained"], "?", "#fdf", "tab:purple"),
+    ("restored", RESTORED_STYLE, "+", "#dff", "tab:cyan"),
+)
+
+
+def key_of(kind: str | None) -> tuple | None:
+    """The KEY row of a flag kind ("restored" for a restored cell), or None.
+
+    >>> key_of("ten-slip")[0], key_of("carried-forward")[2], key_of(None)
+    ('slip', '^', None)
+    """
+    if kind is None:
+        return None
+    name = {"carried-forward": "carried forward", "unexplained": "unexplained",
+            "restored": "restored"}.get(kind, "slip")
+    return next(k for k in KEY if k[0] == name)
+
+
 def write_output(result, path, data, suffixes: tuple[str, ...], what: str) -> Path:
     """Check *path* (its suffix, not the input table) and write *data* atomically."""
     from ..errors import NumcheckError

@@ -112,15 +112,29 @@ class Sheet:
         t = Table(title=self.title, box=_box(self.console), show_edge=False, pad_edge=True,
                   header_style="bold" if color else None, title_style="bold" if color else None,
                   padding=(0, 1), collapse_padding=True)
+        data = [[r[k][0] for r, _ in self._rows if r is not None] for k in range(len(self._cols))]
+        wraps = [col.kind == "text" for col in self._cols]
+
+        def width(k: int) -> int:
+            words = [self._cols[k].name] + data[k]
+            if wraps[k]:
+                return max(_longest_word(c) for c in words)
+            return max([_longest_word(self._cols[k].name)]
+                       + [cell_len(ln) for c in data[k] for ln in (c.splitlines() or [""])])
+
+        # Too wide for the screen even so: let the widest unbreakable column
+        # that has spaces wrap between words rather than be cut.
+        while sum(width(k) + 2 for k in range(len(self._cols))) > self.console.width:
+            candidates = [k for k in range(len(self._cols))
+                          if not wraps[k] and any(" " in c for c in data[k])]
+            if not candidates:
+                break
+            wraps[max(candidates, key=width)] = True
         for k, col in enumerate(self._cols):
-            cells = [r[k][0] for r, _ in self._rows if r is not None]
-            if col.kind == "text":
-                width = max([_longest_word(col.name)] + [_longest_word(c) for c in cells])
-                t.add_column(col.name, justify=col.justify, min_width=width, overflow="fold")
+            if wraps[k]:
+                t.add_column(col.name, justify=col.justify, min_width=width(k), overflow="fold")
             else:
-                lines = [ln for c in cells for ln in c.splitlines()] or [""]
-                width = max([_longest_word(col.name)] + [cell_len(ln) for ln in lines])
-                t.add_column(col.name, justify=col.justify, no_wrap=True, min_width=width,
+                t.add_column(col.name, justify=col.justify, no_wrap=True, min_width=width(k),
                              overflow="ignore")
         pending_section = False
         for cells, style in self._rows:
