@@ -97,3 +97,25 @@ def summary_line(d: dict) -> str:
             f"{s['slips']} slip{'s' if s['slips'] != 1 else ''}, "
             f"{s['carried_forward']} line{'s' if s['carried_forward'] != 1 else ''} carrying one forward; "
             f"{s['damaged']} damaged, {s['restored']} restored.")
+
+
+def display_name(source: str) -> str:
+    """The name a reader knows a table by: its file name, or what it was given as.
+
+    >>> display_name("/usr/lib/python3/site-packages/numcheck/data/demo/ephemeris.tsv")
+    'ephemeris.tsv'
+    >>> display_name("<DataFrame>")
+    'a table given as a DataFrame'
+    """
+    from pathlib import PurePath
+
+    if source.startswith("<") and source.endswith(">"):
+        return f"a table given as a {source[1:-1]}"
+    return PurePath(source).name or source
+
+
+def numbering_columns(table) -> set[str]:
+    """The columns that only number the lines (1, 2, 3 ... down the table)."""
+    want = [str(i) for i in range(1, table.nrows + 1)]
+    return {name for name, col in table.columns.items()
+            if [c.text.strip() for c in col.cells] == want}

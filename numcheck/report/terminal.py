@@ -10,7 +10,8 @@ marked with a sign everywhere (the marks survive a pipe); a key says which.
 
 from __future__ import annotations
 
-from ._common import cell_marks, key_of, KEY, nothing_checked, rows_to_show, summary_line
+from ._common import (KEY, cell_marks, key_of, nothing_checked, numbering_columns, rows_to_show,
+                      summary_line)
 
 __all__ = ["show"]
 
@@ -75,8 +76,7 @@ def _cells(result, d, console, full: bool) -> None:
         return
     names = list(result.table.columns)
     # A column that numbers the lines (1, 2, 3 ...) already says the row.
-    numbered = any([c.text.strip() for c in result.table.columns[n].cells] ==
-                   [str(i) for i in range(1, nrows + 1)] for n in names)
+    numbered = bool(numbering_columns(result.table))
     sheet = Sheet(console, ([] if numbered else [("row", "number")]) + [(name, "key") for name in names],
                   title="the table")
     last = 0
