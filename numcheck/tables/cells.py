@@ -116,7 +116,13 @@ class Column:
         return write_value(value, notation=cell.notation,
                            places=self.usual_places if self.final_zeros else 0,
                            floating=cell.floating, sign_name=cell.sign_name,
-                           longitude=self.longitude)
+                           longitude=self.longitude, decimal_whole=self.decimal_whole)
+
+    @functools.cached_property
+    def decimal_whole(self) -> bool:
+        """Whether the column writes whole parts of 60 or more in decimal (a day count 365;15)."""
+        return any(c.whole_places == 1 and c.value is not None and not c.floating and abs(c.value) >= 60
+                   and c.notation == "sexagesimal" for c in self.cells)
 
 
 @dataclass
