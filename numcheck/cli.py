@@ -146,8 +146,17 @@ def main(argv: list[str] | None = None) -> int:
             sys.stdout.write(json.dumps(result, ensure_ascii=False, sort_keys=False) + "\n")
         else:
             console.file.flush()
+            # A warning the command already showed as a note of its result is not said twice.
+            shown = set()
+            if isinstance(result, dict):
+                for key in ("warnings", "notes"):
+                    shown.update(str(n) for n in result.get(key) or () if isinstance(n, str))
             for w in caught:
-                err_console.print(f"[yellow]warning:[/yellow] {w.message}", markup=True)
+                if str(w.message) in shown:
+                    continue
+                from rich.markup import escape
+
+                err_console.print(f"[yellow]warning:[/yellow] {escape(str(w.message))}", markup=True)
         return 0
     except NumcheckError as err:
         message = str(err)

@@ -221,7 +221,17 @@ def _candidate(targets: list[Target], row, support) -> Candidate:
 def _space_notes(reading, space, targets, possible, notes) -> None:
     count = space.count
     if count == 1:
-        notes.append("Nothing is lost or doubtful: the only reading is the text itself.")
+        from ..reading import Status
+
+        doubtful = [s.text for s in reading.slots if s.status is Status.DOUBTFUL]
+        if doubtful:
+            which = ", ".join(repr(t) for t in doubtful)
+            notes.append(f"The doubtful sign{'s' if len(doubtful) > 1 else ''} {which} "
+                         f"{'have' if len(doubtful) > 1 else 'has'} no known confusion in numcheck's "
+                         "table of look-alike signs, so the only reading is the one written. "
+                         "Give the alternatives you see with --expect.")
+        else:
+            notes.append("Nothing is lost or doubtful: the only reading is the text itself.")
         return
     unmet = [t for i, t in enumerate(targets) if i not in possible and t.kind != "catalogue"]
     for t in unmet:
