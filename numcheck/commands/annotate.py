@@ -84,12 +84,15 @@ def progress_bar(console, label: str):
 
 
 def _show_file(out: dict, console) -> None:
-    from rich.markup import escape
-    from rich.table import Table
+    from ..report.layout import Sheet, note
 
-    table = Table(title=f"numcheck annotate  {escape(out['input'])}", header_style="bold")
-    for col in ("line", "as read", "notation", "value", "status"):
-        table.add_column(col)
+    note(console, f"numcheck annotate  {out['input']}", "bold")
+    # "line" is the text's own line (the last <lb n>, or the row of a table);
+    # "xml" the line of the file, for finding the <num> in an editor.
+    has_text_lines = any(n.get("text_line") for n in out["nums"])
+    cols = ([("line", "key")] if has_text_lines else []) + [
+        ("xml", "number"), ("as read", "key"), ("notation", "key"), ("value", "text"), ("status", "key")]
+    table = Sheet(console, cols)
     style = {"contradiction": "red", "fixed": "yellow", "range-added": "cyan"}
     # A long file: list what needs the editor (damaged, contradicted), not every number.
     shown = out["nums"] if len(out["nums"]) <= _LIST_ALL else [
@@ -97,34 +100,53 @@ def _show_file(out: dict, console) -> None:
     for n in shown:
         value = _exact(n["value"]) if "value" in n else f"{_exact(n['atLeast'])} to {_exact(n['atMost'])}"
         status = n["status"]
-        table.add_row(str(n["line"] or ""), escape(n["text"]), n["notation"], value,
-                      f"[{style[status]}]{status}[/]" if status in style else status)
-    console.print(table)
+        cells = ([n.get("text_line") or ""] if has_text_lines else []) + [
+            str(n["line"] or ""), n["text"], n["notation"], value, (status, style.get(status))]
+        table.row(*cells)
+    table.print()
     if len(shown) < len(out["nums"]):
-        console.print(f"{len(out['nums']) - len(shown)} undamaged numbers that agree with their "
+        note(console, f"{len(out['nums']) - len(shown)} undamaged numbers that agree with their "
                       "letters are not listed (--json lists every one).")
     for n in out["nums"]:
+        where = _where(n)
         if n.get("message"):
-            console.print(f"[red]line {n['line']}:[/red] {escape(n['message'])}")
+            note(console, f"{where}: {n['message']}", "red")
         if n.get("alternatives"):
-            alts = ", ".join(f"{escape(a['text'])} = {a['value']} ({a['probability']:.0%})"
+            alts = ", ".join(f"{a['text']} = {a['value']} ({a['probability']:.0%})"
                              for a in n["alternatives"])
-            console.print(f"line {n['line']}: restorations (suggestions, not readings): {alts}")
-    for note in out["notes"]:
-        console.print(f"[yellow]note:[/yellow] {escape(note)}")
-    where = f"written to {escape(out['output'])}" if out["output"] else "nothing written (no -o given)"
-    console.print(f"{out['numbers']} numbers, {out['damaged']} damaged, {out['flagged']} contradicted "
+            note(console, f"{where}: restorations (suggestions, not readings): {alts}")
+    for msg in out["notes"]:
+        note(console, f"note: {msg}", "yellow")
+    where = f"written to {out['output']}" if out["output"] else "nothing written (no -o given)"
+    note(console, f"{out['numbers']} numbers, {out['damaged']} damaged, {out['flagged']} contradicted "
                   f"by their letters, {out['restored']} with restorations; {where}.")
 
 
+def _where(n: dict) -> str:
+    """Where a <num> is, for a reader: the text's line and the file's.
+
+    >>> _where({"line": 26, "text_line": "4"}), _where({"line": 26})
+    ('line 4 (xml line 26)', 'xml line 26')
+    """
+    if n.get("text_line"):
+        return f"line {n['text_line']} (xml line {n['line']})"
+    return f"xml line {n['line']}"
+
+
 def _exact(text: str) -> str:
-    """An exact value for the table, with its sexagesimal form when it is not whole."""
+    """An exact value for the table, with its sexagesimal form when it is not whole.
+
+    The whole part stays decimal, as editions write degrees and days (92;14,5, not 1,32;14,5).
+
+    >>> _exact("66409/720"), _exact("12")
+    ('66409/720 (92;14,5)', '12')
+    """
     from fractions import Fraction
 
-    from ..reading import sexagesimal_text
+    from ..identify.targets import number_text
 
     value = Fraction(text)
-    return text if value.denominator == 1 else f"{text} ({sexagesimal_text(value)})"
+    return text if value.denominator == 1 else f"{text} ({number_text(value)})"
 
 
 def show_batch(out: dict, console, kind: str) -> None:

@@ -61,11 +61,14 @@ class NumResult:
     message: str = ""
     alternatives: list[dict] = field(default_factory=list)
     warnings: list[str] = field(default_factory=list)   # how the notation read odd letters
+    text_line: str | None = None    # the text's own line: the last <lb n>, or the <row>/<l> n
 
     def to_dict(self) -> dict:
         # The text as numcheck read it (NFC): decomposed accents give the same JSON.
         out = {"line": self.line, "text": unicodedata.normalize("NFC", self.text), "notation": self.notation,
                "status": self.status, "damaged": self.damaged}
+        if self.text_line is not None:
+            out["text_line"] = self.text_line
         if self.value is not None:
             out["value"] = exact_text(self.value)
         if self.at_least is not None:
@@ -202,6 +205,22 @@ def _line(el) -> int | None:
     return el.sourceline
 
 
+def _text_line(el) -> str | None:
+    """The line of the text a <num> stands on, as the edition numbers it.
+
+    The ``n`` of the last ``<lb/>`` before it, else of the ``<l>`` or table
+    ``<row>`` that holds it; None when the edition numbers no lines.
+    """
+    try:
+        lbs = el.xpath("preceding::*[local-name()='lb'][@n][1]/@n")
+        if lbs:
+            return str(lbs[0])
+        holders = el.xpath("ancestor::*[local-name()='l' or local-name()='row'][@n][1]/@n")
+        return str(holders[0]) if holders else None
+    except Exception:       # an element lxml cannot walk (a comment, a stand-in): no line
+        return None
+
+
 def _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of, from_table=None):
     line = _line(el)
     pieces = num_pieces(el)
@@ -211,7 +230,7 @@ def _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of, f
                                    "should hold the numeral as written, or be removed)")
     reading, text = _read_num(el, name, line, pieces, plain, notation)
     res = NumResult(line, text, reading.notation, "kept", damaged=reading.damaged,
-                    warnings=list(reading.warnings))
+                    warnings=list(reading.warnings), text_line=_text_line(el))
     is_open = unresolved(reading)
     lo, hi = reading.min, reading.max
     exact = None if is_open else reading.value
