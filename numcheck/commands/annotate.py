@@ -68,7 +68,7 @@ def progress_bar(console, label: str):
     With ``console=None`` (``--json``) it yields ``None``: nothing is drawn.
     Also used by ``numcheck audit DIR``.
     """
-    if console is None:
+    if console is None or not console.is_terminal:
         yield None
         return
     from rich.progress import BarColumn, MofNCompleteColumn, Progress, TextColumn
@@ -151,31 +151,31 @@ def _exact(text: str) -> str:
 
 def show_batch(out: dict, console, kind: str) -> None:
     """The summary table of a batch run (also used by ``audit DIR``)."""
-    from rich.markup import escape
-    from rich.table import Table
+    from ..report.layout import Sheet, note
 
-    table = Table(title=f"numcheck {kind}  {escape(out['folder'])}", header_style="bold")
-    for col in ("file", "numbers", "damaged", "flagged", "restored", "note"):
-        table.add_column(col)
+    note(console, f"numcheck {kind}  {out['folder']}", "bold")
+    table = Sheet(console, [("file", "key"), ("numbers", "number"), ("damaged", "number"),
+                            ("flagged", "number"), ("restored", "number"), ("note", "text")])
     for f in out["files"]:
         if "error" in f:
-            table.add_row(escape(f["file"]), "", "", "", "", "[red]not read (see below)[/red]")
+            table.row(f["file"], "", "", "", "", ("not read (see below)", "red"))
         elif "skipped" in f:
-            table.add_row(escape(f["file"]), "", "", "", "", "skipped (see below)")
+            table.row(f["file"], "", "", "", "", "skipped (see below)")
         else:
-            table.add_row(escape(f["file"]), str(f.get("numbers", 0)), str(f.get("damaged", 0)),
-                          str(f.get("flagged", 0)), str(f.get("restored", 0)), "")
+            table.row(f["file"], str(f.get("numbers", 0)), str(f.get("damaged", 0)),
+                      str(f.get("flagged", 0)), str(f.get("restored", 0)), "")
     s = out["summary"]
-    table.add_section()
-    table.add_row(f"{s['files']} files ({s['failed']} failed, {s.get('skipped', 0)} skipped)", str(s["numbers"]), str(s["damaged"]),
-                  str(s["flagged"]), str(s["restored"]), "", style="bold")
-    console.print(table)
+    table.section()
+    files = f"{s['files']} file{'s' if s['files'] != 1 else ''}"
+    table.row(files, str(s["numbers"]), str(s["damaged"]), str(s["flagged"]), str(s["restored"]),
+              f"{s['failed']} failed, {s.get('skipped', 0)} skipped", style="bold")
+    table.print()
     for f in out["files"]:
         if "error" in f:
-            console.print(f"[red]{escape(f['file'])}:[/red] {escape(f['error'])}")
+            note(console, f"{f['file']}: {f['error']}", "red")
         elif "skipped" in f:
-            console.print(f"{escape(f['file'])}: skipped: {escape(f['skipped'])}")
+            note(console, f"{f['file']}: skipped: {f['skipped']}")
     if out.get("out"):
-        console.print(f"output: {escape(out['out'])}")
+        note(console, f"output: {out['out']}")
     if out.get("index"):
-        console.print(f"index of reports: {escape(out['index'])}")
+        note(console, f"index of reports: {out['index']}")

@@ -69,21 +69,19 @@ def _folder(args, path: Path, console) -> dict:
                             "which is not installed.") from err
     out = audit_folder(path, report_dir=args.report, notation=args.notation, relation=args.relation)
     if console is not None:
-        from rich.markup import escape
-        from rich.table import Table
-        t = Table(title=f"audit of the folder {escape(str(path))}", show_edge=False,
-                  header_style="bold")
-        for col in ("file", "numbers", "flagged", "restored", "schemes"):
-            t.add_column(col)
+        from ..report.layout import Sheet, note
+
+        note(console, f"audit of the folder {path}", "bold")
+        t = Sheet(console, [("file", "key"), ("numbers", "number"), ("flagged", "number"),
+                            ("restored", "number"), ("schemes", "text")])
         for f in out.get("files", []):
             if "error" in f or "skipped" in f:
-                t.add_row(escape(f["file"]), "", "", "",
-                          "[red]" + escape(f.get("error") or "skipped: " + str(f["skipped"])) + "[/]")
+                t.row(f["file"], "", "", "", (f.get("error") or "skipped: " + str(f["skipped"]), "red"))
                 continue
             kinds = ", ".join(f"{s['column']}: {s['kind']}" for s in f.get("schemes", []))
-            t.add_row(escape(f["file"]), str(f.get("numbers", 0)), str(f.get("flagged", 0)),
-                      str(f.get("restored", 0)), escape(kinds))
-        console.print(t)
+            t.row(f["file"], str(f.get("numbers", 0)), str(f.get("flagged", 0)),
+                  str(f.get("restored", 0)), kinds)
+        t.print()
         if out.get("index"):
-            console.print(f"reports: {escape(str(out['index']))}")
+            note(console, f"reports: {out['index']}")
     return out

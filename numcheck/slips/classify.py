@@ -52,7 +52,7 @@ def _needed_places(value: Fraction, most: int = 12) -> int | None:
 
 def write_value(value: Fraction, *, notation: str = "sexagesimal", places: int = 0,
                 floating: bool = False, sign_name: str | None = None, longitude: bool = False,
-                decimal_whole: bool = False) -> str:
+                decimal_whole: bool = False, separator: str = ",") -> str:
     """Write *value* as the scribe would: in the cell's notation, with its places.
 
     Sexagesimal values get at least *places* fractional places (final zeros
@@ -69,6 +69,12 @@ def write_value(value: Fraction, *, notation: str = "sexagesimal", places: int =
 
     >>> write_value(Fraction(7305, 4), decimal_whole=True)
     '1826;15'
+
+    A floating value takes the *separator* of the cell's places (``6 40`` where
+    the text writes places apart with spaces):
+
+    >>> write_value(Fraction(20, 3), floating=True, separator=" ")
+    '6 40'
     """
     value = Fraction(value)
     if longitude:
@@ -92,7 +98,7 @@ def write_value(value: Fraction, *, notation: str = "sexagesimal", places: int =
         m = mantissa(value)
         if m is None:
             return sexagesimal_text(value, fixed=False)
-        return ",".join(str(d) for d in digits_of(m, 0)[0])
+        return separator.join(str(d) for d in digits_of(m, 0)[0])
     text = sexagesimal_text(value)
     if decimal_whole and value >= 0:
         whole = value.numerator // value.denominator

@@ -116,7 +116,8 @@ class Column:
         return write_value(value, notation=cell.notation,
                            places=self.usual_places if self.final_zeros else 0,
                            floating=cell.floating, sign_name=cell.sign_name,
-                           longitude=self.longitude, decimal_whole=self.decimal_whole)
+                           longitude=self.longitude, decimal_whole=self.decimal_whole,
+                           separator=" " if " " in cell.text.strip() and "," not in cell.text else ",")
 
     @functools.cached_property
     def decimal_whole(self) -> bool:
