@@ -26,15 +26,30 @@ from .errors import NumcheckError
 __all__ = ["main", "build_parser"]
 
 
+def _command_names() -> list[str]:
+    """The commands, one per module of :mod:`numcheck.commands`, found without importing them."""
+    return sorted(info.name for info in pkgutil.iter_modules(_commands_pkg.__path__)
+                  if not info.name.startswith("_"))
+
+
+def _command_module(name: str):
+    mod = importlib.import_module(f"{_commands_pkg.__name__}.{name}")
+    return mod if hasattr(mod, "run") else None
+
+
 def _command_modules():
-    mods = []
-    for info in pkgutil.iter_modules(_commands_pkg.__path__):
-        if info.name.startswith("_"):
-            continue
-        mod = importlib.import_module(f"{_commands_pkg.__name__}.{info.name}")
-        if hasattr(mod, "run"):
-            mods.append(mod)
+    mods = [m for m in map(_command_module, _command_names()) if m is not None]
     return sorted(mods, key=lambda m: (getattr(m, "ORDER", 100), m.NAME))
+
+
+def _chosen_command(argv: list[str], names: list[str]) -> str | None:
+    """The command named on the command line, if it is one: the first word that is no option."""
+    for word in argv:
+        if word == "--":
+            return None
+        if not word.startswith("-"):
+            return word if word in names else None
+    return None
 
 
 class _Parser(argparse.ArgumentParser):
@@ -56,7 +71,14 @@ class _Parser(argparse.ArgumentParser):
         raise SystemExit(2)
 
 
-def build_parser() -> argparse.ArgumentParser:
+def build_parser(argv: list[str] | None = None) -> argparse.ArgumentParser:
+    """The parser of the command line.
+
+    Given *argv*, only the module of the command it names is imported (the
+    other commands are known by name alone), so that a command starts
+    without loading what the others need; ``numcheck --help`` loads them all
+    for their descriptions.
+    """
     parser = _Parser(
         prog="numcheck",
         description="Read, identify, restore and audit the numbers of ancient and medieval "
@@ -66,7 +88,14 @@ def build_parser() -> argparse.ArgumentParser:
 
     parser.add_argument("--version", action="version", version=f"numcheck {__version__}")
     sub = parser.add_subparsers(dest="command", metavar="COMMAND", parser_class=_Parser)
-    for mod in _command_modules():
+    names = _command_names()
+    chosen = _chosen_command(argv, names) if argv is not None else None
+    if chosen is None:
+        modules = _command_modules()
+    else:
+        mod = _command_module(chosen)
+        modules = [mod] if mod is not None else []
+    for mod in modules:
         p = sub.add_parser(mod.NAME, help=mod.HELP, description=mod.HELP)
         mod.add_arguments(p)
         p.add_argument("--json", action="store_true", help="print one JSON object and nothing else")
@@ -128,20 +157,22 @@ def _stdout():
 
 
 def main(argv: list[str] | None = None) -> int:
-    parser = build_parser()
+    argv = sys.argv[1:] if argv is None else list(argv)
+    parser = build_parser(argv)
     args = parser.parse_args(argv)
     if not getattr(args, "_module", None):
         parser.print_help()
         return 2
-    from rich.console import Console
+    console = err_console = None
+    if not args.json:   # rich is loaded only for the readable tables
+        from rich.console import Console
 
-    _Console = _console_class()
-    console = _Console(file=_stdout(), highlight=False, soft_wrap=False)
-    err_console = Console(stderr=True, highlight=False)
+        console = _console_class()(file=_stdout(), highlight=False, soft_wrap=False)
+        err_console = Console(stderr=True, highlight=False)
     try:
         with warnings.catch_warnings(record=True) as caught:
             warnings.simplefilter("always")
-            result = args._module.run(args, console if not args.json else None)
+            result = args._module.run(args, console)
         if args.json:
             sys.stdout.write(json.dumps(result, ensure_ascii=False, sort_keys=False) + "\n")
         else:

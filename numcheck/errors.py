@@ -8,7 +8,6 @@ subclass :class:`ValueError` so that generic handlers keep working.
 
 from __future__ import annotations
 
-import difflib
 from collections.abc import Iterable
 
 __all__ = [
@@ -105,6 +104,8 @@ class UnknownNameError(NumcheckError):
         self.kind = kind
         self.name = name
         self.choices = sorted(set(choices))
+        import difflib   # here, not at the top: importing it costs every start 10 ms
+
         close = difflib.get_close_matches(str(name), self.choices, n=3, cutoff=0.5)
         hint = f" Did you mean {' or '.join(repr(c) for c in close)}?" if close else ""
         listed = ", ".join(self.choices)

@@ -15,6 +15,7 @@ gives one gapless Reading per possible count.
 
 from __future__ import annotations
 
+import functools
 import itertools
 import math
 from collections.abc import Iterator
@@ -22,7 +23,7 @@ from dataclasses import dataclass, field, replace
 from enum import Enum
 from fractions import Fraction
 
-__all__ = ["Status", "Slot", "Reading", "exact_text", "sexagesimal_text", "parse_exact"]
+__all__ = ["Status", "Slot", "Reading", "exact_text", "sexagesimal_text", "parse_exact", "place_sum"]
 
 
 class Status(str, Enum):
@@ -39,6 +40,30 @@ class Status(str, Enum):
     @property
     def damaged(self) -> bool:
         return self in (Status.DOUBTFUL, Status.UNREAD, Status.LOST, Status.RESTORED)
+
+
+def place_sum(terms, base: int = 60) -> Fraction:
+    """The exact sum of value x base**place over (value, place) pairs.
+
+    Whole values are summed as one integer over the lowest place (one
+    Fraction at the end, not one per place), which is what makes reading a
+    corpus of numbers cheap; fractional values (a unit fraction in a slot)
+    are added as Fractions.
+
+    >>> place_sum([(Fraction(1), 1), (Fraction(49), 0), (Fraction(20), -1)])
+    Fraction(328, 3)
+    """
+    terms = list(terms)
+    low = min((p for _, p in terms), default=0)
+    shift = -low if low < 0 else 0
+    whole = 0
+    rest = Fraction(0)
+    for v, p in terms:
+        if v.denominator == 1:
+            whole += v.numerator * base ** (p + shift)
+        else:
+            rest += v * Fraction(base) ** p
+    return Fraction(whole, base ** shift) + rest
 
 
 @dataclass(frozen=True)
@@ -155,21 +180,27 @@ class Reading:
         return Fraction(self.base) ** place
 
     def _bounds_gapless(self) -> tuple[Fraction, Fraction]:
-        lo = sum((s.values[0] * self._weight(s.place) for s in self.counted_slots), Fraction(0))
-        hi = sum((s.values[-1] * self._weight(s.place) for s in self.counted_slots), Fraction(0))
+        slots = self.counted_slots
+        lo = place_sum(((s.values[0], s.place) for s in slots), self.base)
+        hi = place_sum(((s.values[-1], s.place) for s in slots), self.base)
         return (lo, hi) if self.sign > 0 else (-hi, -lo)
+
+    @functools.cached_property
+    def _bounds(self) -> tuple[Fraction, Fraction]:
+        bounds = [r._bounds_gapless() for r in self.expansions()]
+        return min(b[0] for b in bounds), max(b[1] for b in bounds)
 
     @property
     def min(self) -> Fraction:
         """The smallest value the traces allow."""
-        return min(r._bounds_gapless()[0] for r in self.expansions())
+        return self._bounds[0]
 
     @property
     def max(self) -> Fraction:
         """The largest value the traces allow."""
-        return max(r._bounds_gapless()[1] for r in self.expansions())
+        return self._bounds[1]
 
-    @property
+    @functools.cached_property
     def value(self) -> Fraction:
         """The value as the edition gives it.
 
@@ -178,8 +209,7 @@ class Reading:
         unknown extent at its fewest places.
         """
         first = next(self.expansions())
-        total = sum((s.preferred * self._weight(s.place) for s in first.counted_slots), Fraction(0))
-        return self.sign * total
+        return self.sign * place_sum(((s.preferred, s.place) for s in first.counted_slots), self.base)
 
     @property
     def count(self) -> int:

@@ -215,11 +215,11 @@ for _u in UNITS.values():
         _LOOKUP.setdefault(_key, _u.name)
 
 
-def canonical_unit(name: str) -> str:
-    """The canonical name of a unit written any accepted way.
+def find_unit(name: str) -> str | None:
+    """The canonical name of a unit written any accepted way, or None (no error to build).
 
-    >>> canonical_unit("beru"), canonical_unit("°"), canonical_unit("Days")
-    ('bēru', 'degrees', 'days')
+    >>> find_unit("beru"), find_unit("°"), find_unit("Days"), find_unit("ρκε")
+    ('bēru', 'degrees', 'days', None)
     """
     if isinstance(name, str):
         if name in _LOOKUP:
@@ -229,7 +229,19 @@ def canonical_unit(name: str) -> str:
             return _LOOKUP[key]
         if key.endswith("s") and key[:-1] in _LOOKUP:
             return _LOOKUP[key[:-1]]
-    raise UnknownNameError("unit", str(name), UNITS)
+    return None
+
+
+def canonical_unit(name: str) -> str:
+    """The canonical name of a unit written any accepted way.
+
+    >>> canonical_unit("beru"), canonical_unit("°"), canonical_unit("Days")
+    ('bēru', 'degrees', 'days')
+    """
+    found = find_unit(name)
+    if found is None:
+        raise UnknownNameError("unit", str(name), UNITS)
+    return found
 
 
 def unit(name: str) -> Unit:
@@ -387,21 +399,36 @@ for _i, _name in enumerate(ZODIAC):
         _ZODIAC_LOOKUP[_fold(_alias)] = _i
 
 
+def find_zodiac(name_or_symbol: str) -> int | None:
+    """The index 0..11 of a zodiacal sign, or None when *name_or_symbol* names none."""
+    text = str(name_or_symbol).strip().rstrip("\ufe0e\ufe0f")
+    if text in _ZODIAC_LOOKUP:
+        return _ZODIAC_LOOKUP[text]
+    return _ZODIAC_LOOKUP.get(_fold(text))
+
+
+def may_name_a_unit(text: str) -> bool:
+    """False when no word of *text* can be a unit, a mark or a zodiacal sign (a quick test).
+
+    A unit word needs at least one of the characters the unit and sign names
+    are spelled with (after folding case and accents); Greek, Arabic or
+    cuneiform numerals alone have none, so they are not searched for units.
+    """
+    return not _NAME_CHARS.isdisjoint(_fold(text))
+
+
 def zodiac_index(name_or_symbol: str) -> int:
     """The index 0..11 of a zodiacal sign given by name, abbreviation or symbol.
 
     >>> zodiac_index("Taurus"), zodiac_index("♓"), zodiac_index("capricornus")
     (1, 11, 9)
     """
-    text = str(name_or_symbol).strip()
     # A variation selector may follow a symbol (emoji presentation).
-    text = text.rstrip("\ufe0e\ufe0f")
-    if text in _ZODIAC_LOOKUP:
-        return _ZODIAC_LOOKUP[text]
-    key = _fold(text)
-    if key in _ZODIAC_LOOKUP:
-        return _ZODIAC_LOOKUP[key]
-    raise UnknownNameError("zodiacal sign", text, ZODIAC)
+    found = find_zodiac(name_or_symbol)
+    if found is None:
+        raise UnknownNameError("zodiacal sign", str(name_or_symbol).strip().rstrip("\ufe0e\ufe0f"),
+                               ZODIAC)
+    return found
 
 
 def sign_longitude(degrees, sign: str) -> Fraction:
@@ -416,3 +443,7 @@ def sign_longitude(degrees, sign: str) -> Fraction:
         raise NumcheckRangeError(f"A position within a sign must be under 30 degrees, got {degrees}.",
                                  value=degrees, legal="0 to 29;59,... degrees")
     return 30 * zodiac_index(sign) + degrees
+
+
+#: Every character a unit or sign name is spelled with, folded (see may_name_a_unit).
+_NAME_CHARS = frozenset(c for key in (*_LOOKUP, *_ZODIAC_LOOKUP) for c in _fold(key) if not c.isspace())

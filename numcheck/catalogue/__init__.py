@@ -94,6 +94,27 @@ def parse_value(text: str) -> Fraction:
 
 
 @lru_cache(maxsize=1)
+def _rows() -> tuple[dict[str, str], ...]:
+    """The rows of the catalogue files as text, in file order (lines starting with '#' are notes).
+
+    Read with the csv module, not pandas: identify and restore need the
+    catalogue at every start, and pandas alone takes longer to import than
+    a whole identification.
+    """
+    import csv
+
+    out = []
+    for name in _FILES:
+        with resources.files("numcheck.data").joinpath(name).open("r", encoding="utf-8", newline="") as fh:
+            reader = csv.DictReader(line for line in fh if not line.lstrip().startswith("#"))
+            missing = [c for c in COLUMNS if c not in (reader.fieldnames or ())]
+            if missing:
+                raise NumcheckError(f"The catalogue file {name} lacks the columns {missing}.")
+            out.extend({c: (row[c] or "") for c in COLUMNS} for row in reader)
+    return tuple(out)
+
+
+@lru_cache(maxsize=1)
 def frame():
     """The whole catalogue as a pandas DataFrame (strings as in the files; cached).
 
@@ -102,15 +123,7 @@ def frame():
     """
     import pandas as pd
 
-    parts = []
-    for name in _FILES:
-        with resources.files("numcheck.data").joinpath(name).open("r", encoding="utf-8") as fh:
-            parts.append(pd.read_csv(fh, comment="#", dtype=str, keep_default_na=False))
-    df = pd.concat(parts, ignore_index=True)
-    missing = [c for c in COLUMNS if c not in df.columns]
-    if missing:
-        raise NumcheckError(f"The catalogue files lack the columns {missing}.")
-    df = df[list(COLUMNS)]
+    df = pd.DataFrame(list(_rows()), columns=list(COLUMNS), dtype=str)
     df["exact"] = [parse_value(v) for v in df["value"]]
     return df
 
@@ -118,12 +131,13 @@ def frame():
 @lru_cache(maxsize=1)
 def _entries() -> tuple[Entry, ...]:
     out = []
-    for row in frame().itertuples(index=False):
+    for row in _rows():
         out.append(Entry(
-            id=row.id, body=row.body, kind=row.kind, tradition=row.tradition,
-            cycle=row.cycle or None, statement=row.statement, value_as_attested=row.value_as_attested,
-            value=row.exact, unit=row.unit, source=row.source, confidence=row.confidence,
-            sides=parse_statement(row.statement),
+            id=row["id"], body=row["body"], kind=row["kind"], tradition=row["tradition"],
+            cycle=row["cycle"] or None, statement=row["statement"],
+            value_as_attested=row["value_as_attested"], value=parse_value(row["value"]),
+            unit=row["unit"], source=row["source"], confidence=row["confidence"],
+            sides=parse_statement(row["statement"]),
         ))
     return tuple(out)
 

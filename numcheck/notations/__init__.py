@@ -31,9 +31,15 @@ NOTATIONS: dict[str, str] = {
 
 def notation_module(name: str) -> ModuleType:
     """The module for the notation called *name*."""
-    if not isinstance(name, str) or name not in NOTATIONS:
-        raise UnknownNameError("notation", name, NOTATIONS)
-    return importlib.import_module(NOTATIONS[name])
+    module = _LOADED.get(name) if isinstance(name, str) else None
+    if module is None:
+        if not isinstance(name, str) or name not in NOTATIONS:
+            raise UnknownNameError("notation", name, NOTATIONS)
+        module = _LOADED[name] = importlib.import_module(NOTATIONS[name])
+    return module
+
+
+_LOADED: dict[str, ModuleType] = {}
 
 
 def format_reading(reading) -> str:

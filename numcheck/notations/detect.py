@@ -38,6 +38,9 @@ _GREEK_SIGNS = frozenset("\U0001018A\u014d\u0375\u2220") | frozenset(
     chr(c) for c in (0x10175, 0x10176, 0x10177, 0x10178, 0x1018B))
 _ROMAN = frozenset("IVXLCDMJivxlcdmj")
 _DIGIT_GROUPS = re.compile(r"[0-9xXn\]?>⟩}\u0323]\s+[0-9xXn\[<⟨{]")
+_PLAIN_SEXAGESIMAL = re.compile(r"-?[0-9]+(?:,[0-9]+)*(?:;[0-9]+(?:,[0-9]+)*)?")
+_SEPARATED = "digits with sexagesimal separators (',' between places, ';' after the units)"
+_ONE_PLACE = "plain digits with no separator: one place, an integer"
 # What a transliterated cuneiform number is made of (digits, x, n, Leiden marks).
 _CUNEIFORM_CHARS = re.compile(r"[0-9xXn\[\]<>⟨⟩{}?\u0323\s]+")
 
@@ -66,6 +69,8 @@ def detect_notation(text: str) -> tuple[str, str]:
     >>> detect_notation("ΔΔΙΙ")[0]
     'attic'
     """
+    if text.isascii() and _PLAIN_SEXAGESIMAL.fullmatch(text):   # rule 6 at once, the usual case
+        return "sexagesimal", _SEPARATED if ("," in text or ";" in text) else _ONE_PLACE
     cuneiform = [c for c in text if 0x12400 <= ord(c) <= 0x1247F or c in "\U00012079\U0001230B"]
     if cuneiform:
         return "cuneiform", f"Unicode cuneiform numeric signs ({_name(cuneiform[0])})"
@@ -96,11 +101,11 @@ def detect_notation(text: str) -> tuple[str, str]:
         return "roman", "the Latin letters of Roman numerals (I V X L C D M)"
     if digits:
         if "," in text or ";" in text:
-            return "sexagesimal", "digits with sexagesimal separators (',' between places, ';' after the units)"
+            return "sexagesimal", _SEPARATED
         if _DIGIT_GROUPS.search(text) and _CUNEIFORM_CHARS.fullmatch(text):
             return "cuneiform", ("digit groups separated by spaces and no ';': a cuneiform number "
                                  "whose magnitude the text does not fix")
-        return "sexagesimal", "plain digits with no separator: one place, an integer"
+        return "sexagesimal", _ONE_PLACE
     return "sexagesimal", "no numeral letters or signs of another notation; read as sexagesimal"
 
 

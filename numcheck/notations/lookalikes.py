@@ -58,6 +58,8 @@ def check_lookalikes(text: str) -> str:
     letter; warns (:class:`~numcheck.errors.NumcheckWarning`) and replaces the
     CJK angle brackets by ⟨ ⟩ (one character for one, so positions hold).
     """
+    if text.isascii():      # neither a Cyrillic letter nor a CJK bracket
+        return text
     for i, ch in enumerate(text):
         if _script(ch) == "CYRILLIC":
             like = CYRILLIC_LOOKALIKES.get(ch, "")

@@ -21,10 +21,8 @@ import unicodedata
 from dataclasses import dataclass, replace
 from fractions import Fraction
 
-from lark.exceptions import UnexpectedInput
-
 from .. import units
-from ..errors import NumcheckRangeError, NumcheckSyntaxError, UnknownNameError
+from ..errors import NumcheckRangeError, NumcheckSyntaxError
 from .grammars import parser_for
 from ..reading import Reading, Slot, sexagesimal_text
 
@@ -55,6 +53,7 @@ _MARK_UNITS = {"°": "degrees", "′": "arcminutes", "″": "arcseconds"}
 _PRIME_RE = re.compile(r"(?<=[0-9\]?xX])([′″])")
 _FRACTION_RE = re.compile(r"^(\d+)/(\d+)$")
 _DECIMAL_RE = re.compile(r"^\d+$")
+_NUMERALS_ONLY = re.compile(r"[-0-9,;]*")
 
 
 @dataclass(frozen=True)
@@ -109,24 +108,24 @@ def _unit_name(words: list[_Word], i: int) -> tuple[str, int] | None:
         # Single letters (d, h, s) are left to the numerals: d is 500 in Roman.
         if len(name) < 2:
             continue
-        try:
-            return units.canonical_unit(name), n
-        except UnknownNameError:
-            continue
+        found = units.find_unit(name)
+        if found is not None:
+            return found, n
     return None
 
 
 def _zodiac(word: _Word) -> int | None:
     if word.kind != "word":
         return None
-    try:
-        return units.zodiac_index(word.text)
-    except UnknownNameError:
-        return None
+    return units.find_zodiac(word.text)
 
 
 def has_units(text: str) -> bool:
     """Whether *text* has a unit word, a degree mark or a zodiacal sign (a quantity)."""
+    if _NUMERALS_ONLY.fullmatch(text) or not units.may_name_a_unit(text):
+        return False      # no word can be a unit: the grammar is not needed to say so
+    from lark.exceptions import UnexpectedInput
+
     try:
         words = _words(text)
     except UnexpectedInput:
@@ -170,6 +169,8 @@ def parse(text: str, *, notation: str | None = None) -> Reading:
     if not text.strip():
         raise NumcheckSyntaxError("There is no quantity to read: the input is empty", text, 0,
                                   expected="a number and a unit, such as 6585 1/3 days")
+    from lark.exceptions import UnexpectedInput
+
     try:
         words = _words(text)
     except UnexpectedInput as err:

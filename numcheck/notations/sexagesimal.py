@@ -9,8 +9,7 @@ from __future__ import annotations
 from dataclasses import dataclass, replace
 from fractions import Fraction
 
-from lark import Token, Tree
-from lark.exceptions import UnexpectedCharacters, UnexpectedEOF, UnexpectedInput, UnexpectedToken
+import re
 
 from ..errors import NumcheckRangeError, NumcheckSyntaxError
 from .grammars import parser_for
@@ -54,7 +53,9 @@ class _Pos:
     start: int
 
 
-def _raise_from_lark(text: str, err: UnexpectedInput) -> None:
+def _raise_from_lark(text: str, err) -> None:
+    from lark.exceptions import UnexpectedCharacters, UnexpectedEOF, UnexpectedToken
+
     label = None
     if not isinstance(err, UnexpectedCharacters):
         label = err.match_examples(parser_for("sexagesimal").parse, _examples_by_label(),
@@ -100,6 +101,11 @@ def parse(text: str, *, floating: bool = False, notation: str = NAME) -> Reading
     if not text.strip():
         raise NumcheckSyntaxError("There is no number to read: the input is empty", text, 0,
                                   expected="a number such as 1,49,45;20")
+    plain = _plain(text, floating=floating, notation=notation)
+    if plain is not None:
+        return plain
+    from lark.exceptions import UnexpectedInput
+
     try:
         tree = parser_for("sexagesimal").parse(text)
     except UnexpectedInput as err:
@@ -107,15 +113,57 @@ def parse(text: str, *, floating: bool = False, notation: str = NAME) -> Reading
     return _build(text, tree, floating=floating, notation=notation)
 
 
-def parse_places(text: str) -> Tree:
+#: A number written with digits, ',' and ';' only: every place read, nothing to bracket.
+PLAIN = re.compile(r"-?[0-9]+(?:,[0-9]+)*(?:;[0-9]+(?:,[0-9]+)*)?")
+
+
+def _plain(text: str, *, floating: bool, notation: str) -> Reading | None:
+    """The Reading of an undamaged number, without the grammar; None when the grammar must decide.
+
+    It gives exactly the Reading the grammar gives (tests/test_fast_paths.py
+    proves it for random texts); anything out of the ordinary (marks, spaces,
+    too many places, a place over 59, a long decimal units place) goes to the
+    grammar, which reads it or says what is wrong.
+    """
+    if not PLAIN.fullmatch(text):
+        return None
+    sign = -1 if text[0] == "-" else 1
+    body = text[1:] if sign < 0 else text
+    offset = len(text) - len(body)
+    whole_text, has_semi, frac_text = body.partition(";")
+    whole = whole_text.split(",")
+    fraction = frac_text.split(",") if has_semi else []
+    if len(whole) + len(fraction) > limits.MAX_PLACES:
+        return None
+    lone_whole = len(whole) == 1 and (bool(has_semi) or not floating)
+    slots: list[Slot] = []
+    start = offset
+    exponent = len(whole) - 1          # as assign_places counts: units place 0, fractions -1, -2 ...
+    for k, place in enumerate(whole + fraction):
+        value = int(place)
+        capped = not (lone_whole and k == 0)
+        if (capped and value > 59) or (not capped and len(place) > 6):
+            return None
+        form = tuple(_Pos(ch, Status.READ, False, start + i) for i, ch in enumerate(place))
+        slots.append(Slot(values=(Fraction(value),), status=Status.READ, text=place,
+                          span=(start, start + len(place)), form=form, place=exponent))
+        start += len(place) + 1          # and the ',' or ';' after it
+        exponent -= 1
+    return Reading(text=text, notation=notation, slots=tuple(slots), base=60, sign=sign,
+                   floating=floating and not has_semi)
+
+
+def parse_places(text: str):
     """The raw parse tree (for other notations that reuse these places)."""
     return parser_for("sexagesimal").parse(text)
 
 
-def _build(text: str, tree: Tree, *, floating: bool, notation: str) -> Reading:
+def _build(text: str, tree, *, floating: bool, notation: str) -> Reading:
+    from lark import Token, Tree
+
     sign = 1
-    whole: list[list[Token]] = []
-    fraction: list[list[Token]] = []
+    whole: list[list] = []
+    fraction: list[list] = []
     has_semi = False
     for child in tree.children:
         if isinstance(child, Token):

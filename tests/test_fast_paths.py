@@ -1,0 +1,171 @@
+"""The fast paths give exactly what the slow ones give.
+
+- A plain sexagesimal number (digits, ',' and ';') is read without the
+  grammar (numcheck.notations.sexagesimal._plain): its Reading must be the
+  very Reading the grammar builds, slot for slot, mark for mark.
+- Compiled parsers are kept in a cache folder (numcheck.notations.grammars):
+  a parser loaded from the cache must parse every text as a freshly
+  compiled one, or fail at the same place.
+- The catalogue is read with the csv module; its pandas frame must hold the
+  same rows.
+- The command line imports only the command it runs.
+"""
+
+from __future__ import annotations
+
+import importlib.util
+import ast
+import subprocess
+import sys
+from dataclasses import replace
+from pathlib import Path
+
+import pytest
+from hypothesis import given
+from hypothesis import strategies as st
+
+from numcheck import NumcheckError, catalogue, read
+from numcheck.notations import grammars, sexagesimal
+from numcheck.notations.grammars import build_parser, grammar_dir
+
+_spec = importlib.util.spec_from_file_location(
+    "numcheck_fuzz_seeds", Path(__file__).resolve().parents[1] / "benchmarks" / "fuzz.py")
+_fuzz = importlib.util.module_from_spec(_spec)
+_spec.loader.exec_module(_fuzz)
+SEEDS = sorted({t for texts in _fuzz.SEEDS.values() for t in texts})
+
+
+def _slow(text: str, *, floating: bool = False, notation: str = "sexagesimal"):
+    tree = build_parser("sexagesimal").parse(text)
+    return sexagesimal._build(text, tree, floating=floating, notation=notation)
+
+
+# ---- plain sexagesimal numbers ---------------------------------------------
+
+_place = st.integers(0, 59).map(str) | st.integers(0, 9).map(lambda d: f"0{d}")
+_lone = st.integers(0, 10 ** 6 - 1).map(str)
+_plain_text = st.builds(
+    lambda sign, whole, frac: sign + ",".join(whole) + (";" + ",".join(frac) if frac else ""),
+    st.sampled_from(["", "-"]),
+    st.lists(_place, min_size=1, max_size=5) | st.lists(_lone, min_size=1, max_size=1),
+    st.lists(_place, max_size=5),
+)
+
+
+@given(_plain_text, st.booleans())
+def test_plain_numbers_read_as_the_grammar_reads_them(text, floating):
+    notation = "cuneiform" if floating else "sexagesimal"
+    fast = sexagesimal._plain(text, floating=floating, notation=notation)
+    try:
+        slow = _slow(text, floating=floating, notation=notation)
+    except NumcheckError:       # a floating number has no decimal units place (100 is not a place)
+        assert fast is None
+        return
+    assert fast is not None, text          # the fast path takes every plain number it can
+    assert fast == slow
+
+
+@given(st.text(alphabet="0123456789,;-", min_size=1, max_size=14), st.booleans())
+def test_the_fast_path_declines_what_it_cannot_read_alone(text, floating):
+    # Any string of these characters: the fast path either gives the grammar's
+    # Reading or leaves the text to the grammar (which reads it or explains).
+    fast = sexagesimal._plain(text, floating=floating, notation="sexagesimal")
+    if fast is None:
+        return
+    assert fast == _slow(text, floating=floating)       # (the grammar would not raise here)
+
+
+@pytest.mark.parametrize("text", ["1,49,45;20", "29;31,50,8,20", "6585", "365;14,48", "-0;30", "0"])
+def test_everyday_numbers_take_the_fast_path(text):
+    assert sexagesimal._plain(text, floating=False, notation="sexagesimal") is not None
+    assert replace(read(text), detected=None) == _slow(text)
+
+
+@pytest.mark.parametrize("text", ["1,60", "1;2,75", "1234567", "1, 49", "+1,0", "[1],2", "1,,2"])
+def test_unusual_numbers_go_to_the_grammar(text):
+    assert sexagesimal._plain(text, floating=False, notation="sexagesimal") is None
+
+
+# ---- the parser cache ------------------------------------------------------
+
+GRAMMARS = sorted(p.stem for p in grammar_dir().glob("*.lark") if p.stem != "common")
+
+
+def _outcome(parser, text):
+    try:
+        return ("tree", parser.parse(text))
+    except Exception as err:   # lark's own errors: compared by kind and place
+        return ("error", type(err).__name__, getattr(err, "pos_in_stream", None))
+
+
+@pytest.mark.parametrize("name", GRAMMARS)
+def test_a_cached_parser_reads_as_a_fresh_one(name, tmp_path, monkeypatch):
+    monkeypatch.setenv("NUMCHECK_CACHE", str(tmp_path))
+    grammars.parser_for.cache_clear()
+    try:
+        first = grammars.parser_for(name)           # compiled, then stored
+        stored = list(tmp_path.glob(f"{name}-*.lark-parser"))
+        assert len(stored) == 1
+        grammars.parser_for.cache_clear()
+        cached = grammars.parser_for(name)          # loaded from the file
+        assert cached is not first
+        fresh = build_parser(name)
+        for text in SEEDS:
+            assert _outcome(cached, text) == _outcome(fresh, text), (name, text)
+    finally:
+        grammars.parser_for.cache_clear()
+
+
+def test_a_damaged_cache_file_is_compiled_again(tmp_path, monkeypatch):
+    monkeypatch.setenv("NUMCHECK_CACHE", str(tmp_path))
+    grammars.parser_for.cache_clear()
+    try:
+        grammars.parser_for("roman")
+        (path,) = tmp_path.glob("roman-*.lark-parser")
+        path.write_bytes(b"not a parser")
+        grammars.parser_for.cache_clear()
+        parser = grammars.parser_for("roman")
+        assert _outcome(parser, "XII") == _outcome(build_parser("roman"), "XII")
+        assert path.read_bytes() != b"not a parser"          # replaced by a good one
+    finally:
+        grammars.parser_for.cache_clear()
+
+
+def test_an_empty_setting_turns_the_cache_off(monkeypatch):
+    monkeypatch.setenv("NUMCHECK_CACHE", "")
+    assert grammars.cache_dir() is None
+
+
+# ---- the catalogue without pandas ------------------------------------------
+
+def test_the_catalogue_rows_are_the_frame_rows():
+    frame = catalogue.frame()
+    rows = catalogue._rows()
+    assert len(frame) == len(rows) == len(catalogue.entries())
+    for record, row in zip(frame.to_dict("records"), rows):
+        assert {c: record[c] for c in catalogue.COLUMNS} == row
+
+
+# ---- the command line loads what it needs ----------------------------------
+
+_PROBE = """
+import sys
+from numcheck.cli import main
+main({argv!r})
+heavy = [m for m in ("numpy", "pandas", "matplotlib", "lxml", "rich", "lark") if m in sys.modules]
+others = [m for m in sys.modules if m.startswith("numcheck.commands.") and m != "numcheck.commands.{name}"]
+print(repr((heavy, others)), file=sys.stderr)
+"""
+
+
+@pytest.mark.parametrize("argv,allowed", [
+    (["read", "1,49,45;20", "--json"], []),
+    (["identify", "1,49,45;20", "--unit", "days", "--json"], ["numpy"]),
+])
+def test_a_command_imports_only_what_it_needs(argv, allowed):
+    code = _PROBE.format(argv=argv, name=argv[0])
+    proc = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, timeout=120)
+    assert proc.returncode == 0, proc.stderr
+    heavy, others = ast.literal_eval(proc.stderr.strip().splitlines()[-1])
+    assert [m for m in heavy if m not in allowed] == []
+    assert others == []
