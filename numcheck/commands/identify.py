@@ -25,7 +25,7 @@ def add_arguments(parser) -> None:
 
 
 def run(args, console) -> dict:
-    from ..report.layout import busy
+    from . import busy
 
     with busy(console, "comparing with the catalogue"):
         result = identify(args.text, notation=args.notation, unit=args.unit, top=args.top,

@@ -33,7 +33,7 @@ _NEEDS_SEARCH = (("--max-years", "max_years"), ("--cycles", "cycles"))
 
 
 def run(args, console) -> dict:
-    from ..report.layout import busy
+    from . import busy
 
     if args.search is None:
         given = [flag for flag, name in _NEEDS_SEARCH if getattr(args, name) is not None]

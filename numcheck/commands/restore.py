@@ -43,7 +43,7 @@ def add_arguments(parser) -> None:
 
 def run(args, console) -> dict:
     from ..errors import NumcheckRangeError
-    from ..report.layout import busy
+    from . import busy
 
     if args.no_catalogue and args.tradition:
         raise NumcheckRangeError("--tradition weighs the catalogue's values, and --no-catalogue "
