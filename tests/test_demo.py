@@ -209,7 +209,7 @@ def test_demo_summary_and_console_text(demo):
     _show(d, console)
     text = console.export_text()
     assert "the audit flagged 14 of them (14 with the same kind)" in text
-    assert "contradiction line" in text and "suggestions for the editor" in text
+    assert "contradiction: line" in text and "suggestions for the editor" in text
 
 
 def test_demo_refuses_a_file_as_output(tmp_path):

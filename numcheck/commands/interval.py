@@ -31,23 +31,16 @@ def run(args, console) -> dict:
 
 
 def _show(result, out: dict, console) -> None:
-    from rich.markup import escape
-    from rich.table import Table
+    from ..report.layout import Sheet, note
 
-    table = Table(title="numcheck interval", header_style="bold", show_edge=False)
-    table.add_column("")
-    table.add_column("as given")
-    table.add_column("calendar")
-    table.add_column("JDN", justify="right")
-    table.add_column("Julian")
-    table.add_column("Egyptian (Nabonassar)")
+    note(console, "numcheck interval", "bold")
+    table = Sheet(console, [("", "key"), ("as given", "text"), ("calendar", "key"), ("JDN", "number"),
+                            ("Julian", "text"), ("Egyptian (Nabonassar)", "text")])
     for label, date in (("from", out["dates"][0]), ("to", out["dates"][1])):
         eq = date["equivalents"]
-        table.add_row(label, escape(date["text"]), date["calendar"], str(date["jd"]),
-                      eq["julian"] + f"  ({eq['iso']})", eq.get("egyptian", "before the era"))
-    console.print(table)
+        table.row(label, date["text"], date["calendar"], str(date["jd"]),
+                  eq["julian"] + f" ({eq['iso']})", eq.get("egyptian", "before the era"))
+    table.print()
     years, rest = result.egyptian_years
-    console.print(f"[bold]{result.days:,}[/bold] days"
-                  f"  = {years} Egyptian years of 365 days + {rest} days"
-                  f"  = {float(result.julian_years):.4f} Julian years"
-                  "  (counted from civil day to civil day)")
+    note(console, f"{result.days:,} days = {years} Egyptian years of 365 days + {rest} days "
+                  f"= {float(result.julian_years):.4f} Julian years (counted from civil day to civil day)")

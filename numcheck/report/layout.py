@@ -26,7 +26,7 @@ from rich.cells import cell_len
 from rich.table import Table
 from rich.text import Text
 
-__all__ = ["Sheet", "notes", "note", "busy", "PLAIN", "key_line", "singular_ones"]
+__all__ = ["Sheet", "notes", "note", "indented", "busy", "PLAIN", "key_line", "singular_ones"]
 
 #: Through a pipe: a header rule of ASCII hyphens, nothing else.
 PLAIN = box.Box(
@@ -171,6 +171,14 @@ def note(console, text: str, style: str | None = None) -> None:
     """One paragraph of prose, wrapped between words (no markup read in *text*)."""
     color = console.is_terminal and not console.no_color
     console.print(Text(text, style=(style if color else None) or ""))
+
+
+def indented(console, text: str, indent: int = 2, style: str | None = None) -> None:
+    """A paragraph indented as a whole (every wrapped line too), wrapped between words."""
+    from rich.padding import Padding
+
+    color = console.is_terminal and not console.no_color
+    console.print(Padding(Text(text, style=(style if color else None) or ""), (0, 0, 0, indent)))
 
 
 def key_line(pairs) -> str:
