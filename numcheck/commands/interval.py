@@ -12,8 +12,8 @@ ORDER = 60
 def add_arguments(parser) -> None:
     examples = ", ".join(repr(e) for e in DATE_EXAMPLES)
     parser.add_argument("date1", metavar="DATE",
-                        help=f"the first date, e.g. {examples} (put -- before the dates when one "
-                             "begins with '-': numcheck interval -- -746-02-26 -323-11-12)")
+                        help=f"the first date, e.g. {examples} (astronomical years may begin with "
+                             "'-': numcheck interval -746-02-26 -323-11-12)")
     parser.add_argument("date2", metavar="DATE", help="the second date")
     parser.add_argument("--calendar", "-c", default="julian",
                         help="calendar of a date that names no era: "
