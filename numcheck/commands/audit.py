@@ -41,7 +41,10 @@ def run(args, console) -> dict:
         check_distinct(path, out)
     columns = [c.strip() for c in args.columns.split(",")] if args.columns else None
     # A TEI file gives its first <table> (numcheck.tables reads every source).
-    result = audit(path, notation=args.notation, relation=args.relation, columns=columns)
+    from . import busy
+
+    with busy(console, f"auditing {path.name}"):
+        result = audit(path, notation=args.notation, relation=args.relation, columns=columns)
     from .. import report
 
     written = {}
