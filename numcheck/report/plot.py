@@ -49,6 +49,31 @@ def sexagesimal_tick(x: float, places: int = 2) -> str:
     return sexagesimal_text(Fraction(round(x * scale), scale))
 
 
+def _label(ax, points) -> None:
+    """Label points so that no two labels overlap: each takes the first free place near its point.
+
+    Places are tried below, above and further out (in points, away from the
+    zero line first), inside the panel; a label that finds none is left out
+    (the mark stays, and the flag is in the report).
+    """
+    fig = ax.figure
+    fig.canvas.draw()                     # a renderer, to measure the text
+    renderer = fig.canvas.get_renderer()
+    taken = []
+    frame = ax.get_window_extent(renderer)
+    for x, y, text in points:
+        first, second = (_OFFSETS_UP, _OFFSETS_DOWN) if y > 0 else (_OFFSETS_DOWN, _OFFSETS_UP)
+        for dx, dy in first + second + ((6, 32 if y <= 0 else -38),):
+            ann = ax.annotate(text, (x, y), textcoords="offset points", xytext=(dx, dy), fontsize=7,
+                              color=_COLOUR["slip"])
+            box = ann.get_window_extent(renderer)
+            inside = frame.x0 <= box.x0 and box.x1 <= frame.x1 and frame.y0 <= box.y0 and box.y1 <= frame.y1
+            if inside and not any(box.overlaps(b) for b in taken):
+                taken.append(box)
+                break
+            ann.remove()
+
+
 def _place_tick(v: float, places: int) -> str:
     """A residual tick at ±60^k units of the last place, named by its place.
 
@@ -113,6 +138,7 @@ def plot_bytes(result, fmt: str = "png") -> bytes:
     restored: dict[str, dict] = {}
     for r in result.restorations:
         restored.setdefault(r.column, {}).setdefault(r.index, r)
+    pending = []    # labels are placed once the axes have their final size
     for k, name in enumerate(names):
         scheme = schemes.get(name)
         ax = fig.add_subplot(len(names), 2, 2 * k + 1)
@@ -180,12 +206,8 @@ def plot_bytes(result, fmt: str = "png") -> bytes:
         if slips:
             rax.plot([f.index + 1 for f in slips], [float(by_row.get(f.index + 1, 0)) for f in slips],
                      "x", color=_COLOUR["slip"], ms=8, mew=2)
-            for n, f in enumerate(slips[:MAX_LABELS]):
-                y = float(by_row.get(f.index + 1, 0))
-                offsets = _OFFSETS_UP if y > 0 else _OFFSETS_DOWN
-                rax.annotate(f"{f.index + 1}: {f.kind}", (f.index + 1, y),
-                             textcoords="offset points", xytext=offsets[n % len(offsets)],
-                             fontsize=7, color=_COLOUR["slip"])
+            pending.append((rax, [(f.index + 1, float(by_row.get(f.index + 1, 0)), f"{f.index + 1}: {f.kind}")
+                                  for f in slips[:MAX_LABELS]]))
         places = result.table.columns[name].usual_places
         top = max(1.0, max(abs(v) for v in vals))
         ks = range(0, int(math.log(top, 60)) + 2)
@@ -208,6 +230,8 @@ def plot_bytes(result, fmt: str = "png") -> bytes:
     source = getattr(result, "source", "") or ""
     fig.suptitle(f"numcheck audit of {display_name(source)}", fontsize=9, x=0.01, ha="left", y=0.995)
     fig.tight_layout(rect=(0, 0, 1, 1 - 0.3 / fig.get_figheight()))
+    for rax, points in pending:
+        _label(rax, points)
     buf = io.BytesIO()
     fig.savefig(buf, format=fmt)
     return buf.getvalue()
