@@ -195,10 +195,16 @@ def test_a_slow_search_shows_progress_only_on_a_terminal():
     with busy(quiet, "searching"):
         pass
     assert quiet.file.getvalue() == ""
-    shown = Console(file=io.StringIO(), force_terminal=True, width=80)
-    with busy(shown, "searching"):
+    quick = Console(file=io.StringIO(), force_terminal=True, width=80)
+    with busy(quick, "searching"):          # under a second: nothing shown
         pass
-    assert "searching" in shown.file.getvalue()
+    assert quick.file.getvalue() == ""
+    slow = Console(file=io.StringIO(), force_terminal=True, width=80)
+    import time
+
+    with busy(slow, "searching", after=0.0):
+        time.sleep(0.3)
+    assert "searching" in slow.file.getvalue()
 
 
 # ---- words -------------------------------------------------------------------------

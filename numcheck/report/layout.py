@@ -190,39 +190,47 @@ def key_line(pairs) -> str:
     return "key: " + ", ".join(f"{what} {colour}" for what, colour in pairs)
 
 
+#: A search shorter than this shows nothing; a longer one a spinner (seconds).
+BUSY_AFTER = 1.0
+
+
 @contextmanager
-def busy(console, what: str):
+def busy(console, what: str, after: float | None = None):
     """Show that a slow search is running (a spinner and the time spent), on a terminal only.
 
-    Through a pipe, with ``--json`` (``console`` None) or on a console that is
-    not a terminal nothing is drawn, so no stray characters reach the output.
-    The spinner is transient: it vanishes when the search ends.
+    The spinner appears only once the search has taken *after* seconds
+    (``BUSY_AFTER``), so quick answers print as before.  Through a pipe, with
+    ``--json`` (``console`` None) or on a console that is not a terminal
+    nothing is drawn, so no stray characters reach the output.  The spinner
+    is transient: it vanishes when the search ends.
     """
     if console is None or not console.is_terminal:
         yield
         return
+    import threading
+
     from rich.progress import Progress, SpinnerColumn, TextColumn, TimeElapsedColumn
 
-    with Progress(SpinnerColumn(), TextColumn(what), TimeElapsedColumn(), console=console,
-                  transient=True) as bar:
-        bar.add_task(what, total=None)
+    bar = Progress(SpinnerColumn(), TextColumn(what), TimeElapsedColumn(), console=console,
+                   transient=True)
+    bar.add_task(what, total=None)
+    lock = threading.Lock()
+    state = {"done": False, "shown": False}
+
+    def show():
+        with lock:
+            if not state["done"]:
+                bar.start()
+                state["shown"] = True
+
+    timer = threading.Timer(BUSY_AFTER if after is None else after, show)
+    timer.daemon = True
+    timer.start()
+    try:
         yield
-
-
-_ONE_PLURAL = None
-
-
-def singular_ones(text: str) -> str:
-    """"1 synodic months" reads "1 synodic month" (a count of one is singular).
-
-    >>> singular_ones("1 synodic months = 29;31,50,8,20 days")
-    '1 synodic month = 29;31,50,8,20 days'
-    >>> singular_ones("241 sidereal months + 10 2/3 degrees; 1 readings")
-    '241 sidereal months + 10 2/3 degrees; 1 reading'
-    """
-    import re
-
-    global _ONE_PLURAL
-    if _ONE_PLURAL is None:
-        _ONE_PLURAL = re.compile(r"(?<![\d/;,.:])\b1 ((?:[A-Za-zāēīōū]+ )?)([A-Za-z]+?)s\b")
-    return _ONE_PLURAL.sub(lambda m: f"1 {m.group(1)}{m.group(2)}", text)
+    finally:
+        timer.cancel()
+        with lock:
+            state["done"] = True
+            if state["shown"]:
+                bar.stop()
