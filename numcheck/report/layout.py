@@ -144,12 +144,28 @@ class Sheet:
             if pending_section:
                 t.add_section()
                 pending_section = False
-            t.add_row(*[Text(text, style=(s if color else None) or "") for text, s in cells],
-                      style=style if color else None)
+            t.add_row(*[_cell(text, (s if color else None) or "", wraps[k])
+                        for k, (text, s) in enumerate(cells)], style=style if color else None)
         return t
 
     def print(self) -> None:
         self.console.print(self.table())
+
+
+def _cell(text: str, style: str, wraps: bool):
+    """A cell: its lines; in a wrapping column a line that starts with spaces keeps
+    that indent on every line it wraps to."""
+    if not wraps or "\n" not in text:
+        return Text(text, style=style)
+    from rich.console import Group
+    from rich.padding import Padding
+
+    parts = []
+    for line in text.split("\n"):
+        indent = len(line) - len(line.lstrip(" "))
+        piece = Text(line.lstrip(" "), style=style)
+        parts.append(Padding(piece, (0, 0, 0, indent)) if indent else piece)
+    return Group(*parts)
 
 
 def notes(console, items, *, first: int = 1, marker: str = "{}.") -> None:
@@ -234,3 +250,22 @@ def busy(console, what: str, after: float | None = None):
             state["done"] = True
             if state["shown"]:
                 bar.stop()
+
+
+_ONE_PLURAL = None
+
+
+def singular_ones(text: str) -> str:
+    """"1 synodic months" reads "1 synodic month" (a count of one is singular).
+
+    >>> singular_ones("1 synodic months = 29;31,50,8,20 days")
+    '1 synodic month = 29;31,50,8,20 days'
+    >>> singular_ones("241 sidereal months + 10 2/3 degrees; 1 readings")
+    '241 sidereal months + 10 2/3 degrees; 1 reading'
+    """
+    import re
+
+    global _ONE_PLURAL
+    if _ONE_PLURAL is None:
+        _ONE_PLURAL = re.compile(r"(?<![\d/;,.:])\b1 ((?:[A-Za-zāēīōū]+ )?)([A-Za-z]+?)s\b")
+    return _ONE_PLURAL.sub(lambda m: f"1 {m.group(1)}{m.group(2)}", text)
