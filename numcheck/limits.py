@@ -51,3 +51,6 @@ IDENTIFY_MAX_CANDIDATES = 100_000
 IDENTIFY_DAMAGE_READINGS = 60
 #: Most candidates a restoration lists (``top``).
 RESTORE_MAX_TOP = 100_000
+#: A table cell whose text allows more readings than this (a Greek 'ο' as 0 or 70, times
+#: other open places) is not decided by its column; the audit restores it from the scheme.
+SETTLE_MAX_READINGS = 16

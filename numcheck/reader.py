@@ -26,6 +26,15 @@ from .reading import Reading
 __all__ = ["read", "detect_notation"]
 
 
+def _greek_zero_circle(text: str) -> bool:
+    # 'κθ ° λ': a degree sign alone among Greek groups is the zero, not a unit (the
+    # Greek package is imported only then, so plain numbers do not load its grammar).
+    if "°" not in text:
+        return False
+    from .notations.greek.spelling import degree_sign_as_zero
+    return degree_sign_as_zero(text)
+
+
 def read(text: str, notation: str | None = None, unit: str | None = None) -> Reading:
     """Read *text* into an exact :class:`~numcheck.reading.Reading`.
 
@@ -44,7 +53,7 @@ def read(text: str, notation: str | None = None, unit: str | None = None) -> Rea
     normal = check_lookalikes(unicodedata.normalize("NFC", text).strip())
     if notation is not None and (not isinstance(notation, str) or notation not in NOTATIONS):
         notation_module(notation)  # raises UnknownNameError with suggestions
-    if notation == quantity.NAME or quantity.has_units(normal):
+    if notation == quantity.NAME or (quantity.has_units(normal) and not _greek_zero_circle(normal)):
         reading = quantity.parse(normal, notation=None if notation == quantity.NAME else notation)
     else:
         detected = None

@@ -134,6 +134,17 @@ class Reading:
         return any(s.status.damaged for s in self.slots)
 
     @property
+    def ambiguous(self) -> bool:
+        """A slot read clearly still has several values (the text alone cannot decide).
+
+        A Greek ``ο`` in the whole-number place is 0 or 70; a lone capital
+        letter of a papyrus is units or thousands: the letters are read, their
+        meaning is open, and the evidence (catalogue, table) decides.
+        """
+        return any(len(s.values) > 1 and not s.status.damaged and s.gap is None
+                   for s in self.counted_slots)
+
+    @property
     def counted_slots(self) -> tuple[Slot, ...]:
         return tuple(s for s in self.slots if s.counted)
 
@@ -262,6 +273,7 @@ class Reading:
             "decimal": decimal_text(self.value),
             "sexagesimal": sexagesimal_text(self.value, fixed=not self.floating),
             "damaged": self.damaged,
+            "ambiguous": self.ambiguous,
             "min": exact_text(self.min),
             "max": exact_text(self.max),
             "floating": self.floating,

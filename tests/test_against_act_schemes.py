@@ -178,3 +178,31 @@ def test_step_function_with_more_zones():
     L[33] = longitude_text(lam[33] + F(1, 60))
     (f,) = [f for f in audit(pd.DataFrame({"L": L})).flags if f["kind"] != "carried-forward"]
     assert (f["row"], f["expected"]) == (34, longitude_text(lam[33]))
+
+
+def test_published_schemes_are_named():
+    # ids of numcheck/data/schemes.csv; parameters as in the module docstring
+    a, b = lunar_b(40)
+    r = audit(pd.DataFrame({"A": [sxt(x) for x in a], "B": [longitude_text(x) for x in b]}))
+    (s,) = [s for s in r.schemes if s.column == "A"]
+    assert s.published[0]["id"] == "ACT-LUN-B-A" and s.published[0]["agreement"] == "parameters"
+    assert s.published[0]["label"] == "System B, column A"
+    r = audit(pd.DataFrame({"L": [longitude_text(x) for x in jupiter_a(40)]}))
+    assert r.schemes[0].published[0]["id"] == "ACT-JUP-A"
+    r = audit(pd.DataFrame({"arc": [sxt(x) for x in jupiter_b(40)]}))
+    (s,) = r.schemes
+    assert s.published[0]["id"] == "ACT-JUP-B"
+    rel = s.params()["period_relation"]
+    assert rel["id"] == "act_jupiter" and rel["how"] == "ratio"     # 391 phenomena / 36 revolutions
+
+
+def test_system_a_sun_step_function_is_named():
+    # CDLI wiki "Lunar ephemerides" (checked): 30 deg a month from Virgo 13 to Pisces 27,
+    # 28;7,30 from Pisces 27 to Virgo 13; 12;22,8 = 2783/225 months a revolution
+    from tablegen import step_zones
+    lam = step_zones(40, bounds=[F(163), F(357)], rates=[F(30), sx("28;7,30")], start=F(10))
+    r = audit(pd.DataFrame({"B": [longitude_text(x) for x in lam]}))
+    (s,) = r.schemes
+    assert s.kind == "step" and r.flags == []
+    assert s.params()["lines_per_revolution"]["value"] == "2783/225"
+    assert s.published[0]["id"] == "ACT-LUN-A-B" and s.published[0]["agreement"] == "parameters"

@@ -160,7 +160,7 @@ print(repr((heavy, others)), file=sys.stderr)
 
 @pytest.mark.parametrize("argv,allowed", [
     (["read", "1,49,45;20", "--json"], []),
-    (["identify", "1,49,45;20", "--unit", "days", "--json"], ["numpy"]),
+    (["identify", "1,49,45;20", "--unit", "days", "--json"], []),
 ])
 def test_a_command_imports_only_what_it_needs(argv, allowed):
     code = _PROBE.format(argv=argv, name=argv[0])
@@ -169,3 +169,34 @@ def test_a_command_imports_only_what_it_needs(argv, allowed):
     heavy, others = ast.literal_eval(proc.stderr.strip().splitlines()[-1])
     assert [m for m in heavy if m not in allowed] == []
     assert others == []
+
+
+# ---- identify's lookup without numpy ---------------------------------------
+
+def _grid_candidates(tab, lo, hi):
+    """The plain way: every item x every simple factor, one sorted list (as numcheck once did)."""
+    from numcheck.identify.targets import SMALL_COUNT
+
+    n_f = len(tab.simple)
+    grid = []
+    for i, item in enumerate(tab.items):
+        small = item.value.denominator == 1 and item.value < SMALL_COUNT and not item.multiples
+        for j, f in enumerate(tab.simple):
+            if (small and f.denominator != 1) or (item.alone and f != 1):
+                continue
+            x = tab.values[i] * float(f)
+            if lo <= x <= hi:
+                grid.append((x, i * n_f + j))
+    grid.sort()
+    return ([k // n_f for _, k in grid], [tab.simple_num[k % n_f] for _, k in grid],
+            [tab.simple_den[k % n_f] for _, k in grid])
+
+
+@pytest.mark.parametrize("unit", [None, "days", "degrees", "months"])
+@given(st.floats(-1e4, 1e6, allow_nan=False), st.floats(0, 0.05))
+def test_identify_lookup_finds_what_the_full_grid_finds(unit, centre, width):
+    from numcheck.identify import targets
+
+    tab = targets.table(unit)
+    lo, hi = centre - abs(centre) * width - 1e-9, centre + abs(centre) * width + 1e-9
+    assert targets.candidates(tab, lo, hi, multiples=False) == _grid_candidates(tab, lo, hi)

@@ -241,3 +241,14 @@ def test_identify_candidates(monkeypatch):
     assert time.perf_counter() - start < 5
     assert any("numcheck.limits.IDENTIFY_MAX_CANDIDATES" in n for n in result.notes)
     assert all("×" not in m.what or m.factor.denominator <= limits.IDENTIFY_MAX_SIMPLE for m in result.matches)
+
+
+def test_settle_max_readings(monkeypatch):
+    # A column decides a Greek 'ο' (0 or 70) only while the cell allows few readings.
+    import pandas as pd
+    from numcheck.tables import read_table
+
+    df = pd.DataFrame({"min": ["νε", "ο", "ε", "ι"]})
+    assert read_table(df, notation="greek").columns["min"].values[1] == 0
+    monkeypatch.setattr(limits, "SETTLE_MAX_READINGS", 1)
+    assert read_table(df, notation="greek").columns["min"].values[1] is None

@@ -27,14 +27,17 @@ from ..tables import read_table
 __all__ = ["audit", "AuditResult", "SUGGESTION"]
 
 
-def audit(table, *, notation: str | None = None, relation: str | None = None,
-          columns=None) -> AuditResult:
+def audit(table, *, notation: str | None = None, relation=None, columns=None,
+          scheme=None) -> AuditResult:
     """Audit *table* (a path to a TSV/CSV/aligned text table, or a DataFrame).
 
     *notation* is the default notation of every cell (detected otherwise);
     *relation* a relation between columns to check (``"C = A + B"``,
-    ``"B = prev(B) + A mod 360"``); *columns* the header names to audit (the
-    others are left out, e.g. a column of month names).
+    ``"B = prev(B) + A mod 360"``, ``"F = zigzag(d=0;36, M=15;16,5, m=11;5,5)"``),
+    or a list of them; *scheme* a known scheme of a column, or a list
+    (``"F: zigzag d=0;36 M=15;16,5 m=11;5,5"``, ``"F: ACT-LUN-B-F"``);
+    *columns* the header names to audit (the others are left out, e.g. a
+    column of month names).
     """
     from .diagnose import Finding
 
@@ -47,7 +50,7 @@ def audit(table, *, notation: str | None = None, relation: str | None = None,
     try:
         tab = read_table(table, notation=notation, columns=columns)
         frame = make_frame(tab)
-        schemes = detect_schemes(frame, relation=relation)
+        schemes = detect_schemes(frame, relation=relation, scheme=scheme)
         findings, pending, true = diagnose(tab, frame, schemes)
         restorations, misfits = restore_cells(tab, frame, pending)
     finally:

@@ -11,6 +11,8 @@ columns it is computed from.
 from __future__ import annotations
 
 from .columns import fit_cross
+from .published import _line_share, match_column
+from .stated import parse_scheme, scheme_call
 from .relation import RelationScheme, parse_relation
 from .schemes import (ConstantScheme, Frame, LinearScheme, Scheme, lcm_all, support_chained,
                       support_row)
@@ -49,39 +51,72 @@ def make_frame(table: Table) -> Frame:
 
 
 def _own(frame: Frame, name: str) -> Scheme | None:
-    best = None
+    """The column's own scheme: most pairs of lines explained, then most lines in one chain.
+
+    A scheme is taken when it explains most pairs of lines, or (a short
+    fragment with slips on both sides of a turn) one chain of it explains
+    most lines.
+    """
+    best, best_key = None, None
     for cls in _OWN:
         scheme = cls.fit(name, frame)
         if scheme is None:
             continue
         if scheme.chained:
             scheme.support = support_chained(scheme, frame.written[name], frame.written)
+            lines = _line_share(scheme, frame.written[name])
         else:
             scheme.support = support_row(scheme, frame.written[name], frame.written)
-        if scheme.support > 0.5 and (best is None or scheme.support > best.support):
-            best = scheme
+            lines = 0.0
+        key = (scheme.support, lines)
+        if (scheme.support > 0.5 or lines > 0.5) and (best is None or key > best_key):
+            best, best_key = scheme, key
     return best
 
 
-def detect_schemes(frame: Frame, relation: str | None = None) -> list[Scheme]:
-    """The scheme of each column that has one, in the order they must be checked."""
-    chosen: dict[str, Scheme] = {}
-    stated = None
-    if relation:
-        target, tree, modulus = parse_relation(relation, frame.names)
-        stated = RelationScheme(target, frame, relation, tree, modulus)
-        if stated.chained:
-            stated.support = support_chained(stated, frame.written[target], frame.written)
+def _listed(texts) -> list[str]:
+    if not texts:
+        return []
+    return [texts] if isinstance(texts, str) else [t for t in texts if t]
+
+
+def _stated(frame: Frame, relation, scheme) -> dict[str, Scheme]:
+    """The relations and schemes the user states, by column (they replace detection there)."""
+    out: dict[str, Scheme] = {}
+    texts = [("relation", t) for t in _listed(relation)] + [("scheme", t) for t in _listed(scheme)]
+    for how, text in texts:
+        call = scheme_call(text) if how == "relation" else text
+        if call is not None:
+            s = parse_scheme(call, frame)
+            s.stated = text
+            match_column(frame, s.column, s, keep=True)
         else:
-            stated.support = support_row(stated, frame.written[target], frame.written)
-        chosen[target] = stated
+            target, tree, modulus = parse_relation(text, frame.names)
+            s = RelationScheme(target, frame, text, tree, modulus)
+        if s.chained:
+            s.support = support_chained(s, frame.written[s.column], frame.written)
+        else:
+            s.support = support_row(s, frame.written[s.column], frame.written)
+        out[s.column] = s
+    return out
+
+
+def detect_schemes(frame: Frame, relation=None, scheme=None) -> list[Scheme]:
+    """The scheme of each column that has one, in the order they must be checked.
+
+    *relation* and *scheme* are what the user states (a text or a list of
+    texts each): those columns are checked against them and nothing else.
+    """
+    chosen: dict[str, Scheme] = _stated(frame, relation, scheme)
+    stated = set(chosen.values())
     for name in frame.names:
         if name in chosen:
             continue
-        own = _own(frame, name)
+        # the column's own fit, or the published scheme that explains it better
+        own = match_column(frame, name, _own(frame, name))
         if own is not None:
             chosen[name] = own
-    taken = {n for n, s in chosen.items() if s is stated or s.support == 1.0}
+    taken = {n for n, s in chosen.items() if s in stated or s.support == 1.0}
     for scheme in fit_cross(frame, taken):
         if scheme.chained:
             scheme.support = support_chained(scheme, frame.written[scheme.column], frame.written)
@@ -91,7 +126,7 @@ def detect_schemes(frame: Frame, relation: str | None = None) -> list[Scheme]:
         if current is None or scheme.support > current.support:
             chosen[scheme.column] = scheme
     _step_differences(frame, chosen)
-    return _ordered(chosen)
+    return _ordered(chosen, stated)
 
 
 def _step_differences(frame: Frame, chosen: dict[str, Scheme]) -> None:
@@ -109,8 +144,8 @@ def _step_differences(frame: Frame, chosen: dict[str, Scheme]) -> None:
                     chosen[name] = s
 
 
-def _ordered(chosen: dict[str, Scheme]) -> list[Scheme]:
-    """Columns after the columns they depend on; a cycle drops the weaker scheme."""
+def _ordered(chosen: dict[str, Scheme], stated=frozenset()) -> list[Scheme]:
+    """Columns after the columns they depend on; a cycle drops the weaker scheme (never a stated one)."""
     out: list[Scheme] = []
     done: set[str] = set()
     pending = dict(chosen)
@@ -118,7 +153,7 @@ def _ordered(chosen: dict[str, Scheme]) -> list[Scheme]:
         ready = [s for s in pending.values()
                  if all(d in done or d not in pending for d in s.inputs)]
         if not ready:
-            weakest = min(pending.values(), key=lambda s: s.support)
+            weakest = min(pending.values(), key=lambda s: (s in stated, s.support))
             del pending[weakest.column]
             continue
         for s in sorted(ready, key=lambda s: list(chosen).index(s.column)):

@@ -22,7 +22,9 @@ from dataclasses import dataclass, field
 
 from ..placevalue import mantissa
 from ..slips import Diagnosis, classify
+from .blame import blame_input, writable
 from .columns import ReciprocalScheme
+from .gaps import advance, find_gaps, retreat
 from .schemes import Frame, Scheme
 from ..tables import Table
 
@@ -58,7 +60,7 @@ class Pending:
 def diagnose(table: Table, frame: Frame, schemes: list[Scheme]):
     """Return (findings, damaged cells with their expected values, true values per column)."""
     true = {name: list(vals) for name, vals in frame.written.items()}
-    findings: list[Finding] = []
+    findings: list[Finding] = _missing_lines(frame, schemes)
     pending: list[Pending] = []
     index: dict[tuple[str, int], Finding] = {}
     for scheme in schemes:
@@ -76,6 +78,20 @@ def diagnose(table: Table, frame: Frame, schemes: list[Scheme]):
     _cross_notes(findings, schemes, frame, index)
     findings.sort(key=lambda f: (f.index, frame.names.index(f.column)))
     return findings, pending, true
+
+
+def _missing_lines(frame, schemes) -> list[Finding]:
+    """A gap in the argument column: lines missing (the chains step over it)."""
+    argument, frame.gaps = find_gaps(frame, schemes)
+    out = []
+    for i, k in sorted(frame.gaps.items()):
+        v = frame.written[argument][i]
+        out.append(Finding(i, argument, "lines-missing",
+                           f"{k - 1} line{'s' if k > 2 else ''} missing before this row: column "
+                           f"{argument} steps {k} times its difference here (or the scribe "
+                           "skipped them); the lines after it are checked across the gap",
+                           v, v))
+    return out
 
 
 def _cross_notes(findings, schemes, frame, index) -> None:
@@ -131,6 +147,7 @@ def _context(table, frame, column, i, written, expected, prev, special) -> Diagn
 
 def _anchor_states(scheme: Scheme, w, src):
     """The true chain: states per line, from the first consistent pair of lines."""
+    gaps = scheme.frame.gaps
     n = len(w)
     states = [None] * n
     i = 0
@@ -145,14 +162,14 @@ def _anchor_states(scheme: Scheme, w, src):
         states[i] = st
         k = i
         while k > 0 and states[k - 1] is None:
-            prev = scheme.back(states[k], k, src)
+            prev = retreat(scheme, states[k], k, src, gaps)
             if prev is None:
                 break
             states[k - 1] = prev
             k -= 1
         j = i + 1
         while j < n:
-            nxt = scheme.step(states[j - 1], j, src)
+            nxt = advance(scheme, states[j - 1], j, src, gaps)
             if nxt is None:
                 break
             states[j] = nxt
@@ -166,6 +183,7 @@ def _anchor_states(scheme: Scheme, w, src):
 def _chain(table, frame, scheme: Scheme, true):
     """Check a chained column line by line against the true and the scribe's chains."""
     column = scheme.column
+    gaps = frame.gaps
     w = frame.written[column]
     n = len(w)
     T = _anchor_states(scheme, w, true)
@@ -186,8 +204,8 @@ def _chain(table, frame, scheme: Scheme, true):
         if S is None:
             pred, pred_w = t, None
         else:
-            pred = scheme.step(S, i, true) or t
-            pred_w = scheme.step(S, i, frame.written) if two else None
+            pred = advance(scheme, S, i, true, gaps) or t
+            pred_w = advance(scheme, S, i, frame.written, gaps) if two else None
         if wi is None:
             p = Pending(i, column, pred[0], scheme)
             if scheme.kind == "zigzag":
@@ -210,7 +228,7 @@ def _chain(table, frame, scheme: Scheme, true):
             findings.append(f)
             S = scheme.resume(pred if wi == pred[0] else pred_w, wi)
             continue
-        special = scheme.special(S, i, true, wi) if S is not None else None
+        special = scheme.special(S, i, true, wi) if S is not None and i not in gaps else None
         diag = _context(table, frame, column, i, wi, pred[0], None if S is None else S[0], special)
         f = Finding(i, column, diag.kind, diag.reason, wi, pred[0])
         findings.append(f)
@@ -259,8 +277,10 @@ def _computed_on(scheme, pred, wi, i, w, T, true, written) -> bool:
     for j in range(i + 1, len(w)):
         if T[j] is None:
             return False
-        state = scheme.step(state, j, true) if state is not None else None
-        state_w = scheme.step(state_w, j, written) if written is not None and state_w is not None else None
+        gaps = scheme.frame.gaps
+        state = advance(scheme, state, j, true, gaps) if state is not None else None
+        state_w = (advance(scheme, state_w, j, written, gaps)
+                   if written is not None and state_w is not None else None)
         if w[j] is None:
             continue
         follows = (state is not None and w[j] == state[0]) or (state_w is not None and w[j] == state_w[0])
@@ -296,9 +316,61 @@ def _rows(table, frame, scheme: Scheme, true):
                 findings.append(moved)
                 col_true[i] = wi
                 continue
+        elif scheme.inputs and _needs_blame(table, frame, scheme, i, wi, e, w):
+            # the result's own slip would not explain it: look for the input's
+            moved = _input_blame(table, frame, scheme, i, wi, e, w, true)
+            if moved is not None:
+                findings.append(moved)
+                if moved.column != column:
+                    col_true[i] = wi
+                continue
+        if not writable(frame.fraction(e), [frame.fraction(v) for v in w]):
+            findings.append(Finding(
+                i, column, "unexplained",
+                f"the {scheme.kind} gives {_shown(frame.fraction(e))} here, which no scribe could "
+                "write: an input of this line is likely wrong, but no single slip in one input "
+                "explains the value written", wi, None))
+            continue
         diag = _context(table, frame, column, i, wi, e, None, None)
         findings.append(Finding(i, column, diag.kind, diag.reason, wi, e))
     return findings, pending, col_true
+
+
+def _shown(value) -> str:
+    from ..reading import exact_text
+    return ("a negative value" if value < 0 else
+            f"{exact_text(value)}, a fraction that does not terminate in base 60,")
+
+
+def _needs_blame(table, frame, scheme, i, wi, e, w) -> bool:
+    if not writable(frame.fraction(e), [frame.fraction(v) for v in w]):
+        return True
+    return _context(table, frame, scheme.column, i, wi, e, None, None).kind == "unexplained"
+
+
+def _input_blame(table, frame, scheme, i, wi, e, w, true):
+    """The input cell whose slip explains a broken line (the result as written is right).
+
+    When several inputs could each explain it, the result cell is flagged
+    with the choices and no expected value of its own.
+    """
+    got = blame_input(frame, scheme, i, wi, true)
+    if not got:
+        return None
+    if len(got) > 1:
+        fr = frame.fraction
+        choices = " or ".join(
+            f"{name} = {table.columns[name].write(i, fr(meant))} ({how})" for name, meant, how in got)
+        return Finding(i, scheme.column, "unexplained",
+                       f"the {scheme.kind} holds as written if {choices}: one input slipped, "
+                       "and the line alone cannot tell which", wi, None)
+    name, meant, _how = got[0]
+    written = frame.written[name][i]
+    diag = _context(table, frame, name, i, written, meant, None, None)
+    f = Finding(i, name, diag.kind, diag.reason, written, meant)
+    f.notes.append(f"with this value the {scheme.kind} of column {scheme.column} holds as "
+                   f"written: the slip is in column {name}, not in column {scheme.column}")
+    return f
 
 
 def _reciprocal_blame(table, frame, scheme, i, igi):

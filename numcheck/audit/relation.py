@@ -1,8 +1,12 @@
 """A relation between columns stated by the user: ``C = A + B``, ``B = prev(B) + A mod 360``.
 
 The right-hand side may use column names, numbers in sexagesimal notation
-(``12;5,10``), ``+ - * /``, parentheses and ``prev(X)`` (column X on the line
-before).  A final ``mod N`` reduces the result modulo N.  A relation that uses
+(``12;5,10``), ``+ - * /``, parentheses, ``prev(X)`` and ``next(X)`` (column X
+on the line before or after), and ``round(E, P)`` or ``trunc(E, P)`` (E
+rounded to the nearest, halves up, or cut down, to P sexagesimal places, as
+a scribe who kept P places did).  A final ``mod N`` reduces the result
+modulo N.  A known scheme is stated as ``F = zigzag(d=0;36, M=15;16,5,
+m=11;5,5)`` or ``L = step(85:30, 240:36)`` (numcheck.audit.stated).  A relation that uses
 ``prev`` of its own column is checked as a chain (a slip carried into later
 lines is found once); any other is checked row by row.  The expression is
 parsed here, never evaluated by Python.
@@ -19,7 +23,7 @@ from .schemes import Scheme
 __all__ = ["RelationScheme", "parse_relation"]
 
 _TOKEN = re.compile(r"\s*(?:(?P<num>\d+(?:,\d+)*(?:;\d+(?:,\d+)*)?)|(?P<name>[A-Za-z_][\w']*)"
-                    r"|(?P<op>[-+*/()=]))")
+                    r"|(?P<op>[-+*/()=,]))")
 
 
 def _number(text: str) -> Fraction:
@@ -46,7 +50,7 @@ def parse_relation(text: str, columns: list[str]):
         t = _TOKEN.match(body, pos)
         if not t or t.end() == pos:
             raise NumcheckSyntaxError(f"Cannot read the relation {text!r}", text, pos,
-                                      expected="column names, numbers, + - * / ( ) and prev(X)")
+                                      expected="column names, numbers, + - * / ( ), prev(X), next(X), round(E, P)")
         kind = t.lastgroup
         tokens.append((kind, t.group(kind), t.start(kind)))
         pos = t.end()
@@ -105,15 +109,30 @@ class _Parser:
             return node
         if kind == "num":
             return ("num", _number(text))
-        if kind == "name" and text == "prev" and self._peek() == "(":
+        if kind == "name" and text in ("prev", "next") and self._peek() == "(":
             self._take()
             _, name, npos = self._take()
             if name not in self.columns:
                 raise UnknownNameError("column", name, self.columns)
             if self._take()[1] != ")":
-                raise NumcheckSyntaxError("prev(...) takes one column name", self.text, npos,
+                raise NumcheckSyntaxError(f"{text}(...) takes one column name", self.text, npos,
                                           expected="')'")
-            return ("prev", name)
+            return (text, name)
+        if kind == "name" and text in ("round", "trunc") and self._peek() == "(":
+            self._take()
+            inner = self.expr()
+            sep = self._take()
+            if sep[1] != ",":
+                raise NumcheckSyntaxError(f"{text}(...) takes an expression, ', ' and a number "
+                                          "of places", self.text, sep[2], expected="','")
+            pk, places, ppos = self._take()
+            if pk != "num" or not places.isdigit() or int(places) > 12:
+                raise NumcheckSyntaxError(f"{text}(...) needs a number of places from 0 to 12",
+                                          self.text, ppos, expected="e.g. 2")
+            if self._take()[1] != ")":
+                raise NumcheckSyntaxError(f"A '(' of {text} is not closed", self.text, pos,
+                                          expected="')'")
+            return (text, inner, int(places))
         if kind == "name":
             if text not in self.columns:
                 raise UnknownNameError("column", text, self.columns)
@@ -140,7 +159,8 @@ class RelationScheme(Scheme):
         self.text, self.tree = text, tree
         self.rel_modulus = modulus
         self.chained = column in set(_names(tree, "prev"))
-        self.inputs = tuple(sorted((set(_names(tree, "col")) | set(_names(tree, "prev"))) - {column}))
+        self.inputs = tuple(sorted((set(_names(tree, "col")) | set(_names(tree, "prev"))
+                                    | set(_names(tree, "next"))) - {column}))
 
     def _eval(self, node, i, src, prev_self):
         op = node[0]
@@ -160,6 +180,16 @@ class RelationScheme(Scheme):
             if v is None:
                 raise _Missing
             return Fraction(v, s) if isinstance(v, int) else v / s
+        if op == "next":
+            col = src[node[1]]
+            v = col[i + 1] if i + 1 < len(col) else None
+            if v is None:
+                raise _Missing
+            return Fraction(v, s) if isinstance(v, int) else v / s
+        if op in ("round", "trunc"):
+            x = self._eval(node[1], i, src, prev_self) * 60 ** node[2]
+            n = (x + Fraction(1, 2)) // 1 if op == "round" else x // 1
+            return Fraction(n, 60 ** node[2])
         if op == "neg":
             return -self._eval(node[1], i, src, prev_self)
         a = self._eval(node[1], i, src, prev_self)

@@ -56,8 +56,18 @@ def restore_cells(table: Table, frame: Frame, pending: list[Pending], top: int =
             due = (due - offset) % 360
         expected_text = table.columns[p.column].write(p.index, frame.fraction(p.expected))
         reason = f"the {p.scheme.kind} scheme of column {p.column} ({expected_text} here)"
-        cands = _candidates(cell, due, reason, top)
-        fitting = [c for c in cands if c[1] == due or (cell.floating and _same_digits(c[1], due))]
+        free = cell.floating or p.scheme.kind == "reciprocal"
+        if free and cell.reading is not None:
+            # a floating value (an igi) is due at every magnitude the traces allow
+            cands = []
+            for at in _magnitudes(due, cell.reading):
+                cands.extend(c for c in _candidates(cell, at, reason, top)
+                             if c[0] not in {x[0] for x in cands})
+            if not cands:
+                cands = _candidates(cell, due, reason, top)
+        else:
+            cands = _candidates(cell, due, reason, top)
+        fitting = [c for c in cands if c[1] == due or (free and _same_digits(c[1], due))]
         if not fitting:
             misfits.append((p, expected_text))
             continue
@@ -67,6 +77,18 @@ def restore_cells(table: Table, frame: Frame, pending: list[Pending], top: int =
             out.append(Restoration(p.index, p.column, shown, value + offset, prob,
                                    list(reasons) + extra, expected_text))
     return out, misfits
+
+
+def _magnitudes(due: Fraction, reading) -> list[Fraction]:
+    """*due* times every power of 60 that falls inside the values the traces allow."""
+    out = []
+    if due is None or due == 0 or reading.min is None or reading.max is None:
+        return out
+    for k in range(-12, 13):
+        v = due * Fraction(60) ** k
+        if reading.min <= v <= reading.max:
+            out.append(v)
+    return out
 
 
 def _same_digits(a: Fraction, b: Fraction) -> bool:

@@ -39,8 +39,8 @@ class AuditResult:
 
     @property
     def slips(self) -> list[dict]:
-        """The flags that are slips of their own (not lines that inherit one)."""
-        return [f for f in self.flags if f["kind"] != "carried-forward"]
+        """The flags that are slips of their own (not lines that inherit one, nor missing lines)."""
+        return [f for f in self.flags if f["kind"] not in ("carried-forward", "lines-missing")]
 
     def _flag(self, f: Finding) -> dict:
         cell = self.table.columns[f.column].cells[f.index]
@@ -50,11 +50,13 @@ class AuditResult:
             "row": f.index + 1,
             "column": f.column,
             "written": cell.text,
-            "expected": self.table.columns[f.column].write(f.index, expected),
+            # no expected value is offered where the scheme gives none a scribe could write
+            "expected": self.table.columns[f.column].write(f.index, expected)
+            if expected is not None else "",
             "kind": f.kind,
             "reason": f.reason,
             "written_value": exact_text(fr(f.written)) if f.written is not None else "",
-            "expected_value": exact_text(expected),
+            "expected_value": exact_text(expected) if expected is not None else "",
         }
         if f.carried_into:
             # rows of this column, and of other columns computed from it
@@ -85,7 +87,8 @@ class AuditResult:
         return {
             "cells": self.numbers,
             "checked": sum(len(c.cells) for n, c in self.table.columns.items() if n in checked),
-            "slips": sum(1 for f in flags if f["kind"] != "carried-forward"),
+            "slips": sum(1 for f in flags if f["kind"] not in ("carried-forward", "lines-missing")),
+            "lines_missing": sum(1 for f in flags if f["kind"] == "lines-missing"),
             "carried_forward": sum(1 for f in flags if f["kind"] == "carried-forward"),
             "damaged": sum(1 for c in self.table.columns.values() for x in c.cells if x.damaged),
             "restored": len({(r.index, r.column) for r in self.restorations}),
@@ -101,5 +104,6 @@ class AuditResult:
             "flags": self.flags,
             "restorations": [r.to_dict() for r in self.restorations],
             "unchecked": list(self.unchecked),
+            "table_notes": list(getattr(self.table, "notes", [])),
             "note": SUGGESTION,
         }

@@ -21,7 +21,7 @@ from __future__ import annotations
 
 import math
 from collections import Counter
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 from fractions import Fraction
 
 from ..reading import exact_text, sexagesimal_text
@@ -40,6 +40,8 @@ class Frame:
     modulus: dict[str, int | None]      # 360 * scale for a longitude column
     floating: dict[str, bool]
     nrows: int
+    #: rows a gap of missing lines precedes, and how many steps the argument takes there
+    gaps: dict = field(default_factory=dict)
 
     def fraction(self, v) -> Fraction | None:
         return None if v is None else Fraction(v) / self.scale
@@ -89,6 +91,10 @@ class Scheme:
         self.frame = frame
         self.modulus = frame.modulus.get(column)
         self.support = 0.0
+        #: the catalogue schemes this one agrees with (numcheck.audit.published)
+        self.published: list[dict] = []
+        #: the text (or catalogue id) of a scheme the user stated for the column
+        self.stated: str | None = None
 
     # -- output --------------------------------------------------------
     def params(self) -> dict:
@@ -98,8 +104,15 @@ class Scheme:
         return self.kind
 
     def to_dict(self) -> dict:
+        text = self.describe()
+        if self.published:
+            first = self.published[0]
+            text += (f"; agrees with the published {first['label']} ({first['id']}, by its "
+                     f"{first['agreement']})")
         return {"column": self.column, "kind": self.kind, "params": self.params(),
-                "support": round(self.support, 4), "description": self.describe()}
+                "support": round(self.support, 4), "description": text,
+                "published": [dict(p) for p in self.published],
+                **({"stated": self.stated} if self.stated else {})}
 
     def _norm(self, v):
         return v % self.modulus if self.modulus else v
@@ -234,14 +247,45 @@ class LinearScheme(Scheme):
 
     @classmethod
     def fit(cls, column, frame):
-        pairs = diffs(frame.written[column], frame.modulus.get(column))
+        modulus = frame.modulus.get(column) or _circle(frame, column)
+        pairs = diffs(frame.written[column], modulus)
         ds = [d for _, d in pairs]
         if len(ds) < 2:
             return None
         d, n = mode(ds)
         if not d or n * 2 <= len(ds):
             return None
-        return cls(column, frame, d, _segments(pairs, d))
+        scheme = cls(column, frame, d, _segments(pairs, d))
+        scheme.modulus = modulus
+        return scheme
+
+
+#: Circles a mean-motion column may be reduced modulo (degrees, signs; a
+#: day's 6,0 UŠ is 360 too): a wrap by one of them is no slip.
+CIRCLES = (360, 12)
+
+
+def _circle(frame, column) -> int | None:
+    """The circle a constant-difference column is reduced modulo, if it wraps.
+
+    The column is linear modulo K when its commonest difference d and the
+    differences d − K (or d + K going down) explain its lines and every value
+    lies in [0, K).
+    """
+    values = [v for v in frame.written[column] if v is not None]
+    raw = [d for _, d in diffs(frame.written[column])]
+    if len(raw) < 2 or not values or min(values) < 0:
+        return None
+    d, n = mode(raw)
+    best, best_wraps = None, 0
+    for k in CIRCLES:
+        full = k * frame.scale
+        if max(values) >= full or not d or abs(d) >= full:
+            continue
+        wraps = sum(1 for x in raw if x != d and x % full == d % full)
+        if wraps > best_wraps:
+            best, best_wraps = full, wraps
+    return best
 
 
 #: Lines in a row that must take a new difference before it counts as a change.
@@ -255,7 +299,8 @@ def _segments(pairs, d) -> list:
     k = 0
     while k < len(pairs):
         i, x = pairs[k]
-        if x != current:
+        # a difference that reverses the current one is a turn (a zigzag), not a change
+        if x != current and x != -current:
             run = 1
             while (k + run < len(pairs) and pairs[k + run][1] == x
                    and pairs[k + run][0] == pairs[k + run - 1][0] + 1):

@@ -16,9 +16,15 @@ def add_arguments(parser) -> None:
                         help="a table (TSV, CSV with quoted cells, or whitespace-aligned text) with a "
                              "header row; a folder audits every table in it")
     parser.add_argument("--notation", "-n", help="the notation of the cells (detected when left out)")
-    parser.add_argument("--relation", "-r",
-                        help="a relation between columns to check, e.g. 'C = A + B' or "
-                             "'B = prev(B) + A mod 360'")
+    parser.add_argument("--relation", "-r", action="append",
+                        help="a relation between columns to check, e.g. 'C = A + B', "
+                             "'B = prev(B) + A mod 360', 'C = round(A * B, 2)' or "
+                             "'F = zigzag(d=0;36, M=15;16,5, m=11;5,5)' (may be given more than once)")
+    parser.add_argument("--scheme", "-s", action="append",
+                        help="a known scheme of a column, e.g. 'F: zigzag d=0;36 M=15;16,5 m=11;5,5', "
+                             "'L: step 85:30 240:36' or a published scheme by id, 'F: ACT-LUN-B-F' "
+                             "(numcheck catalogue lists the periods; the schemes are in "
+                             "numcheck/data/schemes.csv; may be given more than once)")
     parser.add_argument("--columns", "-c", help="the columns to audit, comma-separated (others are left out)")
     parser.add_argument("--plot", metavar="OUT.png|svg", help="write a plot of each checked column")
     parser.add_argument("--report", metavar="OUT.html", help="write a self-contained HTML report "
@@ -44,7 +50,8 @@ def run(args, console) -> dict:
     from . import busy
 
     with busy(console, f"auditing {path.name}"):
-        result = audit(path, notation=args.notation, relation=args.relation, columns=columns)
+        result = audit(path, notation=args.notation, relation=args.relation, columns=columns,
+                       scheme=args.scheme)
     from .. import report
 
     written = {}
@@ -59,6 +66,9 @@ def run(args, console) -> dict:
         out["written"] = written
     if console is not None:
         report.show(result, console, full=args.full)
+        from ..report.layout import note
+        for table_note in out.get("table_notes", []):
+            note(console, f"note: {table_note}", "yellow")
         for what, where in written.items():
             console.print(f"{what} written to {where}")
     return out
@@ -70,7 +80,8 @@ def _folder(args, path: Path, console) -> dict:
     except ImportError as err:
         raise NumcheckError(f"{str(path)!r} is a folder: auditing folders needs numcheck.batch, "
                             "which is not installed.") from err
-    out = audit_folder(path, report_dir=args.report, notation=args.notation, relation=args.relation)
+    out = audit_folder(path, report_dir=args.report, notation=args.notation, relation=args.relation,
+                       scheme=args.scheme)
     if console is not None:
         from ..report.layout import Sheet, note
 

@@ -51,13 +51,14 @@ def _show(reading, result: dict, console) -> None:
     head.add_row("decimal", result["decimal"])
     if "unit" in result:
         head.add_row("unit", result["unit"])
-    if reading.damaged:
+    if reading.damaged or reading.ambiguous:
         head.add_row("range", f"{sexagesimal_text(reading.min, fixed=not reading.floating)} to "
                               f"{sexagesimal_text(reading.max, fixed=not reading.floating)}"
                               f"  ({exact_text(reading.min)} to {exact_text(reading.max)})")
         head.add_row("readings", f"{reading.count:,} reading{'s' if reading.count != 1 else ''} "
                                  f"remain{'' if reading.count != 1 else 's'} possible")
-        head.add_row("value shown", "the edition's restorations, lost digits at their lowest")
+        head.add_row("value shown", "the edition's restorations, lost digits at their lowest"
+                     if reading.damaged else "the lowest of the readings the text allows (see the notes)")
     from ..report.layout import Sheet
 
     places = Sheet(console, [("written", "key"), ("place", "key"), ("status", "key"), ("may be", "text")],

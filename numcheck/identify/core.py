@@ -277,8 +277,10 @@ def identify(reading_or_text, *, notation: str | None = None, unit: str | None =
                               (f"The value {exact_text(value)} is not positive; the catalogue holds lengths "
                                "and counts only.",))
     notes: list[str] = []
-    use_range = reading.damaged and reading.count <= limits.IDENTIFY_DAMAGE_READINGS
-    if reading.damaged and not use_range:
+    # An ambiguous reading (a Greek 'ο' that may be 0 or 70) is compared like a damaged one.
+    open_reading = reading.damaged or reading.ambiguous
+    use_range = open_reading and reading.count <= limits.IDENTIFY_DAMAGE_READINGS
+    if open_reading and not use_range:
         notes.append(f"The damage allows {reading.count:,} readings (over numcheck.limits."
                      f"IDENTIFY_DAMAGE_READINGS = {limits.IDENTIFY_DAMAGE_READINGS}): only the edition's value "
                      f"({sexagesimal_text(value, fixed=not reading.floating)}) was compared. "
@@ -377,17 +379,15 @@ def _match(reading, tab, how, item, idx, factor, scale, target, residual, v, sco
 
 def _nearest(reading: Reading, tab: _t.Table, count: int = 5) -> tuple[dict, ...]:
     """The catalogue numbers (factor 1) closest to the reading, and how far they are."""
-    import numpy as np
-
     value = float(reading.value)
-    if not len(tab.values):
+    if not tab.values:
         return ()
     best = []
     for scale in _scales(reading):
         v = value * 60.0 ** scale
-        rel = np.abs(tab.values - v) / tab.values
-        for i in np.argsort(rel)[:count]:
-            best.append((float(rel[i]), int(i), scale))
+        rel = [abs(x - v) / x for x in tab.values]
+        for i in sorted(range(len(rel)), key=rel.__getitem__)[:count]:
+            best.append((rel[i], i, scale))
     best.sort()
     out, seen = [], set()
     for rel, i, scale in best:

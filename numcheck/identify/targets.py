@@ -7,26 +7,28 @@ parameter offers its other sides (``1440 minutes`` a day).  Each of these
 m) and, for periods, as a whole multiple up to a few thousand (235 months,
 4267 months).
 
-For speed, items times simple factors are kept as one sorted numpy array
-per unit (built once, cached), so a lookup is a binary search; whole
-multiples are found by rounding value/period for all periods at once.  The
-floats only select candidates: every candidate is then checked exactly.
+For speed, items times simple factors are kept as one sorted list of
+floats per unit (built once, cached), so a lookup is a binary search; whole
+multiples are found by rounding value/period for each period.  The floats
+only select candidates: every candidate is then checked exactly.  Plain
+lists and :mod:`bisect`, not numpy: one identification compares a handful
+of candidates, and importing numpy would cost more than all of them.
 """
 
 from __future__ import annotations
 
+import bisect
 import math
 from dataclasses import dataclass
 from fractions import Fraction
 from functools import lru_cache
 
-import numpy as np
 
 from .. import catalogue
 from .. import limits
 from ..errors import NumcheckError
 from ..catalogue.statements import side_unit_key
-from ..units import UNITS, canonical_unit, convert
+from ..units import UNITS, canonical_unit, convert, find_unit
 
 __all__ = ["Item", "Table", "Target", "number_text", "table", "catalogue_targets", "candidates", "simple_factors",
            "factor_complexity", "factor_weight",
@@ -111,10 +113,7 @@ def _unit_key(unit: str) -> str | None:
     key = side_unit_key(head)
     if key is not None:
         return key
-    try:
-        return canonical_unit(head)
-    except NumcheckError:
-        return None
+    return find_unit(head)
 
 
 def _items_of(entry: catalogue.Entry) -> list[Item]:
@@ -183,16 +182,16 @@ class Table:
     items: tuple[Item, ...]
     factors: tuple[Fraction, ...]
     conventions: tuple[str | None, ...]
-    values: np.ndarray          # float value of each item in the unit
+    values: tuple[float, ...]         # float value of each item in the unit
     simple: tuple[Fraction, ...]
-    simple_num: np.ndarray
-    simple_den: np.ndarray
-    confidence: np.ndarray      # CONFIDENCE_WEIGHT of each item's row
-    sorted_values: np.ndarray   # item value x simple factor, ascending
-    sorted_item: np.ndarray     # item index of each sorted value
-    sorted_factor: np.ndarray   # simple-factor index of each sorted value
-    period_index: np.ndarray    # items that take whole multiples
-    period_values: np.ndarray
+    simple_num: tuple[int, ...]
+    simple_den: tuple[int, ...]
+    confidence: tuple[float, ...]     # CONFIDENCE_WEIGHT of each item's row
+    sorted_values: tuple[float, ...]  # the item values, ascending
+    sorted_item: tuple[int, ...]      # item index of each sorted value
+    factor_items: tuple[frozenset[int], ...]  # per simple factor: the items it is not tried on
+    period_index: tuple[int, ...]     # items that take whole multiples
+    period_values: tuple[float, ...]
 
 
 def _convertible(item: Item, unit: str) -> tuple[Fraction, str | None] | None:
@@ -228,63 +227,69 @@ def table(unit: str | None) -> Table:
             items.append(item)
             factors.append(conv[0])
             conventions.append(conv[1])
-    values = np.array([float(i.value * f) for i, f in zip(items, factors)], dtype=float)
+    values = tuple(float(i.value * f) for i, f in zip(items, factors))
     simple = simple_factors()
-    fvals = np.array([float(f) for f in simple], dtype=float)
-    grid = np.outer(values, fvals)
     # A part of a small count (1/6 of "2 revolutions") means nothing; only
-    # whole multiples of such counts are tried.
-    small = np.array([i.value.denominator == 1 and i.value < SMALL_COUNT and not i.multiples
-                      for i in items], dtype=bool)
-    whole = np.array([f.denominator == 1 for f in simple], dtype=bool)
-    grid[np.outer(small, ~whole)] = np.inf
-    alone = np.array([i.alone for i in items], dtype=bool)
-    grid[np.outer(alone, np.array([f != 1 for f in simple], dtype=bool))] = np.inf
-    grid = grid.ravel()
-    order = np.argsort(grid, kind="stable")
-    order = order[np.isfinite(grid[order])]
-    n_f = len(simple)
-    period_index = np.array([k for k, i in enumerate(items) if i.multiples], dtype=np.int64)
+    # whole multiples of such counts are tried.  An item that stands alone
+    # is tried only as itself.
+    small = {i for i, item in enumerate(items)
+             if item.value.denominator == 1 and item.value < SMALL_COUNT and not item.multiples}
+    alone = {i for i, item in enumerate(items) if item.alone}
+    skip = tuple(frozenset((small if f.denominator != 1 else set()) | (alone if f != 1 else set()))
+                 for f in simple)
+    order = sorted((x, i) for i, x in enumerate(values) if math.isfinite(x))
+    period_index = tuple(k for k, i in enumerate(items) if i.multiples)
     return Table(
         unit=unit, items=tuple(items), factors=tuple(factors), conventions=tuple(conventions),
         values=values, simple=simple,
-        simple_num=np.array([f.numerator for f in simple], dtype=np.int64),
-        simple_den=np.array([f.denominator for f in simple], dtype=np.int64),
-        confidence=np.array([CONFIDENCE_WEIGHT.get(i.entry.confidence, 0.5) for i in items], dtype=float),
-        sorted_values=grid[order],
-        sorted_item=(order // n_f).astype(np.int64), sorted_factor=(order % n_f).astype(np.int64),
-        period_index=period_index, period_values=values[period_index] if len(period_index) else values[:0],
+        simple_num=tuple(f.numerator for f in simple),
+        simple_den=tuple(f.denominator for f in simple),
+        confidence=tuple(CONFIDENCE_WEIGHT.get(i.entry.confidence, 0.5) for i in items),
+        sorted_values=tuple(x for x, _ in order), sorted_item=tuple(i for _, i in order),
+        factor_items=skip,
+        period_index=period_index, period_values=tuple(values[k] for k in period_index),
     )
 
 
 def candidates(tab: Table, lo: float, hi: float, *, multiples: bool = True
-               ) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
-    """Arrays (item index, factor numerator, factor denominator) of every
+               ) -> tuple[list[int], list[int], list[int]]:
+    """Lists (item index, factor numerator, factor denominator) of every
     item x factor whose float lies in [lo, hi].
 
-    Simple factors by binary search; whole multiples (past the simple ones,
-    up to IDENTIFY_MAX_MULTIPLE) of periods by rounding, all periods at once,
-    unless ``multiples`` is False.
+    Simple factors: for each factor, a binary search among the sorted item
+    values (ordered by item value x factor, as one sorted list of all of
+    them would give); whole multiples (past the simple ones, up to
+    IDENTIFY_MAX_MULTIPLE) of periods by rounding, period by period, unless
+    ``multiples`` is False.
     """
-    a = int(np.searchsorted(tab.sorted_values, lo, side="left"))
-    b = int(np.searchsorted(tab.sorted_values, hi, side="right"))
-    items = [tab.sorted_item[a:b]]
-    fidx = tab.sorted_factor[a:b]
-    nums = [tab.simple_num[fidx]]
-    dens = [tab.simple_den[fidx]]
-    if multiples and len(tab.period_values) and hi > 0:
-        pv = tab.period_values
-        first = np.maximum(np.ceil(lo / pv), limits.IDENTIFY_MAX_SIMPLE + 1).astype(np.int64)
-        last = np.minimum(np.floor(hi / pv), limits.IDENTIFY_MAX_MULTIPLE).astype(np.int64)
-        counts = np.maximum(last - first + 1, 0)
-        total = int(counts.sum())
-        if total:
-            which = np.repeat(np.arange(len(pv)), counts)
-            offsets = np.arange(total) - np.repeat(np.cumsum(counts) - counts, counts)
-            items.append(tab.period_index[which])
-            nums.append(first[which] + offsets)
-            dens.append(np.ones(total, dtype=np.int64))
-    return np.concatenate(items), np.concatenate(nums), np.concatenate(dens)
+    hits = []    # (item value x factor, item, factor index)
+    values, order = tab.sorted_values, tab.sorted_item
+    n_f = len(tab.simple)
+    for j, f in enumerate(tab.simple):
+        fv = f.numerator / f.denominator
+        # Bounds a little wide, then the exact float test the values must pass.
+        low, high = lo / fv, hi / fv
+        a = bisect.bisect_left(values, low - abs(low) * 1e-12)
+        b = bisect.bisect_right(values, high + abs(high) * 1e-12)
+        skip = tab.factor_items[j]
+        for k in range(a, b):
+            i = order[k]
+            x = tab.values[i] * float(f)
+            if lo <= x <= hi and i not in skip:
+                hits.append((x, i * n_f + j))
+    hits.sort()
+    items = [k // n_f for _, k in hits]
+    nums = [tab.simple_num[k % n_f] for _, k in hits]
+    dens = [tab.simple_den[k % n_f] for _, k in hits]
+    if multiples and tab.period_values and hi > 0:
+        least, most = limits.IDENTIFY_MAX_SIMPLE + 1, limits.IDENTIFY_MAX_MULTIPLE
+        for k, pv in zip(tab.period_index, tab.period_values):
+            first, last = max(math.ceil(lo / pv), least), min(math.floor(hi / pv), most)
+            if first <= last:
+                items.extend([k] * (last - first + 1))
+                nums.extend(range(first, last + 1))
+                dens.extend([1] * (last - first + 1))
+    return items, nums, dens
 
 
 @dataclass(frozen=True)
@@ -328,26 +333,23 @@ def catalogue_targets(lo, hi, unit: str | None = None, *, floating: bool = False
         lo, hi = hi, lo
     tab = table(unit)
     scales = range(-6, 7) if floating else range(0, 1)
-    found = []   # arrays per scale: item, num, den, weight, scale
+    found = []   # (item, num, den, weight, scale) of every candidate
     for scale in scales:
         p = Fraction(60) ** scale
         if hi * p <= 0:
             continue
         flo, fhi = float(lo * p) * (1 - 1e-12), float(hi * p) * (1 + 1e-12)
         items, nums, dens = candidates(tab, flo, fhi, multiples=max_factor is None)
-        if max_factor is not None and len(items):
-            keep = (nums <= max_factor) & (dens <= max_factor)
-            items, nums, dens = items[keep], nums[keep], dens[keep]
-        if not len(items):
-            continue
-        weight = tab.confidence[items] / (1.0 + np.log(nums.astype(float) * dens))
-        found.append((items, nums, dens, weight, np.full(len(items), scale)))
+        for idx, num, den in zip(items, nums, dens):
+            if max_factor is not None and (num > max_factor or den > max_factor):
+                continue
+            weight = tab.confidence[idx] / (1.0 + math.log(float(num) * den))
+            found.append((idx, num, den, weight, scale))
     if not found:
         return []
-    items, nums, dens, weight, scale_arr = (np.concatenate(parts) for parts in zip(*found))
-    if len(items) > limits.IDENTIFY_MAX_TARGETS:
-        keep = np.argsort(-weight, kind="stable")[: limits.IDENTIFY_MAX_TARGETS]
-        items, nums, dens, weight, scale_arr = items[keep], nums[keep], dens[keep], weight[keep], scale_arr[keep]
+    if len(found) > limits.IDENTIFY_MAX_TARGETS:
+        found = sorted(found, key=lambda c: -c[3])[: limits.IDENTIFY_MAX_TARGETS]   # stable
+    items, nums, dens, weight, scale_arr = zip(*found)
     out: list[Target] = []
     for k in range(len(items)):
         idx, scale = int(items[k]), int(scale_arr[k])

@@ -25,6 +25,8 @@ NOTATIONS: dict[str, str] = {
     "quantity": "numcheck.notations.quantity",
     "greek": "numcheck.notations.greek",
     "greek-ascending": "numcheck.notations.greek.ascending",
+    "greek-astronomical": "numcheck.notations.greek.astronomical",
+    "greek-documentary": "numcheck.notations.greek.documentary",
     "attic": "numcheck.notations.attic",
 }
 

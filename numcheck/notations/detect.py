@@ -7,7 +7,8 @@ The rules, in the order they are tried (each names the evidence that decided):
    abjad-maghribi`` for the western values).
 3. An Attic acrophonic sign (U+10140..U+10174) or the ASCII fallback of a
    combined sign (``Π(Δ)``) -> ``attic``.
-4. Greek letters, the zero sign or Greek fraction signs -> ``greek``; except
+4. Greek letters, the zero sign or Greek fraction signs (also written as
+   their code point, ``U+2220``) -> ``greek``; except
    a number written only in the capitals Ι Π Γ Δ Η Χ Μ, which may be Attic:
    a repeated sign (ΔΔ, ΙΙΙ) points to Attic (alphabetic numerals never
    repeat a letter), and so does an order that is Attic (largest first) but
@@ -37,6 +38,8 @@ _ATTIC_ASCII = re.compile(r"[ΠP]\([ΔΗΧΜDHXM]\)")
 _GREEK_SIGNS = frozenset("\U0001018A\u014d\u0375\u2220") | frozenset(
     chr(c) for c in (0x10175, 0x10176, 0x10177, 0x10178, 0x1018B))
 _ROMAN = frozenset("IVXLCDMJivxlcdmj")
+# The half sign and the Greek numeral signs as a converter writes them (U+2220 for ∠).
+_CODE_POINT_SIGN = re.compile(r"[Uu]\+(?:2220|0374|0375|1018[AaBb]|1017[5-8])")
 _DIGIT_GROUPS = re.compile(r"[0-9xXn\]?>⟩}\u0323]\s+[0-9xXn\[<⟨{]")
 _PLAIN_SEXAGESIMAL = re.compile(r"-?[0-9]+(?:,[0-9]+)*(?:;[0-9]+(?:,[0-9]+)*)?")
 _SEPARATED = "digits with sexagesimal separators (',' between places, ';' after the units)"
@@ -88,6 +91,9 @@ def detect_notation(text: str) -> tuple[str, str]:
         return _greek_or_attic(greek)
     if any(c in _GREEK_SIGNS for c in text):
         return "greek", "a Greek numeral sign (zero sign, fraction sign or lower numeral sign)"
+    written = _CODE_POINT_SIGN.search(text)
+    if written:
+        return "greek", f"a Greek numeral sign written as its code point ({written.group()})"
     number_forms = [c for c in text if 0x2160 <= ord(c) <= 0x2188]
     if number_forms:
         return "roman", f"Unicode Roman numeral characters ({_name(number_forms[0])})"

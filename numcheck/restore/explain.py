@@ -55,6 +55,9 @@ def position_reasons(sub, chosen: dict[int, int]) -> list[str]:
         written = f"'{pos.slot.text}'" if pos.slot.text else "a place"
         if opt.kind == "doubtful-read":
             out.append(f"doubtful {written} ({where}) kept as read: {v}")
+        elif opt.kind == "ambiguous":
+            others = ", ".join(exact_text(o.value) for o in pos.options)
+            out.append(f"{written} ({where}) read as {v}: the text allows {others} (see the notes of read)")
         elif opt.kind == "doubtful-alternative":
             out.append(f"doubtful {written} ({where}) read as {v}: {opt.reason}")
         else:

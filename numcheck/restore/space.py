@@ -33,7 +33,7 @@ class Option:
 
     value: Fraction          # in units of the position's place
     prior: float             # probability within the position (the options sum to 1)
-    kind: str                # "read", "lost", "doubtful-read", "doubtful-alternative"
+    kind: str                # "read", "lost", "doubtful-read", "doubtful-alternative", "ambiguous"
     editor: bool = False     # the editor's restoration
     reason: str = ""         # why this option is possible (for doubtful alternatives)
 
@@ -184,7 +184,8 @@ def _options(reading: Reading, slot: Slot, last: bool = False) -> tuple[Option, 
     if len(slot.values) == 1:
         return (Option(slot.values[0], 1.0, "read", editor=slot.editor is not None),)
     kind = "lost" if status in (Status.LOST, Status.RESTORED) else (
-        "unread" if status is Status.UNREAD else "doubtful-read")
+        "unread" if status is Status.UNREAD else
+        "doubtful-read" if status.damaged else "ambiguous")   # a Greek 'ο': 0 or 70
     values = slot.values
     if all(v.denominator == 1 for v in values):   # a cheap key: the same sets recur (0-59, 50-59 ...)
         key = tuple(v.numerator for v in values)

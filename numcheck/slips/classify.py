@@ -127,9 +127,11 @@ def _other_notation(value: Fraction, notation: str, places: int) -> str | None:
         whole_value = whole_value * _BASE + d
     groups = [whole_value] + digits[whole:]
     try:
-        if notation in ("greek", "greek-ascending"):
+        if notation in ("greek", "greek-ascending", "greek-documentary", "greek-astronomical"):
             from ..notations.greek.build import letter_text
-            text = " ".join(letter_text(g) if g else "\u014d" for g in groups)
+            # Astronomical texts type the zero as a plain omicron; elsewhere ō is unambiguous.
+            zero = "ο" if notation == "greek-astronomical" else "\u014d"
+            text = " ".join(letter_text(g) if g else zero for g in groups)
         elif notation in ("abjad", "abjad-maghribi"):
             from ..notations.abjad import _spell
             if 0 in groups:

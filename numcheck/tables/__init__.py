@@ -11,11 +11,12 @@ from __future__ import annotations
 from pathlib import Path
 
 from ..errors import NumcheckError
-from .cells import ZODIAC, Cell, Column, Table, build_table, sign_index
+from .cells import ZODIAC, Cell, Column, ColumnReading, Table, build_table, read_column, sign_index
 from .frame import frame_rows, is_dataframe
 from .text import read_text_file, split_text
 
-__all__ = ["read_table", "Table", "Column", "Cell", "split_text", "sign_index", "ZODIAC",
+__all__ = ["read_table", "read_column", "ColumnReading", "Table", "Column", "Cell", "split_text",
+           "sign_index", "ZODIAC",
            "TEI_SUFFIXES"]
 
 #: File suffixes read as TEI/EpiDoc (their first ``<table>``).

@@ -26,8 +26,10 @@ from .. import limits
 from ..reader import read
 from ..reading import Reading
 from ..units import ZODIAC, zodiac_index
+from .settle import settle_column
 
-__all__ = ["Cell", "Column", "Table", "build_table", "check_cells", "ZODIAC", "sign_index"]
+__all__ = ["Cell", "Column", "Table", "build_table", "check_cells", "ZODIAC", "sign_index",
+           "ColumnReading", "read_column"]
 
 
 _PLAIN = re.compile(r"-?\d+(?:,\d+)*(?:;\d+(?:,\d+)*)?")
@@ -134,6 +136,9 @@ class Table:
     nrows: int
     source: str = "<table>"
     header: list[str] = field(default_factory=list)
+    #: How cells whose text allows two readings were decided by their column
+    #: (:mod:`numcheck.tables.settle`).
+    notes: list[str] = field(default_factory=list)
 
 
 def _nfc(text: str) -> str:
@@ -189,11 +194,56 @@ def build_table(header, rows, *, notation, columns, source) -> Table:
                 raise UnknownNameError("column", name, header)
         wanted = [h for h in header if h in columns]
     cols: dict[str, Column] = {}
+    notes: list[str] = []
     for name in wanted:
         j = header.index(name)
         cells = [_cell(i, name, r[j], notation, source) for i, r in enumerate(rows, start=1)]
         cols[name] = _column(name, cells, source)
-    return Table(columns=cols, nrows=len(rows), source=source, header=list(header))
+        notes += settle_column(cols[name], source, _settled_cell)
+    return Table(columns=cols, nrows=len(rows), source=source, header=list(header), notes=notes)
+
+
+@dataclass
+class ColumnReading:
+    """A column read as a whole, unreadable cells reported instead of stopping the rest."""
+
+    column: Column
+    errors: dict[int, str]        # 1-based row -> the message of the cell that could not be read
+    notes: list[str]              # cells the column decided (numcheck.tables.settle)
+
+
+def read_column(name: str, texts, *, notation: str | None = None, source: str = "<column>") -> ColumnReading:
+    """Read the cells *texts* of one column, then let the column decide its ambiguous cells.
+
+    Empty cells are passed over; a cell that cannot be read is reported in
+    ``errors`` (by its 1-based row) and the others are still read.
+
+    >>> r = read_column("min", ["νε", "ο", "ε"], notation="greek")
+    >>> r.column.values
+    [Fraction(55, 1), Fraction(0, 1), Fraction(5, 1)]
+    """
+    cells: list[Cell] = []
+    errors: dict[int, str] = {}
+    for row, text in enumerate(texts, start=1):
+        text = _nfc(str(text)).strip()
+        if not text:
+            continue
+        try:
+            cells.append(_cell(row, name, text, notation, source))
+        except NumcheckError as err:
+            errors[row] = str(err)
+    column = Column(name=name, cells=cells, notation=notation or (cells[0].notation if cells else "sexagesimal"))
+    notes = settle_column(column, source, _settled_cell)
+    return ColumnReading(column, errors, notes)
+
+
+def _settled_cell(cell: Cell, reading: Reading) -> Cell:
+    """*cell* read again from a Reading its column narrowed to one value."""
+    new = _from_reading(cell.row, cell.column, cell.text, reading)
+    new.sign_name = cell.sign_name
+    if cell.sign_name is not None and new.exact is not None:
+        new.exact += 30 * sign_index(cell.sign_name)
+    return new
 
 
 def _looks_numeric(name: str) -> bool:

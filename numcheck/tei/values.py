@@ -21,7 +21,8 @@ ENUMERATE_READINGS = 20_000
 
 
 def unresolved(reading: Reading) -> bool:
-    """Whether lost or unread letters leave the value open (the editor restored none)."""
+    """Whether lost or unread letters leave the value open (the editor restored none),
+    or letters read clearly still allow two values (Reading.ambiguous)."""
     for s in reading.slots:
         if s.gap is not None:
             return True
@@ -29,6 +30,8 @@ def unresolved(reading: Reading) -> bool:
             return True
         if s.status is Status.RESTORED and s.editor is None and len(s.values) > 1:
             return True
+        if s.counted and not s.status.damaged and len(s.values) > 1:
+            return True          # read, but its meaning open (a Greek 'ο': 0 or 70)
     return False
 
 

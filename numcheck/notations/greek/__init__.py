@@ -53,10 +53,12 @@ from ...errors import LimitError, NumcheckSyntaxError, NumcheckWarning
 from ..grammars import parser_for
 from ... import limits
 from ...reading import Reading, Slot, Status
-from .build import group_slots
+from .build import group_slots, unread_mark_slot
 from .writing import format, render
 from .letters import BARRED, letter_value
+from .conventions import CONVENTIONS, GENERIC
 from .model import FRACTION_SIGNS, ZERO_SIGNS, fail, Item
+from .spelling import clean
 
 __all__ = ["NAME", "parse", "format", "render", "BAD_EXAMPLES", "FRACTION_SIGNS", "ZERO_SIGNS"]
 
@@ -70,7 +72,6 @@ BAD_EXAMPLES: list[tuple[str, int, str]] = [
     ("κθ λa", 5, "a Latin letter inside a Greek numeral (mixed scripts)"),
     ("κθ 31", 4, "a digit inside a Greek numeral (mixed notations)"),
     ("κθ,λα", 3, "a sexagesimal separator inside a Greek numeral"),
-    ("ά", 1, "a Greek letter with an accent or breathing"),
     ("ιͷ", 2, "a Greek letter that is not a numeral"),
     ("κλ", 2, "two letters of the same rank"),
     ("ιι", 2, "two letters of the same rank"),
@@ -137,11 +138,13 @@ def _raise_from_lark(text: str, err: UnexpectedInput):
 
 # -- reading ----------------------------------------------------------------
 
-def parse(text: str, *, ascending: bool = False, notation: str = NAME) -> Reading:
+def parse(text: str, *, ascending: bool = False, notation: str = NAME, convention: str = GENERIC) -> Reading:
     """Read *text* as a Greek alphabetic numeral (NFC and NFD read the same).
 
     With ``ascending=True`` the letters are expected smaller first, as some
-    inscriptions write them.
+    inscriptions write them.  *convention* (``"generic"``, ``"astronomical"``,
+    ``"documentary"``; :mod:`numcheck.notations.greek.conventions`) says how
+    a lone ``ο`` and a lone capital letter are read.
 
     >>> parse("͵αχο").value
     Fraction(1670, 1)
@@ -152,25 +155,45 @@ def parse(text: str, *, ascending: bool = False, notation: str = NAME) -> Readin
     if not text.strip():
         raise NumcheckSyntaxError("There is no number to read: the input is empty", text, 0,
                                   expected="a Greek numeral such as ͵αχο or κθ λα")
+    if convention not in CONVENTIONS:
+        raise ValueError(f"unknown Greek convention {convention!r}; expected one of {sorted(CONVENTIONS)}")
+    text, cleaned = clean(text)
+    notes: list = []
+    for note in cleaned:
+        notes += [True, note]
     try:
         tree = parser_for("greek").parse(text)
     except UnexpectedInput as err:
         _raise_from_lark(text, err)
     state = {"lost": None, "added": None, "superfluous": None}
-    groups = [(_items(text, g, state), g) for g in tree.children if isinstance(g, Tree)]
+    trees = [piece for g in tree.children if isinstance(g, Tree) for piece in _split_runs(g)]
+    groups = [([] if _is_mark_group(g) else _items(text, g, state, notes), g) for g in trees]
     for name, opened in state.items():
         if opened is not None:
             fail(text, "a bracket opened and never closed", opened, f"a closing bracket for the {name} part")
     if sum(len(items) for items, _ in groups) > limits.MAX_PLACES:
         raise LimitError("number of signs", sum(len(i) for i, _ in groups), limits.MAX_PLACES,
                          "Set numcheck.limits.MAX_PLACES higher to read it.")
-    notes: list[str] = []
     slots: list[Slot] = []
     place = 0
     seen_fraction = None
     upper = False
+    kinds = [_group_kind(index, items, g) for index, (items, g) in enumerate(groups)]
+    places = "place" in kinds
+    alone = len(kinds) == 1
     for index, (items, tree_group) in enumerate(groups):
-        gkind = _group_kind(index, items, tree_group)
+        gkind = kinds[index]
+        if gkind == "unread":
+            if index == 0:
+                fail(text, "a recognition mark '??' in place of the whole number", 0,
+                     "the letters of the whole part first")
+            if not places:
+                seen_fraction = seen_fraction if seen_fraction is not None else index
+            else:
+                place -= 1
+            base = dict(group=index, gkind="unread", upper=upper, keraia=False, ascending=ascending)
+            slots.append(unread_mark_slot(text, tree_group, place if places else 0, places, notes, base))
+            continue
         if gkind in ("unitfrac", "fraction"):
             seen_fraction = seen_fraction if seen_fraction is not None else index
         elif gkind == "place":
@@ -179,7 +202,7 @@ def parse(text: str, *, ascending: bool = False, notation: str = NAME) -> Readin
                       "the sexagesimal places before the unit fractions")
             place -= 1
         built = group_slots(text, index, items, tree_group, gkind, place if gkind == "place" else 0,
-                            ascending, notes, upper=upper)
+                            ascending, notes, upper=upper, convention=convention, places=places, alone=alone)
         upper = next((s.form[0].upper for s in built if s.form), upper)
         if gkind == "place" and len(built) == 1 and built[0].gap is not None:
             place -= built[0].gap[0] - 1
@@ -199,24 +222,68 @@ def parse(text: str, *, ascending: bool = False, notation: str = NAME) -> Readin
     return Reading(text=text, notation=notation, slots=tuple(slots), base=60, warnings=tuple(said))
 
 
+def _is_mark_group(group: Tree) -> bool:
+    """A group of '?' only: what a recognised text leaves for a sign it could not read."""
+    return all(t.type == "DOUBT" for t in group.children)
+
+
 def _group_kind(index: int, items: list[Item], group: Tree) -> str:
+    if _is_mark_group(group):
+        return "unread"
     if index == 0:
         return "whole"
-    if any(t.type == "KERAIA" for t in group.children):
-        return "unitfrac"
     counted = [i for i in items if i.status is not Status.SUPERFLUOUS]
+    # A fraction sign with the numeral sign (∠ʹ, as editions print the half)
+    # is a fraction sign, not a unit fraction.
     if counted and all(i.kind == "fraction" for i in counted):
         return "fraction"
+    if any(t.type == "KERAIA" for t in group.children[1:]):
+        return "unitfrac"
     return "place"
 
 
-def _items(text: str, group: Tree, state: dict) -> list[Item]:
+_STARTS_SIGN = frozenset({"LETTER", "THOUSANDS", "ZERO", "FRACTION", "DOT", "GAP", "LOST_OPEN",
+                          "ADD_OPEN", "SUPERFLUOUS_OPEN"})
+
+
+def _split_runs(group: Tree) -> list[Tree]:
+    """Split a group written without spaces into its parts: ``κε∠ʹγʹ`` is ``κε∠ʹ γʹ``.
+
+    A numeral sign followed by more signs ends a part, but only when every
+    later part ends with its own numeral sign (a run of unit fractions, as
+    Ptolemy writes 25 5/6); otherwise the group stays whole and the reader
+    says that a letter follows the numeral sign.
+    """
+    children = group.children
+    cuts = [k + 1 for k, tok in enumerate(children)
+            if tok.type == "KERAIA" and k > 0 and k + 1 < len(children)
+            and children[k + 1].type in _STARTS_SIGN]
+    if not cuts:
+        return [group]
+    bounds = [0] + cuts + [len(children)]
+    parts = [children[a:b] for a, b in zip(bounds, bounds[1:])]
+    closing = ("KERAIA", "LOST_CLOSE", "ADD_CLOSE", "SUPERFLUOUS_CLOSE", "BAR", "UNDERDOT", "DOUBT")
+    for part in parts[1:]:
+        tail = [t for t in part if t.type not in closing[1:]]
+        if not tail or tail[-1].type != "KERAIA":
+            return [group]
+    return [Tree("group", part) for part in parts]
+
+
+def _items(text: str, group: Tree, state: dict, notes: list) -> list[Item]:
     """The signs of one group, with brackets, doubt marks and bars attached."""
     items: list[Item] = []
     thousands: Token | None = None
     keraia: Token | None = None
-    for tok in group.children:
+    children = group.children
+    for k, tok in enumerate(children):
         t = tok.type
+        if (t == "KERAIA" and k == 0 and k + 1 < len(children) and children[k + 1].type == "LETTER"):
+            # 'Αωϙγ: documentary editions type the lower numeral sign as an apostrophe.
+            notes.append(f"{str(tok)!r} before {str(children[k + 1])!r} read as the thousands sign ͵: "
+                         "documentary editions type the lower numeral sign as an apostrophe")
+            thousands = tok
+            continue
         if t.endswith("_OPEN"):
             name = {"LOST_OPEN": "lost", "ADD_OPEN": "added", "SUPERFLUOUS_OPEN": "superfluous"}[t]
             if state[name] is not None:

@@ -20,9 +20,14 @@ from ...errors import NumcheckRangeError
 from ... import limits
 from ...reading import Slot, Status
 from .letters import CANONICAL, exponent
+from .conventions import ASTRONOMICAL, GENERIC, capital_thousands, lone_letter
 from .model import RANK_NAMES, STATUS_ORDER, UNDERDOT, ZERO, Form, Item, fail
 
-__all__ = ["group_slots", "letter_text", "widen"]
+__all__ = ["group_slots", "letter_text", "widen", "unread_mark_slot", "TWELFTHS"]
+
+#: What an unread fraction sign may be: the fractional parts the half and the
+#: unit fractions ∠ʹ γʹ δʹ ϛʹ ιβʹ make, in twelfths (0 to 11/12).
+TWELFTHS = tuple(Fraction(k, 12) for k in range(12))
 
 _BRACKET = {Status.LOST: "[", Status.RESTORED: "[", Status.ADDED: "<", Status.SUPERFLUOUS: "{"}
 _PLACE_MAX = 59
@@ -44,13 +49,18 @@ def letter_text(value: int, upper: bool = False) -> str:
 
 
 def group_slots(text: str, index: int, items: list[Item], group: Tree, gkind: str, place: int,
-                ascending: bool, notes: list[str], upper: bool = False) -> list[Slot]:
+                ascending: bool, notes: list[str], upper: bool = False, convention: str = GENERIC,
+                places: bool = False, alone: bool = False) -> list[Slot]:
     """The slots of one group (see the module docstring).
 
     *upper* is the case of the number so far: a group with no letter read
-    (``[.]``) writes its restorations in that case.
+    (``[.]``) writes its restorations in that case.  *convention* is one of
+    :data:`CONVENTIONS` (how a lone ``ο`` and a lone capital are read, see
+    :mod:`numcheck.notations.greek.conventions`); *places* says that the
+    number has sexagesimal places after its whole part, *alone* that the
+    whole part is all there is.
     """
-    keraia = any(t.type == "KERAIA" for t in group.children)
+    keraia = any(t.type == "KERAIA" for t in group.children[1:])   # a leading one is ͵ ('Αωϙγ)
     letters = [i for i in items if i.kind == "letter"]
     if letters:
         upper = all(i.char.isupper() for i in letters)
@@ -74,14 +84,28 @@ def group_slots(text: str, index: int, items: list[Item], group: Tree, gkind: st
                      form=(Form(role="zero", pieces=((ZERO + (UNDERDOT if z.doubtful else ""),
                                                       _BRACKET.get(z.status)),), **base),))]
     only = counted[0] if len(counted) == 1 else None
-    if gkind == "place" and only is not None and only.kind == "letter" and only.value == 70 and only.bar:
-        notes.append(True)
-        notes.append(f"{group_text!r} read as the zero sign: a barred omicron is the Byzantine form of "
-                     "the zero (Cajori, A History of Mathematical Notations I §43), and 70 cannot "
-                     "stand in a sexagesimal place")
+    if gkind == "place" and only is not None and only.kind == "letter" and only.value == 70 \
+            and (only.bar or only.char in "οΟ"):
+        why = ("a barred omicron is the Byzantine form of the zero (Cajori, A History of Mathematical "
+               "Notations I §43)" if only.bar else
+               "digital texts of Greek tables type the zero as a plain omicron (Heiberg's Almagest "
+               "prints it without its bar, Cajori §44)")
+        if convention != ASTRONOMICAL:
+            notes.append(True)
+        notes.append(f"{group_text!r} read as the zero sign: {why}, and 70 cannot stand in a "
+                     "sexagesimal place")
         return [Slot(values=(Fraction(0),), place=place, status=_status(only), text=group_text,
                      span=(only.start, only.end),
                      form=(Form(role="zero", pieces=((ZERO, _BRACKET.get(only.status)),), **base),))]
+    if gkind == "whole" and only is not None and only.kind == "letter" and not keraia:
+        special = lone_letter(only, group_text, convention, places, notes, alone=alone)
+        if special is not None:
+            values, role = special
+            piece = only.char + (UNDERDOT if only.doubtful else "")
+            start, end = widen(text, only.start, only.end)
+            return [Slot(values=tuple(Fraction(v) for v in values), place=place, status=_status(only),
+                         text=text[start:end], span=(start, end),
+                         form=(Form(role=role, pieces=((piece, _BRACKET.get(only.status)),), **base),))]
     if gkind == "place" and only is not None and only.kind == "gap":
         notes.append(f"{group_text!r} read as 1 to {limits.GAP_MAX_PLACES} lost sexagesimal places "
                      "(numcheck.limits.GAP_MAX_PLACES)")
@@ -170,6 +194,10 @@ def _part(text, items, top, place, mult, limit, allow_zero, ascending, notes, ba
         elif it.kind == "dot" and it.thousands:
             exps[k] = 3
     keys = sorted(exps)
+    if top >= 2:
+        for k in capital_thousands(positions, exps, notes):
+            exps[k] = 3
+            implicit.add(k)
     if not ascending and top >= 2:
         for a, b in zip(keys, keys[1:]):
             if (b == a + 1 and exps[a] == 0 and exps[b] == 2 and positions[a].kind == "letter"
@@ -357,3 +385,23 @@ def _unit_fraction(text, items, place, ascending, notes, base, group_text, span)
                 text=text[start:end], span=(start, end), editor=editor,
                 form=(Form(role="unitfrac", pieces=pieces, read=read, **dict(base, keraia=True)),))
 
+
+
+def unread_mark_slot(text: str, group: Tree, place: int, places: bool, notes: list[str], base: dict) -> Slot:
+    """A group of recognition marks (``??``): a sign present but not read.
+
+    With sexagesimal places in the number it is an unread place (0 to 59);
+    otherwise an unread fraction of the units, 0 to 11/12 in twelfths.
+    """
+    start, end = group.children[0].start_pos, group.children[-1].end_pos
+    mark = text[start:end]
+    if places:
+        values = tuple(Fraction(v) for v in range(_PLACE_MAX + 1))
+        what = "an unread sexagesimal place (0 to 59)"
+    else:
+        values = TWELFTHS
+        what = "an unread fraction (0 to 11/12 in twelfths, what ∠ʹ γʹ δʹ ϛʹ ιβʹ can make)"
+    notes.append(True)
+    notes.append(f"{mark!r} (the mark a recognised text leaves for a sign it could not read) read as {what}")
+    return Slot(values=values, place=place, status=Status.UNREAD, text=mark, span=(start, end),
+                form=(Form(role="unread-mark", pieces=((mark, None),), **base),))

@@ -78,8 +78,20 @@ def _slot_pieces(slot: Slot, f, value: Fraction | None) -> list[tuple[str, str |
     if value is None or not _is_open(slot, f):
         return list(f.pieces)
     bracket = None if slot.status is Status.UNREAD else "["
+    if f.role in ("omicron", "capital"):
+        # One letter read, its meaning open: write the reading chosen plainly.
+        written = f.pieces[0][0]
+        if f.role == "omicron":
+            text = ZERO if value == 0 else written
+        else:
+            text = written if value < 1000 else "͵" + written
+        return [(text, f.pieces[0][1])]
     if f.role == "unitfrac":
         return _unit_fraction_pieces(f, value)
+    if f.role == "unread-mark":
+        if f.gkind == "unread" and slot.place == 0:
+            return [(fraction_text(value) or ZERO, bracket)]
+        return [(letter_text(int(value)) if value else ZERO, bracket)]
     n = int(value / f.mult)
     if n == 0:
         return []
@@ -121,3 +133,24 @@ def _unit_fraction_pieces(f, value: Fraction) -> list[tuple[str, str | None]]:
 def _merge(pieces: list[tuple[str, str | None]]) -> str:
     """Join pieces, one bracket around each run that shares it."""
     return join_marked([(text, RAW if bracket == "gap" else bracket) for text, bracket in pieces])
+
+
+_PARTS = (Fraction(1, 2), Fraction(1, 3), Fraction(1, 4), Fraction(1, 6), Fraction(1, 12))
+
+
+def fraction_text(value: Fraction) -> str:
+    """A fraction below 1 in twelfths as Ptolemy writes it: the half, then unit fractions.
+
+    >>> fraction_text(Fraction(5, 6))
+    '∠ʹ γʹ'
+    """
+    out = []
+    rest = Fraction(value)
+    for part in _PARTS:
+        if part <= rest:
+            out.append("∠" + KERAIA if part == Fraction(1, 2) else CANONICAL_TEXT[part.denominator] + KERAIA)
+            rest -= part
+    return " ".join(out)
+
+
+CANONICAL_TEXT = {3: "γ", 4: "δ", 6: "ϛ", 12: "ιβ"}
