@@ -15,6 +15,13 @@ tablets, ostraca, places and scribes are invented (see examples/README.md).
 * ``tables/lunar.tsv``  A, a monthly progress (the System B zigzag of column A,
   O. Neugebauer, Astronomical Cuneiform Texts, 1955, vol. 1), B its running
   sum modulo 360 in plain degrees, and C a line count; one slip in B.
+* ``tables/fragment.tsv``  twelve lines of a column F (the moon's daily velocity) of
+  the lunar System B: a zigzag with d = 0;36, M = 15;16,5, m = 11;5,5 (O. Neugebauer,
+  Astronomical Cuneiform Texts, 1955, vol. 1, System B, column F); one unit slip.
+* ``tables/triples.tsv``  right triangles with short side b and diagonal d from
+  regular pairs p > q (b = p^2 - q^2, d = p^2 + q^2, long side 2pq; common practice),
+  and I = d^2 / (d^2 - b^2) written exactly; one slip in b.
+* ``tables/products.tsv``  C = A x B rounded to two sexagesimal places; one slip.
 * ``editions/ostracon.xml``  a TEI/EpiDoc edition of an (invented) ostracon
   with three numbers on numbered lines, one letter lost.
 """
@@ -108,6 +115,70 @@ def lunar_rows() -> list[list[str]]:
     return rows
 
 
+def fragment_rows() -> list[list[str]]:
+    d, hi, lo = Fraction(36, 60), Fraction(15 * 3600 + 16 * 60 + 5, 3600), Fraction(11 * 3600 + 5 * 60 + 5, 3600)
+    f, rising = Fraction(13 * 3600 + 10 * 60 + 5, 3600), True
+    rows = []
+    for k in range(12):
+        if k:
+            f = f + d if rising else f - d
+            if f > hi:
+                f, rising = 2 * hi - f, False
+            elif f < lo:
+                f, rising = 2 * lo - f, True
+        shown = f + (Fraction(1, 60) if k == 7 else 0)      # line 8: one unit too many
+        rows.append([str(k + 1), sexagesimal(shown, 2)])
+    return rows
+
+
+def _regular(n: int) -> bool:
+    for p in (2, 3, 5):
+        while n % p == 0:
+            n //= p
+    return n == 1
+
+
+def triples_rows() -> list[list[str]]:
+    pairs = [(p, q) for p in range(2, 30) for q in range(1, p)
+             if _regular(p) and _regular(q) and (p - q) % 2 == 1 and _gcd(p, q) == 1
+             and 1 < Fraction(p, q) < Fraction(12, 5) + Fraction(1, 100)]
+    pairs.sort(key=lambda pq: -Fraction(pq[0], pq[1]))
+    rows = []
+    for k, (p, q) in enumerate(pairs[:8]):
+        b, dd = p * p - q * q, p * p + q * q
+        i = Fraction(dd * dd, dd * dd - b * b)
+        shown_b = b + (10 if k == 4 else 0)                  # line 5: a ten too many in b
+        rows.append([sexagesimal(i, _places(i)), str(shown_b), str(dd)])
+    return rows
+
+
+def _gcd(a: int, b: int) -> int:
+    while b:
+        a, b = b, a % b
+    return a
+
+
+def _places(value: Fraction) -> int:
+    n = 0
+    while (value * 60 ** n).denominator != 1:
+        n += 1
+    return n
+
+
+def products_rows() -> list[list[str]]:
+    firsts = (7, 13, 22, 9, 31, 44, 18, 51, 26, 38)      # arbitrary factors: no scheme of their own
+    seconds = (12, 40, 5, 33, 20, 48, 15, 57, 2, 29)
+    halves = (30, 45, 20, 50, 36, 24, 40, 15, 48, 27)
+    rows = []
+    for k in range(10):
+        a = 1 + Fraction(firsts[k], 60) + Fraction(seconds[k], 3600)
+        b = Fraction(halves[k], 60)
+        c = Fraction(round(a * b * 3600), 3600)                # rounded to two places
+        shown = c + (Fraction(1, 60) if k == 6 else 0)        # line 7: one unit too many
+        rows.append([sexagesimal(a, 2), sexagesimal(b, 1), sexagesimal(shown, 2)])
+    return rows
+
+
 OSTRACON = f"""<?xml version="1.0" encoding="UTF-8"?>
 <!-- {HEADER} -->
 <TEI xmlns="http://www.tei-c.org/ns/1.0" xml:lang="en">
@@ -137,6 +208,9 @@ def main() -> None:
     _tsv(HERE / "tables" / "igi.tsv", ["n", "igi"], igi_rows())
     _tsv(HERE / "tables" / "sums.tsv", ["A", "B", "C"], sums_rows())
     _tsv(HERE / "tables" / "lunar.tsv", ["A", "B", "C"], lunar_rows())
+    _tsv(HERE / "tables" / "fragment.tsv", ["line", "F"], fragment_rows())
+    _tsv(HERE / "tables" / "triples.tsv", ["I", "b", "d"], triples_rows())
+    _tsv(HERE / "tables" / "products.tsv", ["A", "B", "C"], products_rows())
     (HERE / "editions").mkdir(exist_ok=True)
     (HERE / "editions" / "ostracon.xml").write_text(OSTRACON, encoding="utf-8")
     print(f"wrote the examples to {HERE}")
