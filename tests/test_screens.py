@@ -136,13 +136,14 @@ def test_audit_screen_is_compact_and_keeps_every_flag():
 # ---- piped: plain text to paste ----------------------------------------------
 
 @pytest.mark.parametrize("argv", [["identify", "1,49,45;20", "--unit", "days"], ["catalogue", "--body", "sun"],
-                                  ["restore", "29;31,5[x],8,20"]])
+                                  ["restore", "29;31,5[x],8,20"], ["read", "29;31,5[x],8,20"],
+                                  ["audit", str(ROOT / "examples" / "tables" / "sums.tsv")]])
 def test_piped_output_is_plain_text(argv, capsys):
     assert main(argv) == 0
     out = capsys.readouterr().out
     assert "\x1b" not in out                                  # no colour codes
     assert not [ln for ln in out.splitlines() if ln != ln.rstrip()]   # no trailing blanks
-    assert not set("┃━╇│─") & set(out)                        # ASCII rules only
+    assert not set("┃━╇│─╭╮╰╯") & set(out)                    # ASCII rules only
 
 
 # ---- everyday inputs ---------------------------------------------------------------

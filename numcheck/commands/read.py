@@ -68,7 +68,11 @@ def _show(reading, result: dict, console) -> None:
     for p in result["places"]:
         where = ("60^" + str(p["place"])) if "gap" not in p else f"{p['gap'][0]}-{p['gap'][1]} places"
         places.row(p["text"], where, (p["status"], style[p["status"]]), p["values"])
-    console.print(Panel.fit(head, title=f"numcheck read  {escape(reading.text)}"))
+    from rich import box
+
+    # Through a pipe the frame is ASCII, so that the text pastes anywhere.
+    console.print(Panel.fit(head, title=f"numcheck read  {escape(reading.text)}",
+                            box=box.ROUNDED if console.is_terminal else box.ASCII))
     places.print()
     for w in reading.warnings:
         console.print(f"[yellow]note:[/yellow] {escape(w)}")
