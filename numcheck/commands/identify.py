@@ -32,7 +32,7 @@ def run(args, console) -> dict:
                           tradition=args.tradition)
     out = result.to_dict()
     if console is not None:
-        _show(result, console, full=args.full)
+        _show(result, console, full=args.full, asked=args.tradition is not None)
     return out
 
 
@@ -61,7 +61,7 @@ def _citation(source: str) -> str:
 STYLE = {"exact": "green", "truncated": "cyan", "rounded": "cyan", "damage": "magenta", "near": "yellow"}
 
 
-def _show(result, console, full: bool = False) -> None:
+def _show(result, console, full: bool = False, asked: bool = False) -> None:
     from ..report.layout import Sheet, note, notes
 
     r = result.reading
@@ -69,8 +69,8 @@ def _show(result, console, full: bool = False) -> None:
     scale = " (floating: every power of 60 tried)" if r.floating else ""
     note(console, f"numcheck identify  {r.text}{unit}{scale}", "bold")
     if result.tradition:
-        note(console, f"weighing the {result.tradition} tradition first"
-, "dim")
+        why = "as asked" if asked else "the notation says it; --tradition T weighs another"
+        note(console, f"weighing the {result.tradition} tradition first ({why})", "dim")
     for n in result.notes:
         note(console, f"note: {n}", "yellow")
     if not result.matches:
