@@ -22,12 +22,22 @@ tablets, ostraca, places and scribes are invented (see examples/README.md).
   regular pairs p > q (b = p^2 - q^2, d = p^2 + q^2, long side 2pq; common practice),
   and I = d^2 / (d^2 - b^2) written exactly; one slip in b.
 * ``tables/products.tsv``  C = A x B rounded to two sexagesimal places; one slip.
+* ``tables/chords.tsv``  a chord table in Ptolemy's layout (Almagest I.11; R = 60):
+  arcs 0;30 to 30 by 0;30, the chord in degrees, minutes, seconds, and the
+  sixtieths (the thirtieth of the difference to the next chord, four places),
+  each in columns of its own; one slip in the minutes of a chord.
+* ``tables/declination.tsv``  the sun's declination for each degree of longitude,
+  delta = asin(sin eps sin lambda) with Ptolemy's obliquity 23;51,20 (Almagest I.12),
+  to two places; one slip.
+* ``tables/sines.tsv``  sines and cosines of a zij-style table, R = 60, to two
+  places, for each degree; one slip in the cosines.
 * ``editions/ostracon.xml``  a TEI/EpiDoc edition of an (invented) ostracon
   with three numbers on numbered lines, one letter lost.
 """
 
 from __future__ import annotations
 
+import math
 from fractions import Fraction
 from pathlib import Path
 
@@ -179,6 +189,57 @@ def products_rows() -> list[list[str]]:
     return rows
 
 
+def _round(v: float, places: int) -> Fraction:
+    """A float rounded to *places* sexagesimal places, exactly (for computed tables)."""
+    return Fraction(math.floor(v * 60 ** places + 0.5), 60 ** places)
+
+
+def _parts(v: Fraction, places: int) -> list[str]:
+    """Degrees and each place as separate cells: 1;2,50 -> ['1', '2', '50']."""
+    text = sexagesimal(v, places)
+    whole, _, rest = text.partition(";")
+    return [whole] + (rest.split(",") if rest else [])
+
+
+def _arc(a: Fraction) -> str:
+    return sexagesimal(a, 1) if a.denominator != 1 else str(a.numerator)
+
+
+def chords_rows() -> list[list[str]]:
+    arcs = [Fraction(k, 2) for k in range(1, 62)]
+    crd = [_round(120 * math.sin(math.radians(float(a)) / 2), 2) for a in arcs]
+    rows = []
+    for k, a in enumerate(arcs[:-1]):
+        six = _round(float(crd[k + 1] - crd[k]) / 30, 3)
+        c = _parts(crd[k], 2)
+        if k == 19:                                   # line 20: a ten too many in the minutes
+            c[1] = str((int(c[1]) + 10) % 60)
+        rows.append([_arc(a)] + c + _parts(six, 3))
+    return rows
+
+
+def declination_rows() -> list[list[str]]:
+    eps = math.radians(23 + 51 / 60 + 20 / 3600)
+    rows = []
+    for lam in range(1, 91):
+        d = _round(math.degrees(math.asin(math.sin(eps) * math.sin(math.radians(lam)))), 2)
+        if lam == 40:                                 # line 40: a ten too many in the minutes
+            d += Fraction(10, 60)
+        rows.append([str(lam), sexagesimal(d, 2)])
+    return rows
+
+
+def sines_rows() -> list[list[str]]:
+    rows = []
+    for a in range(1, 91):
+        s_ = _round(60 * math.sin(math.radians(a)), 2)
+        c = _round(60 * math.cos(math.radians(a)), 2)
+        if a == 25:                                   # line 25: a ten too many in the minutes
+            c += Fraction(10, 60)
+        rows.append([str(a), sexagesimal(s_, 2), sexagesimal(c, 2)])
+    return rows
+
+
 OSTRACON = f"""<?xml version="1.0" encoding="UTF-8"?>
 <!-- {HEADER} -->
 <TEI xmlns="http://www.tei-c.org/ns/1.0" xml:lang="en">
@@ -211,6 +272,10 @@ def main() -> None:
     _tsv(HERE / "tables" / "fragment.tsv", ["line", "F"], fragment_rows())
     _tsv(HERE / "tables" / "triples.tsv", ["I", "b", "d"], triples_rows())
     _tsv(HERE / "tables" / "products.tsv", ["A", "B", "C"], products_rows())
+    _tsv(HERE / "tables" / "chords.tsv",
+         ["arc", "crd_d", "crd_m", "crd_s", "six_d", "six_m", "six_s", "six_t"], chords_rows())
+    _tsv(HERE / "tables" / "declination.tsv", ["longitude", "declination"], declination_rows())
+    _tsv(HERE / "tables" / "sines.tsv", ["A", "B", "C"], sines_rows())
     (HERE / "editions").mkdir(exist_ok=True)
     (HERE / "editions" / "ostracon.xml").write_text(OSTRACON, encoding="utf-8")
     print(f"wrote the examples to {HERE}")

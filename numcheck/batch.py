@@ -165,14 +165,16 @@ def annotate_folder(in_dir: str | os.PathLike, out_dir: str | os.PathLike, *,
 # -- audit ----------------------------------------------------------------
 
 def _audit_one(job: tuple) -> dict:
-    src, rel, report_dir, notation, relation, scheme = job
+    src, rel, report_dir, notation, relation, scheme, *rest = job
+    model, join = rest if rest else (None, None)
     from .audit import audit
 
     from .tei.markup import NoTableError
 
     entry: dict = {"file": rel}
     try:
-        result = audit(Path(src), notation=notation, relation=relation, scheme=scheme)
+        result = audit(Path(src), notation=notation, relation=relation, scheme=scheme,
+                       model=model, join=join)
     except NoTableError as err:
         entry["skipped"] = str(err)
         return entry
@@ -239,7 +241,7 @@ def _write_reports(result, report_dir: Path, rel: str) -> dict:
 
 def audit_folder(in_dir: str | os.PathLike, *, report_dir: str | os.PathLike | None = None,
                  notation: str | None = None, relation=None, workers: int | None = None,
-                 progress: Progress | None = None, scheme=None) -> dict:
+                 progress: Progress | None = None, scheme=None, model=None, join=None) -> dict:
     """Audit every table (``.tsv``, ``.csv``, a TEI ``.xml`` with a ``<table>``) under *in_dir*.
 
     With *report_dir*, each file gets its HTML report, plot and flags CSV
@@ -255,7 +257,8 @@ def audit_folder(in_dir: str | os.PathLike, *, report_dir: str | os.PathLike | N
             raise OutputError(f"The report folder {str(rdir)!r} is the input folder; give another one.")
         rdir.mkdir(parents=True, exist_ok=True)
     jobs = [(str(p), p.relative_to(src_root).as_posix(),
-             str(report_dir) if report_dir is not None else None, notation, relation, scheme)
+             str(report_dir) if report_dir is not None else None, notation, relation, scheme,
+             model, join)
             for p in files]
     result = BatchResult("audit", str(src_root), str(report_dir) if report_dir is not None else None)
     result.files = _run(jobs, _audit_one, progress, workers)

@@ -49,7 +49,7 @@ def test_single_space_aligned_table_keeps_sign_names():
 
 
 @pytest.mark.parametrize("text", ["1,49,45;20", "29;31,50,8,20", "-0;30", "7", "1,4", "59;59,59",
-                                  "365;14,48", "0;0,0,1"])
+                                  "365;14,48", "0;0,0,1", "180", "3438", "-75"])
 def test_fast_path_gives_the_value_of_read(text):
     df = pd.DataFrame({"X": [text]})
     (cell,) = read_table(df).columns["X"].cells

@@ -28,7 +28,7 @@ __all__ = ["audit", "AuditResult", "SUGGESTION"]
 
 
 def audit(table, *, notation: str | None = None, relation=None, columns=None,
-          scheme=None) -> AuditResult:
+          scheme=None, model=None, join=None) -> AuditResult:
     """Audit *table* (a path to a TSV/CSV/aligned text table, or a DataFrame).
 
     *notation* is the default notation of every cell (detected otherwise);
@@ -37,7 +37,12 @@ def audit(table, *, notation: str | None = None, relation=None, columns=None,
     or a list of them; *scheme* a known scheme of a column, or a list
     (``"F: zigzag d=0;36 M=15;16,5 m=11;5,5"``, ``"F: ACT-LUN-B-F"``);
     *columns* the header names to audit (the others are left out, e.g. a
-    column of month names).
+    column of month names); *model* the model of the function columns
+    (``"chord"``, or ``"B=declination"`` per column; chosen automatically
+    otherwise, see ``numcheck.audit.functions``); *join* the columns that
+    hold one number together (``{"crd": ["crd_d", "crd_m", "crd_s"]}`` or
+    ``"crd=crd_d,crd_m,crd_s"``; columns headed ``x°``, ``x′``, ``x″`` are
+    joined by themselves).
     """
     from .diagnose import Finding
 
@@ -48,9 +53,9 @@ def audit(table, *, notation: str | None = None, relation=None, columns=None,
     collecting = gc.isenabled()
     gc.disable()
     try:
-        tab = read_table(table, notation=notation, columns=columns)
+        tab = read_table(table, notation=notation, columns=columns, join=join)
         frame = make_frame(tab)
-        schemes = detect_schemes(frame, relation=relation, scheme=scheme)
+        schemes = detect_schemes(frame, relation=relation, scheme=scheme, model=model)
         findings, pending, true = diagnose(tab, frame, schemes)
         restorations, misfits = restore_cells(tab, frame, pending)
     finally:

@@ -101,11 +101,12 @@ def _stated(frame: Frame, relation, scheme) -> dict[str, Scheme]:
     return out
 
 
-def detect_schemes(frame: Frame, relation=None, scheme=None) -> list[Scheme]:
+def detect_schemes(frame: Frame, relation=None, scheme=None, model=None) -> list[Scheme]:
     """The scheme of each column that has one, in the order they must be checked.
 
     *relation* and *scheme* are what the user states (a text or a list of
     texts each): those columns are checked against them and nothing else.
+    *model* forces the model of function columns (``audit/functions``).
     """
     chosen: dict[str, Scheme] = _stated(frame, relation, scheme)
     stated = set(chosen.values())
@@ -126,6 +127,9 @@ def detect_schemes(frame: Frame, relation=None, scheme=None) -> list[Scheme]:
         if current is None or scheme.support > current.support:
             chosen[scheme.column] = scheme
     _step_differences(frame, chosen)
+    # Tables of computed functions (chords, declinations, ...): audit/functions/.
+    from .functions import fit_functions
+    fit_functions(frame, chosen, model=model, keep={s.column for s in stated})
     return _ordered(chosen, stated)
 
 

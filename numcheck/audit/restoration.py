@@ -56,6 +56,8 @@ def restore_cells(table: Table, frame: Frame, pending: list[Pending], top: int =
             due = (due - offset) % 360
         expected_text = table.columns[p.column].write(p.index, frame.fraction(p.expected))
         reason = f"the {p.scheme.kind} scheme of column {p.column} ({expected_text} here)"
+        # a computed function is known only to the table's precision (audit/functions)
+        tol = getattr(p.scheme, "restore_tolerance", Fraction(0))
         free = cell.floating or p.scheme.kind == "reciprocal"
         if free and cell.reading is not None:
             # a floating value (an igi) is due at every magnitude the traces allow
@@ -66,14 +68,14 @@ def restore_cells(table: Table, frame: Frame, pending: list[Pending], top: int =
             if not cands:
                 cands = _candidates(cell, due, reason, top)
         else:
-            cands = _candidates(cell, due, reason, top)
-        fitting = [c for c in cands if c[1] == due or (free and _same_digits(c[1], due))]
+            cands = _candidates(cell, due, reason, top, tol)
+        fitting = [c for c in cands if abs(c[1] - due) <= tol or (free and _same_digits(c[1], due))]
         if not fitting:
             misfits.append((p, expected_text))
             continue
         for text, value, prob, reasons in cands:
             shown = f"{text} {cell.sign_name}" if cell.sign_name else text
-            extra = p.notes if value == due else []
+            extra = p.notes if abs(value - due) <= tol else []
             out.append(Restoration(p.index, p.column, shown, value + offset, prob,
                                    list(reasons) + extra, expected_text))
     return out, misfits
@@ -96,7 +98,7 @@ def _same_digits(a: Fraction, b: Fraction) -> bool:
     return mantissa(a) == mantissa(b)
 
 
-def _candidates(cell, due: Fraction, reason: str, top: int):
+def _candidates(cell, due: Fraction, reason: str, top: int, tolerance=Fraction(0)):
     reading = cell.reading
     if reading is None:
         return []
@@ -105,7 +107,7 @@ def _candidates(cell, due: Fraction, reason: str, top: int):
     except ImportError:
         return _direct(reading, due, reason)
     try:
-        result = restore(reading, context=[Evidence(value=due, tolerance=Fraction(0),
+        result = restore(reading, context=[Evidence(value=due, tolerance=tolerance,
                                                     weight=SCHEME_WEIGHT, label=reason)],
                          use_catalogue=False, top=top)
     except Exception:

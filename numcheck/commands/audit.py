@@ -26,6 +26,12 @@ def add_arguments(parser) -> None:
                              "(numcheck catalogue lists the periods; the schemes are in "
                              "numcheck/data/schemes.csv; may be given more than once)")
     parser.add_argument("--columns", "-c", help="the columns to audit, comma-separated (others are left out)")
+    parser.add_argument("--model", "-m", help="the model of the function columns: chord, sine, cosine, "
+                        "versine, declination, right-ascension, oblique-ascension, equation, shadow, "
+                        "daylight; or per column, 'B=sine,C=declination' (chosen automatically when left out)")
+    parser.add_argument("--join", "-j", action="append", metavar="NAME=A,B,C",
+                        help="read columns A, B, C (one sexagesimal place each) as one number in a "
+                             "column NAME; repeat for several (headers x°, x′, x″ join by themselves)")
     parser.add_argument("--plot", metavar="OUT.png|svg", help="write a plot of each checked column")
     parser.add_argument("--report", metavar="OUT.html", help="write a self-contained HTML report "
                         "(for a folder: the folder to write the reports to)")
@@ -37,6 +43,11 @@ def add_arguments(parser) -> None:
 
 def run(args, console) -> dict:
     path = Path(args.file)
+    if args.model or args.join:   # a bad name or join fails once, before any file is read
+        from ..audit.functions import parse_models
+        from ..tables.join import parse_join
+        parse_models(args.model)
+        parse_join(args.join)
     if path.is_dir():
         return _folder(args, path, console)
     from ..audit import audit
@@ -51,7 +62,7 @@ def run(args, console) -> dict:
 
     with busy(console, f"auditing {path.name}"):
         result = audit(path, notation=args.notation, relation=args.relation, columns=columns,
-                       scheme=args.scheme)
+                       scheme=args.scheme, model=args.model, join=args.join)
     from .. import report
 
     written = {}
@@ -81,7 +92,7 @@ def _folder(args, path: Path, console) -> dict:
         raise NumcheckError(f"{str(path)!r} is a folder: auditing folders needs numcheck.batch, "
                             "which is not installed.") from err
     out = audit_folder(path, report_dir=args.report, notation=args.notation, relation=args.relation,
-                       scheme=args.scheme)
+                       scheme=args.scheme, model=args.model, join=args.join)
     if console is not None:
         from ..report.layout import Sheet, note
 

@@ -25,6 +25,7 @@ import textwrap
 from fractions import Fraction
 
 from ._common import KEY, display_name, numbering_columns, write_output
+from .function_plot import draw_function, is_function
 
 __all__ = ["plot_bytes", "write_plot", "residuals", "sexagesimal_tick"]
 
@@ -141,6 +142,10 @@ def plot_bytes(result, fmt: str = "png") -> bytes:
     pending = []    # labels are placed once the axes have their final size
     for k, name in enumerate(names):
         scheme = schemes.get(name)
+        function = next((s for s in result.schemes if s.column == name and is_function(s)), None)
+        if function is not None:   # a computed function: its residuals (report/function_plot.py)
+            draw_function(fig.add_subplot(len(names), 1, k + 1), result, function, by_col.get(name, []))
+            continue
         ax = fig.add_subplot(len(names), 2, 2 * k + 1)
         written = frame.written.get(name, [])
         pts = [(i + 1, float(frame.fraction(v))) for i, v in enumerate(written) if v is not None]

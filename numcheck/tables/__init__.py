@@ -13,6 +13,7 @@ from pathlib import Path
 from ..errors import NumcheckError
 from .cells import ZODIAC, Cell, Column, ColumnReading, Table, build_table, read_column, sign_index
 from .frame import frame_rows, is_dataframe
+from .join import join_columns
 from .text import read_text_file, split_text
 
 __all__ = ["read_table", "read_column", "ColumnReading", "Table", "Column", "Cell", "split_text",
@@ -23,12 +24,14 @@ __all__ = ["read_table", "read_column", "ColumnReading", "Table", "Column", "Cel
 TEI_SUFFIXES = (".xml",)
 
 
-def read_table(table, *, notation: str | None = None, columns=None) -> Table:
+def read_table(table, *, notation: str | None = None, columns=None, join=None) -> Table:
     """Read *table* (a path to a TSV/CSV/aligned text or TEI file, or a DataFrame) into a Table.
 
     *notation* is the notation of every cell (read from the characters, and
     in TEI from ``xml:lang``, when None).  *columns* limits the audit to those
     header names (the others, e.g. month names, are not read as numbers).
+    *join* makes several columns one number (``"crd=A,B,C"``, see
+    ``tables/join.py``; headers ``x°``, ``x′``, ``x″`` are joined by themselves).
     Errors name the row and the column.
     """
     if notation is not None:
@@ -50,4 +53,5 @@ def read_table(table, *, notation: str | None = None, columns=None) -> Table:
     else:
         raise NumcheckError(f"Expected a path to a table or a pandas DataFrame, got "
                             f"{type(table).__name__}.")
+    header, rows = join_columns(header, rows, join, source=source)
     return build_table(header, rows, notation=notation, columns=columns, source=source)

@@ -106,6 +106,14 @@ class Column:
         usual = Counter(c.places for c in self.cells if c.value is not None).most_common(1)
         return usual[0][0] if usual else 0
 
+    @functools.cached_property
+    def whole_in_one_place(self) -> bool:
+        """The whole part is written as one number, even above 59 (Ptolemy's 115;2,44, Indian 3438)."""
+        plain = [c for c in self.cells if c.value is not None]
+        return bool(plain) and self.notation == "sexagesimal" and not self.longitude and all(
+            c.whole_places == 1 and "," not in c.text.split(";")[0] for c in plain) and any(
+            abs(c.value) >= 60 for c in plain)
+
     def write(self, index: int, value: Fraction) -> str:
         """*value* as the scribe of this column would write it in row *index* (0-based).
 
@@ -115,17 +123,28 @@ class Column:
         """
         from ..slips import write_value
         cell = self.cells[index]
-        return write_value(value, notation=cell.notation,
+        text = write_value(value, notation=cell.notation,
                            places=self.usual_places if self.final_zeros else 0,
                            floating=cell.floating, sign_name=cell.sign_name,
-                           longitude=self.longitude, decimal_whole=self.decimal_whole,
+                           longitude=self.longitude,
                            separator=" " if " " in cell.text.strip() and "," not in cell.text else ",")
+        if self.whole_in_one_place and not cell.floating:
+            v = Fraction(value)
+            whole = abs(v.numerator) // v.denominator
+            sign = "-" if v < 0 else ""
+            _, semi, tail = text.partition(";")
+            text = f"{sign}{whole}" + (f";{tail}" if semi else "")
+        if cell.notation == "greek" and "ō" in text and self.zero_sign != "ō":
+            text = text.replace("ō", self.zero_sign)   # the zero sign this column writes
+        return text
 
     @functools.cached_property
-    def decimal_whole(self) -> bool:
-        """Whether the column writes whole parts of 60 or more in decimal (a day count 365;15)."""
-        return any(c.whole_places == 1 and c.value is not None and not c.floating and abs(c.value) >= 60
-                   and c.notation == "sexagesimal" for c in self.cells)
+    def zero_sign(self) -> str:
+        """The Greek zero sign the column's cells write (𐆊 or ō)."""
+        for c in self.cells:
+            if "𐆊" in c.text:
+                return "𐆊"
+        return "ō"
 
 
 @dataclass
@@ -303,7 +322,7 @@ def _fast(row, column, number, notation, text) -> Cell | None:
     first = True
     for p in whole.split(","):
         d = int(p)
-        if d > 59 and not (first and "," not in whole and frac):
+        if d > 59 and not (first and "," not in whole and (frac or notation == "sexagesimal")):
             return None  # let the reader give its own message (or another notation)
         total = total * 60 + d
         first = False
