@@ -55,6 +55,7 @@ class BatchResult:
             "damaged": sum(f.get("damaged", 0) for f in ok),
             "flagged": sum(f.get("flagged", 0) for f in ok),
             "restored": sum(f.get("restored", 0) for f in ok),
+            "unreadable": sum(f.get("unreadable", 0) for f in ok),
         }
 
     def to_dict(self) -> dict:
@@ -132,8 +133,11 @@ def _annotate_one(job: tuple) -> dict:
         entry["error"] = str(err)
         return entry
     d = result.to_dict()
-    entry.update({k: d[k] for k in ("numbers", "damaged", "flagged", "restored", "statuses")})
+    entry.update({k: d[k] for k in ("numbers", "damaged", "flagged", "restored", "unreadable",
+                                    "statuses")})
     entry["contradictions"] = [n for n in d["nums"] if n["status"] in ("contradiction", "fixed")]
+    # A number that cannot be read is listed with its place; the file was still annotated.
+    entry["unreadable_nums"] = [n for n in d["nums"] if n["status"] == "unreadable"]
     if d["notes"]:
         entry["notes"] = d["notes"]
     return entry
@@ -189,6 +193,7 @@ def _audit_one(job: tuple) -> dict:
         "damaged": damaged,
         "flagged": len(flags),
         "restored": len({(r.get("row"), r.get("column")) for r in restorations}),
+        "unreadable": len(d.get("unreadable", [])),
         "schemes": d.get("schemes", []),
         "flags": flags,
         "restorations": restorations,

@@ -67,13 +67,49 @@ BAD = [
     ("A\tB\n1\t2\n3\n", ["Row 2", "ragged"], "ragged rows"),
     ("", ["empty"], "an empty file"),
     ("A\tB\n", ["no data rows"], "a header and nothing else"),
-    ("A\tB\n1\t2\nNisannu\t3\n", ["Row 2", "'A'", "Nisannu"], "a column of text"),
     ("A\tB\n1;30\t2\n1;30 Libra\t3\n", ["Column 'A'", "row 1"], "a longitude beside plain numbers"),
     ("29;31,20\t1\n29;49,20\t2\n", ["header"], "a header missing"),
     ("A\tA\n1\t2\n", ["twice"], "a column named twice"),
-    ("A\tB\n1\t\n", ["Row 1", "'B'", "empty"], "an empty cell"),
-    ("A\tB\n1;30\t2\n31;0 Libra\t3\n", ["Row 2"], "more than 30 degrees within a sign"),
 ]
+
+#: One bad cell is no reason to refuse the table: it is listed under
+#: "unreadable" (row, column, text, message) and the audit goes on (issue 14).
+UNREADABLE = [
+    # (file text, (row, column, text), words the message must contain, note)
+    ("A\tB\n1\t2\nNisannu\t3\n4\t4\n", (2, "A", "Nisannu"), ["Row 2", "'A'", "Nisannu"],
+     "a word among numbers"),
+    ("A\tB\n1\t1\n2\t\n3\t3\n", (2, "B", ""), ["Row 2", "'B'", "empty"], "an empty cell"),
+    ("A\tB\n1;30\t2\n31;0 Libra\t3\n2;30\t4\n", (2, "A", "31;0 Libra"), ["Row 2", "30 degrees"],
+     "more than 30 degrees within a sign"),
+]
+
+
+@pytest.mark.parametrize("text, cell, words, note", UNREADABLE)
+def test_an_unreadable_cell_is_listed_and_the_audit_goes_on(tmp_path, text, cell, words, note):
+    path = _write(tmp_path, "odd.tsv", text)
+    out = audit(path).to_dict()
+    (u,) = out["unreadable"]
+    assert (u["row"], u["column"], u["text"]) == cell, note
+    for w in words:
+        assert w in u["message"], (note, u["message"])
+    assert not any(f["row"] == cell[0] and f["column"] == cell[1] for f in out["flags"]), note
+
+
+def test_the_scheme_is_fitted_on_the_cells_that_read(tmp_path):
+    # A constant difference of 0;10 with one cell typed with a letter O for a zero.
+    path = _write(tmp_path, "o.tsv", "A\n1;0\n1;10\n1;20\n1;3O\n1;40\n1;50\n2;0\n")
+    out = audit(path).to_dict()
+    assert [(u["row"], u["text"]) for u in out["unreadable"]] == [(4, "1;3O")]
+    (scheme,) = out["schemes"]
+    assert (scheme["kind"], scheme["params"]["d"]["value"]) == ("linear", "1/6")
+    assert out["flags"] == []
+
+
+def test_a_column_of_names_is_left_out(tmp_path):
+    path = _write(tmp_path, "names.tsv", "month\tA\nNisannu\t1\nAyyaru\t2\nSimanu\t3\n")
+    out = audit(path).to_dict()
+    assert out["columns"] == ["A"] and out["unreadable"] == []
+    assert [c["column"] for c in out["left_out"]] == ["month"]
 
 
 @pytest.mark.parametrize("text, words, note", BAD)
@@ -114,8 +150,9 @@ def test_columns_option_leaves_text_columns_out():
     df = pd.DataFrame({"month": ["Nisannu", "Ayyaru", "Simanu", "Duzu"], "A": ["1", "2", "3", "4"]})
     r = audit(df, columns=["A"])
     assert [s.kind for s in r.schemes] == ["linear"]
-    with pytest.raises(NumcheckError, match="month"):
-        audit(df)
+    # Without columns=, a column of names is left out (and said so), not an error.
+    left = audit(df).to_dict()["left_out"]
+    assert [c["column"] for c in left] == ["month"] and "month" in left[0]["message"]
 
 
 def test_unknown_column_in_relation_or_columns():

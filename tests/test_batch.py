@@ -48,7 +48,7 @@ def test_annotate_folder_summary(xml_folder, tmp_path):
     assert sorted(files) == ["a.xml", "broken.xml", "sub/b.xml"]
     assert "malformed XML" in files["broken.xml"]["error"]
     assert result.summary == {"files": 3, "failed": 1, "skipped": 0, "numbers": 3,
-                              "damaged": 1, "flagged": 1, "restored": 0}
+                              "damaged": 1, "flagged": 1, "restored": 0, "unreadable": 0}
     b = etree.parse(str(out / "sub" / "b.xml")).find(f".//{{{TEI_NS}}}num")
     assert (b.get("atLeast"), b.get("atMost")) == ("10", "19")
     assert not (out / "broken.xml").exists()

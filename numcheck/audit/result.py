@@ -104,6 +104,10 @@ class AuditResult:
             "flags": self.flags,
             "restorations": [r.to_dict() for r in self.restorations],
             "unchecked": list(self.unchecked),
+            # Cells that cannot be read (row, column, text, message): the audit
+            # went on without them, as if they were lost.
+            "unreadable": self.table.unreadable,
+            "left_out": [{"column": k, "message": v} for k, v in self.table.left_out.items()],
             "table_notes": list(getattr(self.table, "notes", [])),
             "note": SUGGESTION,
         }

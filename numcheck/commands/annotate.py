@@ -23,7 +23,8 @@ def add_arguments(parser) -> None:
                         help="add the K best restorations of each damaged number as "
                              "<certainty locus=\"value\" assertedValue=.. degree=..> (EpiDoc)")
     parser.add_argument("--fix", action="store_true",
-                        help="replace an existing @value that the letters contradict (default: report it)")
+                        help="replace an existing @value that no reading of the letters allows "
+                             "(default: report it); a value any valid reading gives is never changed")
     parser.add_argument("--notation", "-n", help="the notation of the numbers (detected when left out)")
     parser.add_argument("--workers", type=int, default=None,
                         help="processes for a folder of many files (default 2)")
@@ -87,21 +88,21 @@ def _show_file(out: dict, console) -> None:
     from ..report.layout import Sheet, note
 
     note(console, f"numcheck annotate  {out['input']}", "bold")
-    # "line" is the text's own line (the last <lb n>, or the row of a table);
-    # "xml" the line of the file, for finding the <num> in an editor.
-    has_text_lines = any(n.get("text_line") for n in out["nums"])
-    cols = ([("line", "key")] if has_text_lines else []) + [
-        ("xml", "number"), ("as read", "key"), ("notation", "key"), ("value", "text"), ("status", "key")]
+    # "#" counts the <num> of the file; "line" is the text's own line (the <lb n>
+    # before it), with its <div> when that is not the edition.
+    has_text_lines = any(n.get("text_line") is not None for n in out["nums"])
+    cols = [("#", "number")] + ([("line", "key")] if has_text_lines else []) + [
+        ("as read", "key"), ("notation", "key"), ("value", "text"), ("status", "key")]
     table = Sheet(console, cols)
-    style = {"contradiction": "red", "fixed": "yellow", "range-added": "cyan"}
-    # A long file: list what needs the editor (damaged, contradicted), not every number.
+    style = {"contradiction": "red", "fixed": "yellow", "range-added": "cyan", "unreadable": "red",
+             "not-checkable": "magenta", "word": "blue"}
+    # A long file: list what needs the editor (damaged, contradicted, unread), not every number.
     shown = out["nums"] if len(out["nums"]) <= _LIST_ALL else [
-        n for n in out["nums"] if n["damaged"] or n["status"] in ("contradiction", "fixed")]
+        n for n in out["nums"] if n["damaged"] or n["status"] not in ("agrees", "value-added")]
     for n in shown:
-        value = _exact(n["value"]) if "value" in n else f"{_exact(n['atLeast'])} to {_exact(n['atMost'])}"
         status = n["status"]
-        cells = ([n.get("text_line") or ""] if has_text_lines else []) + [
-            str(n["line"] or ""), n["text"], n["notation"], value, (status, style.get(status))]
+        cells = [str(n["index"])] + ([_text_line(n)] if has_text_lines else []) + [
+            n["text"], n["notation"], _value(n), (status, style.get(status))]
         table.row(*cells)
     table.print()
     if len(shown) < len(out["nums"]):
@@ -110,7 +111,8 @@ def _show_file(out: dict, console) -> None:
     for n in out["nums"]:
         where = _where(n)
         if n.get("message"):
-            note(console, f"{where}: {n['message']}", "red")
+            colour = "red" if n["status"] in ("contradiction", "unreadable", "fixed") else "blue"
+            note(console, f"{where}: {n['message']}", colour)
         if n.get("alternatives"):
             alts = ", ".join(f"{a['text']} = {a['value']} ({a['probability']:.0%})"
                              for a in n["alternatives"])
@@ -119,18 +121,36 @@ def _show_file(out: dict, console) -> None:
         note(console, f"note: {msg}", "yellow")
     where = f"written to {out['output']}" if out["output"] else "nothing written (no -o given)"
     note(console, f"{out['numbers']} numbers, {out['damaged']} damaged, {out['flagged']} contradicted "
-                  f"by their letters, {out['restored']} with restorations; {where}.")
+                  f"by their letters, {out.get('unreadable', 0)} unreadable, {out.get('words', 0)} in "
+                  f"words, {out['restored']} with restorations; {where}.")
 
 
 def _where(n: dict) -> str:
-    """Where a <num> is, for a reader: the text's line and the file's.
+    """Where a <num> is, for a reader: its place in the file, the text's line, else the XML line.
 
-    >>> _where({"line": 26, "text_line": "4"}), _where({"line": 26})
-    ('line 4 (xml line 26)', 'xml line 26')
+    >>> _where({"index": 3, "line": 26, "text_line": "4"}), _where({"index": 3, "line": 26})
+    ('<num> 3 (line 4)', '<num> 3 (XML line 26)')
     """
-    if n.get("text_line"):
-        return f"line {n['text_line']} (xml line {n['line']})"
-    return f"xml line {n['line']}"
+    line = _text_line(n)
+    return f"<num> {n.get('index', '')} ({'line ' + line if line else 'XML line ' + str(n['line'])})"
+
+
+def _text_line(n: dict) -> str:
+    if n.get("text_line") is None:
+        return ""
+    return f"{n['text_line']}" + (f" ({n['div']})" if n.get("div") and n["div"] != "edition" else "")
+
+
+def _value(n: dict) -> str:
+    if "value" in n:
+        return _exact(n["value"])
+    if "atLeast" in n or "atMost" in n:
+        lo = _exact(n["atLeast"]) if "atLeast" in n else "…"
+        hi = _exact(n["atMost"]) if "atMost" in n else "…"
+        return f"{lo} to {hi}"
+    if n.get("existing", {}).get("value"):
+        return f"{n['existing']['value']} (the editor's)"
+    return ""
 
 
 def _exact(text: str) -> str:
@@ -155,20 +175,22 @@ def show_batch(out: dict, console, kind: str) -> None:
 
     note(console, f"numcheck {kind}  {out['folder']}", "bold")
     table = Sheet(console, [("file", "key"), ("numbers", "number"), ("damaged", "number"),
-                            ("flagged", "number"), ("restored", "number"), ("note", "text")])
+                            ("flagged", "number"), ("unreadable", "number"), ("restored", "number"),
+                            ("note", "text")])
     for f in out["files"]:
         if "error" in f:
-            table.row(f["file"], "", "", "", "", ("not read (see below)", "red"))
+            table.row(f["file"], "", "", "", "", "", ("not read (see below)", "red"))
         elif "skipped" in f:
-            table.row(f["file"], "", "", "", "", "skipped (see below)")
+            table.row(f["file"], "", "", "", "", "", "skipped (see below)")
         else:
             table.row(f["file"], str(f.get("numbers", 0)), str(f.get("damaged", 0)),
-                      str(f.get("flagged", 0)), str(f.get("restored", 0)), "")
+                      str(f.get("flagged", 0)), str(f.get("unreadable", 0)),
+                      str(f.get("restored", 0)), "")
     s = out["summary"]
     table.section()
     files = f"{s['files']} file{'s' if s['files'] != 1 else ''}"
-    table.row(files, str(s["numbers"]), str(s["damaged"]), str(s["flagged"]), str(s["restored"]),
-              f"{s['failed']} failed, {s.get('skipped', 0)} skipped", style="bold")
+    table.row(files, str(s["numbers"]), str(s["damaged"]), str(s["flagged"]), str(s.get("unreadable", 0)),
+              str(s["restored"]), f"{s['failed']} failed, {s.get('skipped', 0)} skipped", style="bold")
     table.print()
     for f in out["files"]:
         if "error" in f:

@@ -80,6 +80,7 @@ def run(args, console) -> dict:
         from ..report.layout import note
         for table_note in out.get("table_notes", []):
             note(console, f"note: {table_note}", "yellow")
+        _show_unreadable(out, console)
         for what, where in written.items():
             console.print(f"{what} written to {where}")
     return out
@@ -110,3 +111,18 @@ def _folder(args, path: Path, console) -> dict:
         if out.get("index"):
             note(console, f"reports: {out['index']}")
     return out
+
+
+def _show_unreadable(out: dict, console) -> None:
+    """The cells the audit could not read, and the columns it left out."""
+    from ..report.layout import note
+
+    for u in out.get("unreadable", []):
+        note(console, f"unreadable: row {u['row']}, column {u['column']} ({u['text']}): {u['message']}",
+             "red")
+    for c in out.get("left_out", []):
+        note(console, f"left out: {c['message']}", "yellow")
+    if out.get("unreadable"):
+        n = len(out["unreadable"])
+        note(console, f"{n} cell{'s' if n != 1 else ''} could not be read; the audit went on with "
+                      "the others (an unreadable cell counts as lost).")

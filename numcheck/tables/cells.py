@@ -72,6 +72,7 @@ class Cell:
     whole_places: int = 1
     reading: Reading | None = None
     sign_name: str | None = None  # a longitude: the sign named in the cell
+    unreadable: str | None = None  # why the text cannot be read (the cell then counts as lost)
 
     @property
     def value(self) -> Fraction | None:
@@ -149,15 +150,27 @@ class Column:
 
 @dataclass
 class Table:
-    """A table read into columns of cells."""
+    """A table read into columns of cells.
+
+    A cell that cannot be read is kept as a lost cell and listed in
+    :attr:`unreadable`; a column none of whose cells reads as a number (names,
+    notes) is left out, with the reason, in :attr:`left_out`.
+    """
 
     columns: dict[str, Column]
     nrows: int
     source: str = "<table>"
     header: list[str] = field(default_factory=list)
+    left_out: dict[str, str] = field(default_factory=dict)
     #: How cells whose text allows two readings were decided by their column
     #: (:mod:`numcheck.tables.settle`).
     notes: list[str] = field(default_factory=list)
+
+    @property
+    def unreadable(self) -> list[dict]:
+        """Every cell that cannot be read: row, column, text and the reason."""
+        return [{"row": c.row, "column": c.column, "text": c.text, "message": c.unreadable}
+                for col in self.columns.values() for c in col.cells if c.unreadable]
 
 
 def _nfc(text: str) -> str:
@@ -213,13 +226,24 @@ def build_table(header, rows, *, notation, columns, source) -> Table:
                 raise UnknownNameError("column", name, header)
         wanted = [h for h in header if h in columns]
     cols: dict[str, Column] = {}
+    left_out: dict[str, str] = {}
     notes: list[str] = []
     for name in wanted:
         j = header.index(name)
         cells = [_cell(i, name, r[j], notation, source) for i, r in enumerate(rows, start=1)]
+        if all(c.unreadable for c in cells):
+            # A column of names or notes, not numbers: the audit goes on without it.
+            left_out[name] = (f"no cell of column {name!r} reads as a number (row 1: "
+                              f"{cells[0].unreadable}); the column was left out")
+            continue
         cols[name] = _column(name, cells, source)
         notes += settle_column(cols[name], source, _settled_cell)
-    return Table(columns=cols, nrows=len(rows), source=source, header=list(header), notes=notes)
+    if not cols:
+        first = next(iter(left_out.values()), "no column to audit")
+        raise NumcheckError(f"No column of {source} reads as numbers: {first}. Give the "
+                            "notation (--notation) or the columns to audit (--columns).")
+    return Table(columns=cols, nrows=len(rows), source=source, header=list(header),
+                 left_out=left_out, notes=notes)
 
 
 @dataclass
@@ -248,7 +272,7 @@ def read_column(name: str, texts, *, notation: str | None = None, source: str = 
         if not text:
             continue
         try:
-            cells.append(_cell(row, name, text, notation, source))
+            cells.append(_read_cell(row, name, text, notation, source))
         except NumcheckError as err:
             errors[row] = str(err)
     column = Column(name=name, cells=cells, notation=notation or (cells[0].notation if cells else "sexagesimal"))
@@ -272,6 +296,15 @@ def _looks_numeric(name: str) -> bool:
 
 
 def _cell(row: int, column: str, text: str, notation, source) -> Cell:
+    """One cell; a text that cannot be read gives a lost cell that says why."""
+    try:
+        return _read_cell(row, column, text, notation, source)
+    except NumcheckError as err:
+        return Cell(row=row, column=column, text=text, notation=notation or "",
+                    unreadable=str(err).split("\n", 1)[0])
+
+
+def _read_cell(row: int, column: str, text: str, notation, source) -> Cell:
     if not text:
         raise NumcheckError(f"Row {row}, column {column!r} of {source} is empty. Write the "
                             "number, or mark a lost cell with '[...]'.")
@@ -354,18 +387,22 @@ def _from_reading(row, column, text, reading: Reading) -> Cell:
 
 def _column(name: str, cells: list[Cell], source: str) -> Column:
     kinds: dict[str, int] = {}
-    for c in cells:
+    read = [c for c in cells if not c.unreadable]
+    for c in read:
         kinds[c.notation] = kinds.get(c.notation, 0) + 1
     main = max(kinds, key=kinds.get)
+    for c in cells:
+        if c.unreadable:
+            c.notation = main
     if len(kinds) > 1:
-        odd = next(c for c in cells if c.notation != main)
+        odd = next(c for c in read if c.notation != main)
         raise NumcheckError(
             f"Column {name!r} of {source} mixes notations: row {odd.row} ({odd.text!r}) is "
             f"{odd.notation}, the rest of the column is {main}. Give --notation, or write the "
             "column in one notation.")
-    signs = sum(1 for c in cells if c.sign_name is not None)
-    if signs and signs != len(cells):
-        odd = next(c for c in cells if c.sign_name is None)
+    signs = sum(1 for c in read if c.sign_name is not None)
+    if signs and signs != len(read):
+        odd = next(c for c in read if c.sign_name is None)
         raise NumcheckError(
             f"Column {name!r} of {source} writes longitudes within named signs, but row "
             f"{odd.row} ({odd.text!r}) names no sign.")

@@ -1,5 +1,10 @@
 """TEI tables: a ``<table>`` of ``<row>`` and ``<cell>`` read like a TSV, for the audit.
 
+A table may also be written as lists, as some digital editions encode
+tables: ``<list rend="table">`` holding one ``<list rend="row">`` per row,
+whose ``<item>`` (or ``<label>``) children are the cells (TEI P5 §3.8 lists,
+with ``@rend`` naming the layout; common practice of such editions).
+
 Damage markup in a cell becomes Leiden text, so the audit reads the cell as
 it reads the same cell in a TSV.  The same reading lets ``annotate`` rank
 the restorations of a damaged ``<num>`` in a table by the table's scheme
@@ -12,9 +17,9 @@ import os
 from dataclasses import dataclass, field
 
 from ..tei.markup import (TEI_NS, NoTableError, TeiError, choose_notation, leiden_text, local_name,
-                       num_pieces, parse_tei, plain_text, tei_elements)
+                       num_pieces, parse_tei, plain_text)
 
-__all__ = ["TableCells", "table_frame", "table_to_dataframe"]
+__all__ = ["TableCells", "table_frame", "table_to_dataframe", "tei_tables", "is_table"]
 
 _XML_ID = "{http://www.w3.org/XML/1998/namespace}id"
 
@@ -41,13 +46,7 @@ def table_frame(el, path="<table>", notation: str | None = None) -> TableCells:
     rows: list[list[str]] = []
     row_cells: list[list] = []
     lines: list[int] = []
-    for row in el.iter(f"{{{TEI_NS}}}row"):
-        if _owner_table(row) is not el:
-            continue
-        cells = [c for c in row if local_name(c) == "cell"]
-        if not cells:
-            continue
-        is_label = row.get("role") == "label" or all(c.get("role") == "label" for c in cells)
+    for row, cells, is_label in _rows(el):
         if header is None and not rows and is_label:
             header = [plain_text(num_pieces(c)) or _default_name(i) for i, c in enumerate(cells)]
             continue
@@ -61,7 +60,8 @@ def table_frame(el, path="<table>", notation: str | None = None) -> TableCells:
         row_cells.append(cells)
         lines.append(row.sourceline)
     if not rows:
-        raise TeiError(path, el.sourceline, "the <table> has no data rows")
+        what = "<table>" if local_name(el) == "table" else '<list rend="table">'
+        raise TeiError(path, el.sourceline, f"the {what} has no data rows")
     width = max(len(r) for r in rows)
     if header is None:
         header = [_default_name(i) for i in range(width)]
@@ -87,9 +87,47 @@ def _default_name(i: int) -> str:
     return f"column {i + 1}"
 
 
+def is_table(el) -> bool:
+    """Whether *el* is a table: a ``<table>``, or a ``<list rend="table">``."""
+    name = local_name(el)
+    return name == "table" or (name == "list" and _rend(el) == "table")
+
+
+def _rend(el) -> str:
+    return (el.get("rend") or "").strip().lower()
+
+
+def _is_row_list(el) -> bool:
+    return local_name(el) == "list" and _rend(el) == "row"
+
+
+def tei_tables(root) -> list:
+    """Every table under *root* in document order: ``<table>`` and ``<list rend="table">``."""
+    return [el for el in root.iter(f"{{{TEI_NS}}}table", f"{{{TEI_NS}}}list") if is_table(el)]
+
+
+def _rows(el):
+    """(row element, its cells, whether it is a row of labels) for each row of the table *el*."""
+    if local_name(el) == "table":
+        candidates = (r for r in el.iter(f"{{{TEI_NS}}}row"))
+        cell_names = ("cell",)
+    else:
+        candidates = (r for r in el.iter(f"{{{TEI_NS}}}list") if _is_row_list(r))
+        cell_names = ("item", "label")
+    for row in candidates:
+        if _owner_table(row) is not el:
+            continue
+        cells = [c for c in row if local_name(c) in cell_names]
+        if not cells:
+            continue
+        is_label = (row.get("role") == "label" or (row.get("type") or "") in ("head", "label")
+                    or all(c.get("role") == "label" or local_name(c) == "label" for c in cells))
+        yield row, cells, is_label
+
+
 def _owner_table(el):
     parent = el.getparent()
-    while parent is not None and local_name(parent) != "table":
+    while parent is not None and not is_table(parent):
         parent = parent.getparent()
     return parent
 
@@ -105,7 +143,7 @@ def table_to_dataframe(path: str | os.PathLike, *, table: int | str = 0,
     one.
     """
     root = parse_tei(path)
-    tables = list(tei_elements(root, "table"))
+    tables = tei_tables(root)
     if isinstance(table, str):
         chosen = [t for t in tables if t.get(_XML_ID) == table]
         if not chosen:
@@ -116,7 +154,8 @@ def table_to_dataframe(path: str | os.PathLike, *, table: int | str = 0,
     else:
         if not tables:
             raise NoTableError(path, None, "no TEI <table> in this file (a table to audit needs "
-                                           "<table>, <row>, <cell>)")
+                                           "<table>, <row>, <cell>, or <list rend=\"table\"> "
+                                           "with <list rend=\"row\"> and <item>)")
         if not 0 <= table < len(tables):
             raise TeiError(path, None, f"asked for table {table + 1}, but the file has {len(tables)}")
         el = tables[table]

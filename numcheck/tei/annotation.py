@@ -12,7 +12,11 @@ per alternative.  Restorations are suggestions for the editor, ranked by
 numcheck's evidence, not readings.
 
 An existing ``@value`` that the letters contradict is reported, and only
-replaced with ``fix=True``.  The input is never opened for writing; the
+replaced with ``fix=True`` (never a value some valid reading of the letters
+gives).  A number numcheck cannot read is reported with its place and the
+reason (status ``unreadable``) and the rest of the file is still annotated;
+numbers in words and expansions are read from the sourced table of
+:mod:`.words`, or keep the editor's value.  The input is never opened for writing; the
 output is written atomically; everything else in the file stays as it was.
 """
 
@@ -32,11 +36,16 @@ from ..errors import LimitError, NumcheckError, NumcheckWarning
 from ..files import check_distinct, write_atomic
 from ..reader import read
 from ..reading import Reading, exact_text
-from .markup import (TEI_NS, TeiError, leiden_text, local_name, notation_hint, num_pieces,
-                       parse_tei, plain_text, read_bytes)
+from .expansions import empty_result, expansion_result, sign_result, words_result
+from .markup import (TEI_NS, TeiError, has_expansion, leiden_text, local_name, notation_hint,
+                     num_pieces, parse_tei, plain_text, read_bytes)
 from ..tables.tei import table_to_dataframe
 from .table_context import table_restorations
-from .values import decide, is_unit_fraction, unresolved
+from ..notations import NOTATIONS
+from .places import num_places
+from .values import (CERTAINTY_MATCHES, certainty_match, decide, is_unit_fraction,
+                     positive_range, unresolved)
+from .words import is_word, looks_like_words, read_words
 from .write import Edit, apply_edits, apply_edits_tree, decode_source, scan_elements
 
 __all__ = ["annotate", "annotate_bytes", "AnnotateResult", "NumResult", "TeiError",
@@ -44,14 +53,29 @@ __all__ = ["annotate", "annotate_bytes", "AnnotateResult", "NumResult", "TeiErro
 
 
 
+#: The statuses of a ``<num>``: what annotate found and did.
+STATUSES = {
+    "agrees": "the editor's value (or range) is one the letters, expansion or words give",
+    "value-added": "no value was given: numcheck added @value",
+    "range-added": "no value was given and damage leaves a range: numcheck added @atLeast/@atMost",
+    "contradiction": "the editor's value is not one the letters allow (reported, not changed)",
+    "fixed": "the editor's value was not one the letters allow and --fix replaced it",
+    "unreadable": "numcheck cannot read the number (the reason is given); nothing was changed",
+    "word": "a number written in words (inside the <num> or just before an empty one); "
+            "the editor's value is kept",
+    "not-checkable": "an expansion numcheck's table does not know and no letters to read: "
+                     "the editor's value is kept, not checked",
+}
+
+
 @dataclass
 class NumResult:
     """What annotate found and did for one ``<num>``."""
 
     line: int | None
-    text: str                       # the Leiden text built from the markup
+    text: str                       # the Leiden text built from the markup (or the words)
     notation: str
-    status: str                     # value-added, range-added, kept, contradiction, fixed
+    status: str                     # one of STATUSES
     value: Fraction | None = None   # the letters' exact value (undamaged or restored)
     at_least: Fraction | None = None
     at_most: Fraction | None = None
@@ -61,23 +85,29 @@ class NumResult:
     message: str = ""
     alternatives: list[dict] = field(default_factory=list)
     warnings: list[str] = field(default_factory=list)   # how the notation read odd letters
-    text_line: str | None = None    # the text's own line: the last <lb n>, or the <row>/<l> n
+    index: int = 0                  # 1-based position among the file's <num>
+    xpath: str = ""
+    text_line: str | None = None    # the @n of the <lb> before it
+    div: str | None = None          # the <div> it is in
+    read_from: str | None = None    # letters, expansion, words, words before; None: not read
+    expanded: bool = False          # the editor wrote part of it out (<ex>)
+    loose: tuple | None = None      # the range if each counted lacuna held fewer letters
 
     def to_dict(self) -> dict:
         # The text as numcheck read it (NFC): decomposed accents give the same JSON.
-        out = {"line": self.line, "text": unicodedata.normalize("NFC", self.text), "notation": self.notation,
-               "status": self.status, "damaged": self.damaged}
-        if self.text_line is not None:
-            out["text_line"] = self.text_line
+        out = {"index": self.index, "xpath": self.xpath, "line": self.line,
+               "text_line": self.text_line, "div": self.div,
+               "text": unicodedata.normalize("NFC", self.text), "notation": self.notation,
+               "status": self.status, "damaged": self.damaged, "read_from": self.read_from}
         if self.value is not None:
             out["value"] = exact_text(self.value)
         if self.at_least is not None:
             out["atLeast"] = exact_text(self.at_least)
+        if self.at_most is not None:
             out["atMost"] = exact_text(self.at_most)
         if self.unit_fraction:
             out["unit_fraction"] = True
-        if self.existing:
-            out["existing"] = dict(self.existing)
+        out["existing"] = dict(self.existing)
         if self.message:
             out["message"] = self.message
         if self.alternatives:
@@ -85,6 +115,17 @@ class NumResult:
         if self.warnings:
             out["warnings"] = list(self.warnings)
         return out
+
+    @property
+    def where(self) -> str:
+        """The place for a message: text line and division, then the XML line."""
+        bits = []
+        if self.text_line is not None:
+            bits.append(f"text line {self.text_line}")
+        if self.div:
+            bits.append(f"in {self.div}")
+        bits.append(f"<num> {self.index}, XML line {self.line}")
+        return ", ".join(bits)
 
 
 @dataclass
@@ -108,6 +149,14 @@ class AnnotateResult:
     def restored(self) -> int:
         return sum(1 for n in self.nums if n.alternatives)
 
+    @property
+    def unreadable(self) -> list[NumResult]:
+        return [n for n in self.nums if n.status == "unreadable"]
+
+    @property
+    def words(self) -> int:
+        return sum(1 for n in self.nums if n.status == "word")
+
     def to_dict(self) -> dict:
         counts: dict[str, int] = {}
         for n in self.nums:
@@ -119,6 +168,8 @@ class AnnotateResult:
             "damaged": self.damaged,
             "flagged": len(self.contradictions),
             "restored": self.restored,
+            "unreadable": len(self.unreadable),
+            "words": self.words,
             "statuses": counts,
             "nums": [n.to_dict() for n in self.nums],
             "notes": list(self.notes),
@@ -132,8 +183,8 @@ def annotate(in_path: str | os.PathLike, out_path: str | os.PathLike | None, *,
 
     With ``out_path=None`` nothing is written (a check only).  Raises
     :class:`~numcheck.errors.NumcheckError` naming the file and line for
-    malformed XML, a file that is not TEI, an empty or unreadable ``<num>``,
-    and an output path equal to the input.
+    malformed XML, a file that is not TEI, and an output path equal to the
+    input; a ``<num>`` that cannot be read is no error (status ``unreadable``).
     """
     if out_path is not None:
         check_distinct([in_path], out_path)
@@ -167,24 +218,19 @@ def annotate_bytes(data: bytes, name: str | os.PathLike = "<input>", *, alternat
         if damaged:
             in_tables = table_restorations(root, damaged, notation=notation, top=alternatives,
                                            notes=notes)
+    places = num_places(root)
     edits: dict[int, Edit] = {}
     results: list[NumResult] = []
-    problems: list[str] = []
     for el in nums:
-        try:
-            res, edit = _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of,
-                                      in_tables.get(id(el)))
-        except TeiError as err:
-            problems.append(str(err))
-            continue
+        res, edit = _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of,
+                                  in_tables.get(id(el)), places[id(el)])
         results.append(res)
         if edit is not None:
             edits[index_of[id(el)]] = edit
-    if problems:
-        shown = "\n".join(problems[:5])
-        more = f"\n... and {len(problems) - 5} more" if len(problems) > 5 else ""
-        raise TeiError(name, None, f"{len(problems)} <num> element(s) cannot be read; nothing was "
-                                   f"written:\n{shown}{more}")
+    unreadable = sum(1 for r in results if r.status == "unreadable")
+    if unreadable:
+        notes.append(f"{unreadable} of {len(results)} <num> could not be read (status "
+                     "'unreadable', each with its reason); the others were annotated")
     out = _write(data, root, elements, edits, notes)
     return out, AnnotateResult(str(name), None, results, notes)
 
@@ -205,37 +251,91 @@ def _line(el) -> int | None:
     return el.sourceline
 
 
-def _text_line(el) -> str | None:
-    """The line of the text a <num> stands on, as the edition numbers it.
-
-    The ``n`` of the last ``<lb/>`` before it, else of the ``<l>`` or table
-    ``<row>`` that holds it; None when the edition numbers no lines.
-    """
-    try:
-        lbs = el.xpath("preceding::*[local-name()='lb'][@n][1]/@n")
-        if lbs:
-            return str(lbs[0])
-        holders = el.xpath("ancestor::*[local-name()='l' or local-name()='row'][@n][1]/@n")
-        return str(holders[0]) if holders else None
-    except Exception:       # an element lxml cannot walk (a comment, a stand-in): no line
-        return None
-
-
-def _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of, from_table=None):
-    line = _line(el)
+def _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of, from_table,
+                  place):
+    """One ``<num>``: its result, and the edit to make (or None).  Never raises for the number."""
+    existing = {k: el.get(k) for k in ("value", "atLeast", "atMost") if el.get(k) is not None}
+    res = NumResult(_line(el), "", "", "agrees", existing=existing, index=place.index,
+                    xpath=place.xpath, text_line=place.text_line, div=place.div)
     pieces = num_pieces(el)
     plain = plain_text(pieces)
-    if not plain and not any(p.kind in ("lost", "illegible") for p in pieces):
-        raise TeiError(name, line, "a <num> with no text (nothing to read; an empty <num> "
-                                   "should hold the numeral as written, or be removed)")
-    reading, text = _read_num(el, name, line, pieces, plain, notation)
-    res = NumResult(line, text, reading.notation, "kept", damaged=reading.damaged,
-                    warnings=list(reading.warnings), text_line=_text_line(el))
+    has_letters = bool(plain) or any(p.kind in ("lost", "illegible") for p in pieces)
+    res.expanded = has_expansion(pieces)
+    if res.expanded and expansion_result(res, pieces, plain):
+        return res, None
+    if not has_letters:
+        inside = [c for c in el if local_name(c) and local_name(c) not in ("certainty", "note")]
+        if inside:
+            sign_result(res, inside)
+        else:
+            empty_result(res, el, pieces)
+        return res, None
+    if looks_like_words(plain) and (read_words(plain) is not None or is_word(plain)):
+        # ἕξ is the word six, not the letters ε and ξ; δίμοιρον is a word too.
+        words_result(res, plain)
+        return res, None
+    try:
+        reading, text = _read_num(el, name, res.line, pieces, plain, notation)
+    except NumcheckError as err:
+        if has_expansion(pieces):
+            expansion_result(res, pieces, plain, letters_failed=True)
+        elif looks_like_words(plain):
+            words_result(res, plain)
+        else:
+            res.status = "unreadable"
+            res.text = leiden_text(pieces, notation or "greek") if not plain else plain
+            res.notation = notation or ""
+            res.message = _reason(err)
+        return res, None
+    try:
+        return _annotate_reading(el, res, reading, text, fix, alternatives, restore_fn, index_of,
+                                 from_table, pieces)
+    except NumcheckError as err:
+        res.status = "unreadable"
+        res.message = _reason(err)
+        return res, None
+
+
+def _reason(err) -> str:
+    text = str(err)
+    # A TeiError repeats the file and XML line: the result has its own place.
+    if isinstance(err, TeiError) and ": " in text:
+        text = text.split(": ", 1)[1]
+    return text.split("\n", 1)[0]
+
+
+def _loose_range(pieces, reading, unit_fraction: bool):
+    """The range of the letters if each counted lacuna held fewer letters, or None.
+
+    An editor's count of lost letters may include a numeral sign or a space;
+    a value that fits a shorter lacuna is one ``--fix`` must not overwrite.
+    """
+    from .markup import Piece
+
+    if not any(p.kind in ("lost", "illegible") and p.count for p in pieces):
+        return None
+    loose = [Piece(p.kind, p.text, None) if p.kind in ("lost", "illegible") else p for p in pieces]
+    try:
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore", NumcheckWarning)
+            other = read(leiden_text(loose, reading.notation), notation=reading.notation)
+    except NumcheckError:
+        return None
+    lo, hi = other.min, other.max
+    if unit_fraction:
+        return (1 / hi, 1 / lo) if lo > 0 else None
+    return lo, hi
+
+
+def _annotate_reading(el, res, reading, text, fix, alternatives, restore_fn, index_of, from_table,
+                      pieces):
+    res.text, res.notation = text, reading.notation
+    res.damaged, res.warnings = reading.damaged, list(reading.warnings)
+    res.read_from = "letters"
+    existing = res.existing
     is_open = unresolved(reading)
-    lo, hi = reading.min, reading.max
+    lo, hi = positive_range(reading)
     exact = None if is_open else reading.value
-    existing = {k: el.get(k) for k in ("value", "atLeast", "atMost") if el.get(k) is not None}
-    res.existing = existing
     # A unit fraction is written with its denominator's letters (γʹ is 3 or
     # 1/3): EpiDoc puts 1/3 in @value and may say type="fraction".
     res.unit_fraction = is_unit_fraction(el, reading, existing)
@@ -245,22 +345,34 @@ def _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of, f
     res.value = exact
     if exact is None:
         res.at_least, res.at_most = lo, hi
+    if fix and reading.damaged:
+        res.loose = _loose_range(pieces, reading, res.unit_fraction)
     edit = Edit()
     decide(res, edit, existing, reading, exact, lo, hi, fix)
     if alternatives and restore_fn is not None and reading.count > 1:
         if from_table:
-            res.alternatives = _table_alternatives(from_table, alternatives, res.unit_fraction)
+            alts = _table_alternatives(from_table, alternatives, res.unit_fraction)
         else:
-            res.alternatives = _alternatives(restore_fn, reading, alternatives, res.unit_fraction)
-        old = [c for c in el if etree.QName(c).localname == "certainty"
-               and c.get("locus") == "value" and c.get("match") == "../@value"]
+            alts = _alternatives(restore_fn, reading, alternatives, res.unit_fraction)
+        # A lost numeral is never nothing: 0 is no restoration of a documentary number.
+        res.alternatives = [a for a in alts if Fraction(a["value"]) != 0]
+        final = {k for k in ("value", "atLeast", "atMost")
+                 if (k in existing and k not in edit.drop_attrs) or k in edit.set_attrs}
+        match = certainty_match(final)
+        old = [c for c in el if local_name(c) == "certainty"
+               and c.get("locus") == "value" and c.get("match") in CERTAINTY_MATCHES]
         edit.drop_children.extend(index_of[id(c)] for c in old)
-        for alt in res.alternatives:
-            edit.add_children.append(("certainty", {
-                "locus": "value", "match": "../@value",
-                "assertedValue": alt["value"], "degree": alt["degree"]}))
+        if match is not None:
+            for alt in res.alternatives:
+                edit.add_children.append(("certainty", {
+                    "locus": "value", "match": match,
+                    "assertedValue": alt["value"], "degree": alt["degree"]}))
     has_edit = edit.set_attrs or edit.drop_attrs or edit.add_children or edit.drop_children
     return res, (edit if has_edit else None)
+
+
+#: The Greek convention annotate reads with when no notation is given.
+DOCUMENTARY_GREEK = "greek-documentary"
 
 
 def _read_num(el, name, line, pieces, plain: str, notation: str | None):
@@ -283,11 +395,21 @@ def _read_num(el, name, line, pieces, plain: str, notation: str | None):
         if not candidates:
             raise TeiError(name, line, "a <num> with no legible letter and no xml:lang to tell "
                                        "its notation; give the notation (--notation)")
+    if notation is None:
+        # EpiDoc's numbers are mostly those of documentary papyri and
+        # inscriptions: read Greek with their conventions (a lone capital
+        # units letter is thousands).  --notation greek keeps every reading open.
+        candidates = [DOCUMENTARY_GREEK if c == "greek" and DOCUMENTARY_GREEK in NOTATIONS else c
+                      for c in candidates]
     first_error = None
     for chosen in candidates:
         text = leiden_text(pieces, chosen)
         try:
-            return read(text, notation=chosen), text
+            with warnings.catch_warnings():
+                # How odd letters were read is kept in reading.warnings, one
+                # per number, not raised once per <num> of a long file.
+                warnings.simplefilter("ignore", NumcheckWarning)
+                return read(text, notation=chosen), text
         except NumcheckError as err:
             if first_error is None:
                 first_error = (chosen, text, err)

@@ -32,6 +32,9 @@ __all__ = [
     "num_pieces",
     "leiden_text",
     "plain_text",
+    "word_text",
+    "text_before",
+    "has_expansion",
     "notation_hint",
     "choose_notation",
     "tei_elements",
@@ -44,6 +47,13 @@ TEI_NS = "http://www.tei-c.org/ns/1.0"
 #: (digit strings) write a lost digit as ``x`` (``5[x]``).  Roman uses dots
 #: because ``x`` is one of its letters.
 _DOT_NOTATIONS = {"greek", "greek-ascending", "attic", "roman", "abjad", "abjad-maghribi"}
+
+
+def _dots(notation: str) -> bool:
+    # Every Greek convention (greek-documentary, greek-astronomical ...) writes letters.
+    return notation in _DOT_NOTATIONS or notation.startswith("greek")
+
+
 #: Notations where an underdot is not a mark of doubt (cuneiform: ṣ, ṭ are
 #: letters; Arabic script: dots are part of the letters) and ``?`` is used.
 _QUERY_NOTATIONS = {"cuneiform", "abjad", "abjad-maghribi"}
@@ -164,8 +174,9 @@ class Piece:
 
     ``kind``: ``text`` (read), ``supplied`` (lost, restored by the editor),
     ``omitted`` (added by the editor), ``unclear`` (doubtful), ``surplus``
-    (superfluous), ``lost`` (``count`` letters lost, ``None`` = unknown) or
-    ``illegible`` (``count`` letters present but not read).
+    (superfluous), ``ex`` (letters the editor wrote out in an ``<expan>``:
+    not on the original), ``lost`` (``count`` letters lost, ``None`` =
+    unknown) or ``illegible`` (``count`` letters present but not read).
     """
 
     kind: str
@@ -235,6 +246,10 @@ def _walk(el, mode: str, out: list[Piece], top: bool = False) -> None:
             _walk(child, mode if mode != "text" else inner, out)
         elif name == "unclear":
             _walk(child, mode if mode != "text" else "unclear", out)
+        elif name == "ex":
+            # The editor's expansion, never letters of the original, whatever
+            # damage markup is around it (EpiDoc trans-abbrevsymbol).
+            _walk(child, "ex", out)
         elif name == "surplus":
             _walk(child, mode if mode != "text" else "surplus", out)
         else:  # hi, g, add, seg, num, expan, ex, c, w, reg, corr ...: their letters count
@@ -244,15 +259,37 @@ def _walk(el, mode: str, out: list[Piece], top: bool = False) -> None:
 
 
 def plain_text(pieces: list[Piece]) -> str:
-    """The letters the markup gives, without damage marks (for detecting the notation)."""
-    text = "".join(p.text for p in pieces if p.kind not in ("lost", "illegible"))
+    """The letters the markup gives, without damage marks (for detecting the notation).
+
+    The editor's expansions (``<ex>``) are not letters of the original and are left out.
+    """
+    text = "".join(p.text for p in pieces if p.kind not in ("lost", "illegible", "ex"))
     return " ".join(text.split())
+
+
+def has_expansion(pieces: list[Piece]) -> bool:
+    """Whether the editor wrote part of the content out (``<ex>``)."""
+    return any(p.kind == "ex" and p.text.strip() for p in pieces)
+
+
+def word_text(pieces: list[Piece]) -> str:
+    """The words the markup gives, the editor's expansions and restorations included.
+
+    A lost or unread stretch breaks the words (``…``); superfluous letters are left out.
+    """
+    parts = []
+    for p in pieces:
+        if p.kind in ("lost", "illegible"):
+            parts.append(" … ")
+        elif p.kind != "surplus":
+            parts.append(p.text)
+    return " ".join("".join(parts).split())
 
 
 def _lost_mark(notation: str, count: int | None) -> str:
     if count is None:
         return "[...]"
-    letter = "." if notation in _DOT_NOTATIONS else "x"
+    letter = "." if _dots(notation) else "x"
     if letter == "." and count == 3:
         # "[...]" is the sign for an unknown number of lost letters; three
         # counted letters are written one bracket each.
@@ -268,7 +305,7 @@ _UNREAD = {"greek": ".", "greek-ascending": ".", "attic": ".", "roman": "+"}
 def _unread_mark(notation: str, count: int | None) -> str:
     if count is None:
         return "[...]"
-    return _UNREAD.get(notation, "x") * count
+    return _UNREAD.get("greek" if notation.startswith("greek") else notation, "x") * count
 
 
 def _wrap_words(text: str, left: str, right: str) -> str:
@@ -300,8 +337,9 @@ def leiden_text(pieces: list[Piece], notation: str) -> str:
             parts.append(_lost_mark(notation, p.count))
         elif p.kind == "illegible":
             parts.append(_unread_mark(notation, p.count))
+        # "ex": the editor's expansion is not part of the numeral as written
     text = " ".join("".join(parts).split())
-    if notation not in _DOT_NOTATIONS:
+    if not _dots(notation):
         # Adjacent lost runs are one lacuna: "[x][5]" -> "[x5]".  Counted dots
         # stay apart, lest three of them read as the unknown-extent "[...]".
         text = text.replace("][", "")
@@ -348,3 +386,45 @@ def choose_notation(plain: str, el) -> str:
         return hint
     except NumcheckError:
         return detected
+
+
+#: Elements at which the words before an empty ``<num>`` stop being looked for.
+_TEXT_BLOCKS = {"ab", "p", "div", "body", "text", "l", "lg", "cell", "item", "seg", "head"}
+
+
+def text_before(el, max_chars: int = 200) -> str:
+    """The words written before *el* on its text line (for an empty ``<num value=".."/>``).
+
+    EpiDoc encodes a number written in words as the words followed by an
+    empty ``<num>`` that carries the value.  The text is gathered backwards
+    from *el* up to the line break (``<lb>``), another ``<num>``, the start
+    of the block, or *max_chars*; the markup is read as for a ``<num>``
+    (a ``<choice>`` gives its regularised member, restorations count).
+    """
+    parts: list[str] = []
+    size = 0
+    node = el
+    while node is not None and size < max_chars:
+        prev = node.getprevious()
+        if prev is None:
+            parent = node.getparent()
+            if parent is None:
+                break
+            parts.append(parent.text or "")
+            size += len(parent.text or "")
+            if local_name(parent) in _TEXT_BLOCKS:
+                break
+            node = parent
+            continue
+        parts.append(prev.tail or "")
+        name = local_name(prev)
+        if name in ("lb", "num", "cb", "pb"):
+            break
+        if name in ("gap", "space"):
+            parts.append(" … ")
+        elif name is not None and name not in _SKIP:
+            words = word_text(num_pieces(prev))
+            parts.append(words)
+            size += len(words)
+        node = prev
+    return " ".join("".join(reversed(parts)).split())

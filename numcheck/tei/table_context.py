@@ -8,8 +8,8 @@ than the number alone.
 from __future__ import annotations
 
 from ..errors import NumcheckError
-from ..tables.tei import table_frame
-from .markup import TEI_NS, tei_elements
+from ..tables.tei import table_frame, tei_tables
+from .markup import TEI_NS
 
 __all__ = ["table_restorations"]
 
@@ -28,7 +28,7 @@ def table_restorations(root, nums, *, notation: str | None = None, top: int = 3,
 
     wanted = {id(n): n for n in nums}
     out: dict[int, list] = {}
-    for el in tei_elements(root, "table"):
+    for el in tei_tables(root):
         inside = [n for n in el.iter(f"{{{TEI_NS}}}num") if id(n) in wanted]
         if not inside:
             continue
