@@ -59,9 +59,20 @@ SEEDS: dict[str | None, list[str]] = {
     "greek-documentary": ["Γ", "Αξδ", "'Αωϙγ", "ρκ 𐅵 δʹ", "ο"],
     "greek-astronomical": ["ο νθ η", "ο λβ γ", "Ϛ ∠ʹ", "ο ο ϛʹ"],
     "attic": ["Χ𐅅ΗΔΔΙΙ", "ΔΔΔΔΔ", "Χ[.]ΗΔΔΙΙ", "ΠΙ", "Π(Δ)ΙΙ"],
-    "roman": ["XII", "XIV", "X[.]", "MC[..]", "IIII[.]V", "CCXXX[.]", "iiij", "ↀↁ"],
+    "roman": ["XII", "XIV", "X[.]", "MC[..]", "IIII[.]V", "CCXXX[.]", "iiij", "ↀↁ", ".m.cc.lij.",
+              "CIↃCCCXX", "IↃↃ", ".x[.]v."],
+    "hebrew": ["תשצג", "ה׳תשפ״ג", "טו", "תש[.]ג", "ל מה", "{א}ב", "x ל"],
+    "aryabhata": ["khyughṛ", "cayagiyiṅuśuchlṛ", "khyu[.]", "kh[y]ughṛ", "kha?"],
+    "arabic-indic": ["١٥٧٧٩١٧٥٠٠", "٣٦٥؛١٤،٤٨", "٢٩;٣١,٥[x],٨,٢٠"],
+    "persian": ["۳۶۵;۱۴,۴۸", "۱[x]"],
+    "devanagari": ["१५७७९१७५००", "२९;३१,५[x],८,२०"],
     "abjad": ["{ب} نط", "ا {zero} ل", "ل [.]ه", "كط لا ن", "غكب"],
     "abjad-maghribi": ["كط لا ن", "ل [.]ه"],
+    "atf": ["1(gesz2) 3(u) 7(disz)", "2(u@c) 9(aš@c)", "1(u) la2 1(disz)", "igi-6(disz)-gal2",
+            "[1(u)] 9(disz)", "1(u@c)#?", "n(disz)", "4(ban2)# la2 1(asz@t)", "1(disz) 1/2(disz)",
+            "1.40", "1 ME 43", "2 1/2", "43.KAM₂", "7(disz) 1(u) 5(disz)", "[x] la₂ 1(aš@c)",
+            "2/3(disz) sila3 5(disz) gin2", "1(disz) gin2 la2 igi-6(disz)-gal2", "3(asz) sze gur"],
+    "atf-math": ["7(disz) 3(u)", "1.40", "9.30", "03", "3(u)", "1.[40]"],
     "quantity": ["2 bēru 10 UŠ", "3 signs 1[x];30°", "6585 days", "12;30 Taurus", "1[x] UŠ",
                  "6585 1/3 days", "3 signs 12;30°"],
 }
@@ -72,7 +83,10 @@ UNITS = [None, "days", "months", "years", "degrees", "signs", "UŠ", "us", "bēr
 ALPHABET = (
     "0123456789,;:. -+/°'\"[]<>{}()?x…nN·\u0323\u0305\u0304\u0301\u0300\u0374\u02b9\u0375"
     "αβγδεϛζηθικλμνξοπϙρστυφχψωϡ ΑΚΘΧΗΔΙΠΓΜ͵ʹ\U0001018A\U00010145\U00010146\U00010147"
-    "IVXLCDMivxlcdmjↀↁↂ"
+    "IVXLCDMivxlcdmjↀↁↂↃↄ·"
+    "אבגדהוזחטיכלמנסעפצקרשתךםןףץ׳״"
+    "٠١٢٣٤٥٦٧٨٩۰۱۴۵۶०१२३४५६७८९،؛"
+    "āīūṛṝḷṅñṭḍṇśṣkhgy"
     "ابجدهوزحطيكلمنسعفصقرشتثخذضظغپ"
     "𒁹𒌋𒐏𒐉𒐕𒀀"
     "oаеорсхΟ\u2329\u232a\u3008\u3009\ufeff\u200b\u200d\t\n\r\x00\x7f\ud7ff\ufffd"

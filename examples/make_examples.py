@@ -31,6 +31,10 @@ tablets, ostraca, places and scribes are invented (see examples/README.md).
   to two places; one slip.
 * ``tables/sines.tsv``  sines and cosines of a zij-style table, R = 60, to two
   places, for each degree; one slip in the cosines.
+* ``tablets/reciprocals.atf``  the reciprocal table above in ATF, Oracc's mathematical
+  style (``igi 9 gal₂-bi 6.40``), one line per pair; igi 9 miscopied as 6.50.
+* ``tablets/tablets.atf``  an (invented) ration list in CDLI-style ATF: counts with
+  sign names, units, a broken and a restored number.
 * ``editions/ostracon.xml``  a TEI/EpiDoc edition of an (invented) ostracon
   with three numbers on numbered lines, one letter lost.
 """
@@ -240,6 +244,37 @@ def sines_rows() -> list[list[str]]:
     return rows
 
 
+def _math_places(value: Fraction) -> str:
+    """A floating value in Oracc's mathematical style: places joined by '.', the later ones
+    two digits (``6.40``, ``1.04``)."""
+    digits = floating(value).split(",")
+    return ".".join([digits[0]] + [f"{int(d):02d}" for d in digits[1:]])
+
+
+def reciprocals_atf() -> str:
+    lines = [f"&X900101 = Tessarikon reciprocal table (invented)", f"# {HEADER}",
+             "#atf: use math", "@obverse"]
+    for k, n in enumerate(REGULAR, 1):
+        igi = _math_places(Fraction(1, n))
+        if n == 9:
+            igi = "6.50"                    # igi 9 is 6.40: one ten too many
+        lines.append(f"{k}. igi {_math_places(Fraction(n))} gal₂-bi {igi}")
+    return "\n".join(lines) + "\n"
+
+
+TABLETS = f"""&X900102 = Kiddimar ration list 1 (invented)
+# {HEADER}
+@obverse
+1. 5(disz) sila3 kasz
+2. 3(disz) sila3 ninda
+3. 2(u) 4(disz) sze gur
+@reverse
+1. [1(u)] 2(disz) sila3 i3
+2. 4(ban2) la2 1(asz@t) zi3
+3. [n(disz)] gin2 ku3-babbar
+"""
+
+
 OSTRACON = f"""<?xml version="1.0" encoding="UTF-8"?>
 <!-- {HEADER} -->
 <TEI xmlns="http://www.tei-c.org/ns/1.0" xml:lang="en">
@@ -276,6 +311,9 @@ def main() -> None:
          ["arc", "crd_d", "crd_m", "crd_s", "six_d", "six_m", "six_s", "six_t"], chords_rows())
     _tsv(HERE / "tables" / "declination.tsv", ["longitude", "declination"], declination_rows())
     _tsv(HERE / "tables" / "sines.tsv", ["A", "B", "C"], sines_rows())
+    (HERE / "tablets").mkdir(exist_ok=True)
+    (HERE / "tablets" / "reciprocals.atf").write_text(reciprocals_atf(), encoding="utf-8")
+    (HERE / "tablets" / "tablets.atf").write_text(TABLETS, encoding="utf-8")
     (HERE / "editions").mkdir(exist_ok=True)
     (HERE / "editions" / "ostracon.xml").write_text(OSTRACON, encoding="utf-8")
     print(f"wrote the examples to {HERE}")

@@ -9,6 +9,13 @@ the function, or set the module attribute before the call).
 MAX_TEXT_LENGTH = 4000
 #: Most places (or signs) in one number.
 MAX_PLACES = 60
+#: Most decimal digits in a lone whole place written in decimal (365 in 365;14,48,
+#: an Indian yuga's 1577917500 days, a line number).  Exact integers have no size
+#: limit of their own; this only keeps a pasted run of digits from being read as one number.
+MAX_WHOLE_PLACE_DIGITS = 40
+#: Most unread or lost digits (``x``, ``[x]``) in such a place: each one multiplies the
+#: readings by ten.
+MAX_WHOLE_PLACE_OPEN_DIGITS = 6
 #: An unknown number of lost places (``[...]``) stands for 1 to this many places.
 GAP_MAX_PLACES = 3
 #: Largest XML file read by ``annotate`` or as a TEI table (bytes).
@@ -17,6 +24,8 @@ MAX_XML_BYTES = 50_000_000
 MAX_XML_DEPTH = 200
 #: Most ``<num>`` elements annotated in one XML file.
 MAX_XML_NUMS = 200_000
+#: Most number words listed from one ATF file by ``annotate FILE.atf``.
+MAX_ATF_NUMBERS = 200_000
 #: Most files in one batch run (``annotate DIR``, ``audit DIR``).
 MAX_BATCH_FILES = 10_000
 #: Largest table file (TSV, CSV, aligned text) read by ``audit`` (bytes).

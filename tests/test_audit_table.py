@@ -180,3 +180,15 @@ def test_unknown_notation_is_named_before_any_cell():
     with pytest.raises(NumcheckError, match="Did you mean 'cuneiform'") as err:
         audit(pd.DataFrame({"A": ["1", "2"]}), notation="cuneifrom")
     assert "Row" not in str(err.value)
+
+
+def test_seven_digit_line_numbers_and_whole_places_are_read(tmp_path):
+    # No six-digit limit on a lone whole place, in the reader or the table's fast path.
+    from numcheck.tables.cells import _fast
+    assert _fast(1, "d", "1577917500;30", "sexagesimal", "1577917500;30").value == F(3155835001, 2)
+    path = tmp_path / "t.tsv"
+    path.write_text("line\tvalue\n" + "".join(f"{1000000 + i}\t1,{i}\n" for i in range(1, 7)))
+    table = read_table(path)
+    assert table.columns["line"].values == list(range(1000001, 1000007))
+    result = audit(path)
+    assert not result.flags

@@ -81,7 +81,7 @@ def test_everyday_numbers_take_the_fast_path(text):
     assert replace(read(text), detected=None) == _slow(text)
 
 
-@pytest.mark.parametrize("text", ["1,60", "1;2,75", "1234567", "1, 49", "+1,0", "[1],2", "1,,2"])
+@pytest.mark.parametrize("text", ["1,60", "1;2,75", "1" * 41, "1, 49", "+1,0", "[1],2", "1,,2"])
 def test_unusual_numbers_go_to_the_grammar(text):
     assert sexagesimal._plain(text, floating=False, notation="sexagesimal") is None
 

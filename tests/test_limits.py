@@ -164,6 +164,13 @@ def test_xml_nums(monkeypatch):
     _raises_limit("MAX_XML_NUMS", annotate_bytes, TEI.format("<num>α</num><num>β</num><num>γ</num>").encode())
 
 
+def test_atf_numbers(monkeypatch):
+    from numcheck.atf import read_atf_text
+    monkeypatch.setattr(limits, "MAX_ATF_NUMBERS", 2)
+    read_atf_text("&X1 = t\n@obverse\n1. 1(disz) sze 2(disz) sze\n")
+    _raises_limit("MAX_ATF_NUMBERS", read_atf_text, "&X1 = t\n@obverse\n1. 1(disz) sze 2(disz) sze 3(disz)\n")
+
+
 def test_xml_entities_are_never_expanded(tmp_path):
     """No external entities (a local file, the network) and no entity bombs: lxml's safe settings."""
     secret = tmp_path / "secret.txt"
@@ -241,6 +248,24 @@ def test_identify_candidates(monkeypatch):
     assert time.perf_counter() - start < 5
     assert any("numcheck.limits.IDENTIFY_MAX_CANDIDATES" in n for n in result.notes)
     assert all("×" not in m.what or m.factor.denominator <= limits.IDENTIFY_MAX_SIMPLE for m in result.matches)
+
+
+def test_whole_place_digits(monkeypatch):
+    # A lone whole place reads any integer an Indian yuga needs (Aryabhatiya's
+    # 1577917500 civil days; the Brahmasphutasiddhanta's kalpa of 1577916450000 days).
+    assert numcheck.read("1577917500").value == 1577917500
+    assert numcheck.read("1577916450000;30").value == 1577916450000 + numcheck.read("0;30").value
+    monkeypatch.setattr(limits, "MAX_WHOLE_PLACE_DIGITS", 9)
+    err = _raises_limit("MAX_WHOLE_PLACE_DIGITS", numcheck.read, "1577917500")
+    assert err.size == 10
+    assert numcheck.read("157791750").value == 157791750
+
+
+def test_whole_place_open_digits(monkeypatch):
+    assert numcheck.read("15779x;0").count == 10
+    monkeypatch.setattr(limits, "MAX_WHOLE_PLACE_OPEN_DIGITS", 2)
+    assert numcheck.read("1577xx;0").count == 100
+    _raises_limit("MAX_WHOLE_PLACE_OPEN_DIGITS", numcheck.read, "157xxx;0")
 
 
 def test_settle_max_readings(monkeypatch):

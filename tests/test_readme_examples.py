@@ -24,7 +24,7 @@ README = ROOT / "README.md"
 #: A usage summary (placeholders in capitals, optional parts in brackets), not an example.
 _PLACEHOLDERS = re.compile(r"\bDIR\b|\bTEXT\b|\bFILE\b|\bBODY\b|\bDATE\b|\bN\b|\[--")
 #: An argument that names a file or folder.
-_A_FILE = re.compile(r"\.(tsv|csv|xml|html|png|svg)$|/$")
+_A_FILE = re.compile(r"\.(tsv|csv|xml|html|png|svg|atf)$|/$")
 #: The folders the README's examples take their files from.
 SHIPPED = ("examples", "corpora_demo")
 
@@ -97,6 +97,10 @@ PROMISED = [
     ('numcheck read "شسه" --notation abjad', "value", "365"),
     ('numcheck read "3 signs 12;30°" --json', "value", "205/2"),
     ('numcheck read "2 bēru 10 UŠ" --unit hours', "value", "14/3"),
+    ('numcheck read "1(gesz2) 3(u) 7(disz)"', "value", "97"),
+    ('numcheck read "1(u) la2 1(disz)"', "value", "9"),
+    ('numcheck read "7(disz) 3(u)"', "value", "450"),
+    ('numcheck read "1 ME 43"', "value", "143"),
 ]
 
 
@@ -120,7 +124,7 @@ def test_example_files_are_generated_by_their_script(tmp_path):
     spec.loader.exec_module(mod)
     mod.main()
     for path in (ROOT / "examples").rglob("*"):
-        if path.is_file() and path.suffix in (".tsv", ".xml"):
+        if path.is_file() and path.suffix in (".tsv", ".xml", ".atf"):
             assert (tmp_path / "examples" / path.relative_to(ROOT / "examples")).read_bytes() == \
                 path.read_bytes(), path.name
 

@@ -29,6 +29,10 @@ EPAGOMENAL = 13
 
 
 def _check(era: Era, year: int, month: int, day: int, epagomenal_days: int) -> None:
+    if era.last_year is not None and year > era.last_year:
+        raise range_error(
+            f"Year {year} of {era.name} is past the {era.last_year} years the Canon of Kings gives him.",
+            "year", value=year, legal=f"years 1 to {era.last_year} of {era.name}")
     if year < 1:
         raise range_error(
             f"Year {year} of the era of {era.name} is before the era began.", "year",

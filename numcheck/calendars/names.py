@@ -41,6 +41,8 @@ class Era:
     epoch_jdn: int
     epoch: str
     source: str
+    #: The last year the era counts (a king's reign in the Canon of Kings), or None.
+    last_year: int | None = None
 
 
 def normalise(name: str) -> str:
@@ -79,7 +81,8 @@ def _era_table() -> tuple[tuple[Era, ...], dict[str, Era]]:
     found: list[Era] = []
     lookup: dict[str, Era] = {}
     for row in _rows("calendar_eras.csv"):
-        era = Era(row["era"], row["calendar"], int(row["epoch_jdn"]), row["epoch"], row["source"])
+        era = Era(row["era"], row["calendar"], int(row["epoch_jdn"]), row["epoch"], row["source"],
+                  int(row["last_year"]) if row.get("last_year") else None)
         found.append(era)
         for spelling in [row["era"], *filter(None, row["variants"].split("|"))]:
             lookup[normalise(spelling)] = era
@@ -87,7 +90,7 @@ def _era_table() -> tuple[tuple[Era, ...], dict[str, Era]]:
 
 
 def months(calendar: str) -> tuple[Month, ...]:
-    """The months of *calendar* (``egyptian`` or ``julian``) in order."""
+    """The months of *calendar* (``egyptian``, ``julian``, ``islamic``, ``hebrew``, ``babylonian``, ``persian``)."""
     return _month_table()[0][calendar]
 
 
@@ -104,7 +107,7 @@ def month_named(calendar: str, name: str) -> Month:
     """
     found = _month_table()[1].get((calendar, normalise(name)))
     if found is None:
-        kind = "Egyptian month" if calendar == "egyptian" else "Julian month"
+        kind = f"{calendar.title()} month"
         raise UnknownNameError(kind, name, [m.name for m in months(calendar)])
     return found
 

@@ -25,7 +25,7 @@ from __future__ import annotations
 import re
 import unicodedata
 
-from .dates import CalendarDate, calendar_named, date_from_parts
+from .dates import CalendarDate, calendar_named, date_from_parts, month_calendar
 from .names import eras, find_era, is_month_name, month_named, normalise
 from ..errors import LimitError, NumcheckRangeError, NumcheckSyntaxError, UnknownNameError
 from .. import limits
@@ -38,7 +38,7 @@ DATE_EXAMPLES = ("Nabonassar 1 Thoth 1", "Philip 424 Thoth 1", "747 BC Feb 26", 
 
 _TOKEN = re.compile(
     r"(?P<num>[+-]?\d+)(?:st|nd|rd|th)?(?![^\W\d_])"
-    r"|(?P<word>[^\W\d_][\w'\N{RIGHT SINGLE QUOTATION MARK}.]*)"
+    r"|(?P<word>[^\W\d_](?:[\w'\N{RIGHT SINGLE QUOTATION MARK}.]|-(?=[^\W\d_]))*)"
     r"|(?P<sep>[,;:/])|(?P<space>\s+)|(?P<other>.)"
 )
 _ISO = re.compile(r"\s*([+-]?\d+)-(\d{1,2})-(\d{1,2})\s*")
@@ -108,11 +108,14 @@ def parse_date(text: str, calendar: str = "julian") -> CalendarDate:
     era_words = [w for w in lead if normalise(w[1]) not in _FILLERS]
     phrase = " ".join(w[1] for w in era_words)
     era = find_era(phrase) if era_words else None
+    if era is not None and is_month_name("julian", phrase) and not any(
+            t[0] == "word" and is_month_name(month_calendar(era.calendar), t[1]) for t in tokens[len(lead):]):
+        era = None      # "Augustus 31, 30 BC" is the Latin month, not the era of Augustus
     if era is not None:
         return _era_date(text, era, tokens[len(lead):])
-    if calendar in ("egyptian", "alexandrian"):
+    if calendar not in ("julian", "jd"):
         choices = [e.name for e in eras() if e.calendar == calendar]
-        if phrase and not is_month_name("egyptian", phrase):
+        if phrase and not is_month_name(month_calendar(calendar), phrase):
             raise UnknownNameError("era", phrase, choices)
         raise NumcheckSyntaxError(f"Cannot read {text!r} as an {calendar.title()} date: it must "
                                   "begin with its era", text, tokens[0][2],
@@ -144,7 +147,7 @@ def _era_date(text: str, era, rest: list) -> CalendarDate:
     if last - first + 1 != len(words):
         raise NumcheckSyntaxError(f"Cannot read {text!r}: the day stands inside the month's name",
                                   text, nums[0][2], expected=_EXPECT_EGYPTIAN)
-    month = month_named("egyptian", " ".join(w[1] for w in words))
+    month = month_named(month_calendar(era.calendar), " ".join(w[1] for w in words))
     return _build(text, era.calendar, year, month.number, int(nums[0][1]), era,
                   {"year": year_pos, "month": words[0][2], "day": nums[0][2]})
 

@@ -35,6 +35,7 @@ __all__ = [
     "periods",
     "bodies",
     "traditions",
+    "in_tradition",
     "parse_value",
 ]
 
@@ -153,7 +154,7 @@ def entries(*, body: str | None = None, kind: str | None = None,
         _check("tradition", tradition, traditions())
     return tuple(e for e in _entries()
                  if (body is None or e.body == body) and (kind is None or e.kind == kind)
-                 and (tradition is None or e.tradition == tradition))
+                 and (tradition is None or in_tradition(e.tradition, tradition)))
 
 
 @lru_cache(maxsize=1)
@@ -175,8 +176,22 @@ def bodies() -> tuple[str, ...]:
 
 
 def traditions() -> tuple[str, ...]:
-    """The traditions in the catalogue (babylonian, greek, indian, islamic, modern ...)."""
-    return tuple(sorted({e.tradition for e in _entries()}))
+    """The traditions in the catalogue (babylonian, greek, indian, islamic, modern ...).
+
+    A tradition may name a school within it, ``indian/aryabhata``: its parent
+    (``indian``) is listed too, and choosing it chooses every school.
+    """
+    names = {e.tradition for e in _entries()}
+    return tuple(sorted(names | {n.split("/")[0] for n in names}))
+
+
+def in_tradition(row_tradition: str, wanted: str) -> bool:
+    """Whether a row of *row_tradition* belongs to the tradition *wanted* (a school or its parent).
+
+    >>> in_tradition("indian/aryabhata", "indian"), in_tradition("indian/aryabhata", "indian/khandakhadyaka")
+    (True, False)
+    """
+    return row_tradition == wanted or row_tradition.startswith(wanted + "/")
 
 
 def _check(kind: str, name: str, known) -> None:
@@ -192,7 +207,7 @@ def periods(body: str, cycle: str, tradition: str | None = None) -> tuple[Entry,
         _check("tradition", tradition, traditions())
     return tuple(e for e in _entries()
                  if e.kind == "period" and e.body == body and e.cycle == cycle and e.unit == "days"
-                 and (tradition is None or e.tradition == tradition))
+                 and (tradition is None or in_tradition(e.tradition, tradition)))
 
 
 def period(body: str, cycle: str, tradition: str = "modern") -> Fraction:

@@ -15,7 +15,8 @@ _LIST_ALL = 40
 
 
 def add_arguments(parser) -> None:
-    parser.add_argument("input", metavar="IN", help="a TEI/EpiDoc .xml file, or a folder of them")
+    parser.add_argument("input", metavar="IN", help="a TEI/EpiDoc .xml file, or a folder of them; "
+                        "or an ATF transliteration (.atf): every number word is listed")
     parser.add_argument("-o", "--output", metavar="OUT",
                         help="the annotated copy (a file; a folder when IN is a folder). "
                              "Without it nothing is written: the numbers are only checked")
@@ -39,6 +40,8 @@ def run(args, console) -> dict:
             raise NumcheckError(f"{str(src)!r} is a folder: give an output folder with -o OUTDIR "
                                 "(the inputs are never written over).")
         return _run_folder(args, console)
+    if src.suffix.lower() == ".atf":
+        return _run_atf(args, console)
     from ..tei import annotate
 
     result = annotate(src, args.output, alternatives=args.alternatives, fix=args.fix,
@@ -46,6 +49,21 @@ def run(args, console) -> dict:
     out = result.to_dict()
     if console is not None:
         _show_file(out, console)
+    return out
+
+
+def _run_atf(args, console) -> dict:
+    """An ATF transliteration: list every number word (numcheck.atf); the input is never changed."""
+    from ..atf import annotate_atf
+    from ..errors import NumcheckError
+    from ..report.atf import show_atf
+
+    if args.notation not in (None, "atf", "atf-math"):
+        raise NumcheckError(f"An ATF file is read in the notation atf (or atf-math for "
+                            f"mathematical texts), not {args.notation!r}.")
+    out = annotate_atf(args.input, args.output, math=args.notation == "atf-math").to_dict()
+    if console is not None:
+        show_atf(out, console)
     return out
 
 

@@ -5,7 +5,8 @@ from __future__ import annotations
 from ..calendars import CALENDARS, DATE_EXAMPLES, interval
 
 NAME = "interval"
-HELP = "count the days between two dates (Egyptian, Alexandrian, Julian calendar, or JD)"
+HELP = ("count the days between two dates (Egyptian with the eras of Nabonassar, Philip, Augustus and "
+        "the kings of the Canon, Alexandrian, Hijra, Yazdegerd, Seleucid, Hebrew, Julian, or JD)")
 ORDER = 60
 
 
@@ -19,7 +20,8 @@ def add_arguments(parser) -> None:
                         help="calendar of a date that names no era: "
                              + "; ".join(f"{k} ({v})" for k, v in CALENDARS.items())
                              + ". Default: julian. A date that begins with an era "
-                               "(Nabonassar, Philip, Diocletian) carries its own calendar.")
+                               "(Nabonassar, Philip, Augustus, Hadrian ..., Diocletian, Hijra, "
+                               "Yazdegerd, Seleucid, AM) carries its own calendar.")
 
 
 def run(args, console) -> dict:
@@ -42,5 +44,8 @@ def _show(result, out: dict, console) -> None:
                   eq["julian"] + f" ({eq['iso']})", eq.get("egyptian", "before the era"))
     table.print()
     years, rest = result.egyptian_years
+    for date in out["dates"]:
+        if date.get("note"):
+            note(console, date["note"], "dim")
     note(console, f"{result.days:,} days = {years} Egyptian years of 365 days + {rest} days "
                   f"= {float(result.julian_years):.4f} Julian years (counted from civil day to civil day)")

@@ -25,6 +25,9 @@ def add_arguments(parser) -> None:
                         help=f"with --search: the longest span in years (default {DEFAULT_SEARCH_YEARS})")
     parser.add_argument("--cycles", default=None,
                         help="with --search: the cycles to close at once, e.g. synodic,sidereal")
+    parser.add_argument("--year", choices=("tropical", "sidereal"), default="tropical",
+                        help="with --search: count spans in tropical (default) or sidereal years "
+                             "(the Babylonian relations count sidereal years)")
     parser.add_argument("--top", type=int, default=None, help="show only the first K rows of the table")
 
 
@@ -51,7 +54,7 @@ def run(args, console) -> dict:
                                      legal="'relate N --unit years' or 'relate --search BODY'")
         with busy(console, f"searching relations of {args.search} up to {args.max_years} years"):
             result = search(args.search, max_years=args.max_years, values=args.values,
-                            tradition=args.tradition, cycles=args.cycles)
+                            tradition=args.tradition, cycles=args.cycles, year=args.year)
         out = result.to_dict()
         if console is not None:
             _show_search(result, console, args.top)
@@ -135,6 +138,7 @@ def _show_search(result, console, top) -> None:
                   f"{float(c.residual_days):+.3f}", f"{float(c.residual_degrees):+.2f}",
                   legend.marks(c.known), style="bold" if c.known else None)
     sheet.print()
+    _show_attested(result, console)
     if result.spans:
         note(console, f"spans of whole {result.span_unit} ({result.reference}) close to whole numbers of "
                       f"{', '.join(result.targets)} at once (each better than every shorter one)", "bold")
@@ -151,3 +155,21 @@ def _show_search(result, console, top) -> None:
     note(console, "kind: a convergent of the continued fraction is better than every shorter "
                   "relation, a semiconvergent better than every shorter one on its side. [n]: a "
                   "relation attested in the catalogue, cited above.", "dim")
+
+
+def _show_attested(result, console) -> None:
+    from ..report.layout import Sheet, note
+
+    if not result.attested:
+        return
+    note(console, f"relations the catalogue attests, counted in {result.year} years "
+                  "(best approximation or not)", "bold")
+    table = Sheet(console, [("relation", "key"), ("span given in", "text"), ("years", "number"),
+                            ("cycles", "text"), ("residual days", "number"), ("residual °", "number"),
+                            ("best?", "key")])
+    for a in result.attested:
+        c = a.counted
+        table.row(a.relation.id, a.relation.given_in, str(a.years), f"{c.nearest} {c.body} {c.cycle}",
+                  f"{float(c.residual_days):+.3f}", f"{float(c.residual_degrees):+.2f}",
+                  "yes" if a.best else "no")
+    table.print()

@@ -29,6 +29,10 @@ def add_arguments(parser) -> None:
     parser.add_argument("--unit", "-u", help="the unit of the number (the catalogue is searched in it)")
     parser.add_argument("--expect", "-e", metavar="TEXT",
                         help="a value you expect, e.g. '29;31,50,8,20' (weighed as evidence, not imposed)")
+    parser.add_argument("--satisfies", "-s", metavar="RELATION", action="append", default=[],
+                        help="a relation from mathematics the number should satisfy, e.g. 'x^2 = 2' "
+                             "(its square is near 2), '1/x = 7,30', '3*x = 1' (weighed as evidence; "
+                             "may be given more than once)")
     parser.add_argument("--top", "-k", type=_top, default=10, metavar="K",
                         help="how many candidates to show (default 10)")
     parser.add_argument("--no-catalogue", action="store_true",
@@ -51,7 +55,8 @@ def run(args, console) -> dict:
                                  legal="one of --tradition T or --no-catalogue")
     with busy(console, "ranking the readings the traces allow"):
         result = restore(args.text, notation=args.notation, unit=args.unit, expect=args.expect,
-                         top=args.top, use_catalogue=not args.no_catalogue, tradition=args.tradition)
+                         top=args.top, use_catalogue=not args.no_catalogue, tradition=args.tradition,
+                         satisfies=tuple(getattr(args, "satisfies", None) or ()))
     out = result.to_dict()
     if console is not None:
         _show(result, console, full=args.full)

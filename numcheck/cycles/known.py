@@ -16,7 +16,7 @@ from fractions import Fraction
 
 from .periods import statement_cycle
 
-__all__ = ["KnownRelation", "known_relations", "matching", "matching_spans"]
+__all__ = ["KnownRelation", "known_relations", "matching", "matching_spans", "attested_for"]
 
 # Statement units that measure a span (the left column of relate's question).
 _SPAN_UNITS = {"tropical years": "years", "sidereal years": "years", "julian years": "years",
@@ -34,6 +34,26 @@ class KnownRelation:
     confidence: str
     spans: tuple[tuple[str, Fraction], ...]            # ("years", 8), ("days", 6585 1/3) ...
     counts: tuple[tuple[tuple[str, str], Fraction], ...]  # (("venus", "synodic"), 5) ...
+    #: The span as the statement gives it: ("sidereal years", 427), ("days", 6940) ...
+    given: tuple[tuple[str, Fraction], ...] = ()
+
+    @property
+    def given_in(self) -> str:
+        """Whether the relation states its span in years, in days, or both (and which year).
+
+        >>> next(r for r in known_relations() if r.id == "act_jupiter").given_in
+        'years (sidereal years)'
+        """
+        kinds = [u for u, _ in self.given]
+        years = sorted({u for u in kinds if u.endswith("years")})
+        parts = []
+        if years:
+            parts.append(f"years ({', '.join(years)})")
+        if "synodic months" in kinds:
+            parts.append("months")
+        if "days" in kinds:
+            parts.append("days")
+        return " and ".join(parts) or "counts of cycles only"
 
     def span(self, unit: str) -> set[Fraction]:
         return {n for u, n in self.spans if u == unit}
@@ -43,7 +63,7 @@ class KnownRelation:
 
     def to_dict(self) -> dict:
         return {"id": self.id, "statement": self.statement, "tradition": self.tradition,
-                "source": self.source, "confidence": self.confidence}
+                "source": self.source, "confidence": self.confidence, "given_in": self.given_in}
 
 
 def _relation_rows():
@@ -54,19 +74,20 @@ def _relation_rows():
 
 
 def _from_row(row) -> KnownRelation | None:
-    spans, counts = [], []
+    spans, counts, given = [], [], []
     for side in row.sides:
         term = side.terms[0]  # "241 sidereal months + 10 2/3 degrees": the whole count
         unit = " ".join(term.unit.lower().split())
         if unit in _SPAN_UNITS:
             spans.append((_SPAN_UNITS[unit], term.number))
+            given.append((unit, term.number))
         cycle = statement_cycle(unit)
         if cycle is not None:
             counts.append((cycle, term.number))
     if not counts and len(spans) < 2:
         return None
     return KnownRelation(row.id, row.statement, row.tradition, row.source, row.confidence,
-                         tuple(spans), tuple(counts))
+                         tuple(spans), tuple(counts), tuple(given))
 
 
 @functools.lru_cache(maxsize=1)
@@ -94,3 +115,21 @@ def matching_spans(unit_a: str, a: Fraction, unit_b: str, b: Fraction) -> list[K
     """The catalogue relations that state *a* *unit_a* = *b* *unit_b* (e.g. years and days)."""
     a, b = Fraction(a), Fraction(b)
     return [rel for rel in known_relations() if a in rel.span(unit_a) and b in rel.span(unit_b)]
+
+
+def attested_for(body: str) -> list[tuple[KnownRelation, str, Fraction, Fraction]]:
+    """Every relation stating a span in years and a count of one of *body*'s cycles.
+
+    Returns (relation, cycle, years, count), whether or not the relation is a
+    best approximation: the ACT's 427 years = 391 synodic periods of Jupiter
+    is attested, though no convergent of the modern ratio.
+    """
+    out = []
+    for rel in known_relations():
+        years = sorted(rel.span("years"))
+        if not years:
+            continue
+        for (b, cycle), count in rel.counts:
+            if b == body and not (b == "sun" and cycle in ("tropical", "sidereal")):
+                out.append((rel, cycle, years[0], count))
+    return out

@@ -27,7 +27,7 @@ from ..errors import LimitError, NumcheckRangeError, UnknownNameError
 from .. import limits
 from ..reading import decimal_text, exact_text
 from .periods import BODIES, CYCLES, PeriodSet, unit_named
-from .known import KnownRelation, matching, matching_spans
+from .known import KnownRelation, attested_for, matching, matching_spans
 from .convergents import best_ratios, record_spans
 
 __all__ = ["relate", "search", "RelateResult", "SearchResult", "CycleCount", "SpanRecord",
@@ -260,9 +260,14 @@ class SearchResult:
     span_unit: str
     targets: tuple[str, ...]
     spans: tuple[SpanRecord, ...]
+    #: The relations of the catalogue for these bodies, best approximations or not.
+    attested: tuple["Attested", ...] = ()
+    year: str = "tropical"
 
     def to_dict(self) -> dict:
         return {
+            "year": self.year,
+            "attested": [a.to_dict() for a in self.attested],
             "search": list(self.bodies),
             "max_years": self.max_years,
             "values": self.values,
@@ -274,6 +279,29 @@ class SearchResult:
                              "cycles": list(self.targets),
                              "spans": [s.to_dict() for s in self.spans]},
         }
+
+
+@dataclass(frozen=True)
+class Attested:
+    """A relation of the catalogue between years and a body's cycles, counted with the search's year."""
+
+    relation: KnownRelation
+    years: Fraction
+    counted: CycleCount
+    best: bool                # among the best approximations the search found
+
+    def to_dict(self) -> dict:
+        out = {"id": self.relation.id, "statement": self.relation.statement,
+               "given_in": self.relation.given_in, "years": exact_text(self.years),
+               "cycles": self.counted.nearest, "best_approximation": self.best,
+               "tradition": self.relation.tradition, "source": self.relation.source,
+               "confidence": self.relation.confidence}
+        out.update({k: v for k, v in self.counted.to_dict().items() if k not in ("known", "nearest")})
+        return out
+
+
+#: The years a search may count in.
+SEARCH_YEARS = ("tropical", "sidereal")
 
 
 def _bodies(names) -> tuple[str, ...]:
@@ -320,7 +348,7 @@ def _day_ratios(year: Fraction, max_years: int) -> list[Ratio]:
 
 
 def search(bodies, *, max_years: int = DEFAULT_SEARCH_YEARS, values: str = "modern",
-           tradition: str | None = None, cycles=None) -> SearchResult:
+           tradition: str | None = None, cycles=None, year: str = "tropical") -> SearchResult:
     """The best period relations of *bodies* (a name, or several) up to *max_years*.
 
     Two parts: for each cycle of each body, the convergents and
@@ -329,8 +357,13 @@ def search(bodies, *, max_years: int = DEFAULT_SEARCH_YEARS, values: str = "mode
     years, the calendar question); and the record spans that close the
     chosen *cycles* of all the bodies at once (the moon alone: whole synodic
     months closing the anomalistic and draconitic months, as the Saros does;
-    otherwise whole years).  Relations the catalogue attests are marked.
+    otherwise whole years).  Relations the catalogue attests are marked, and
+    listed apart (``attested``) even when they are no best approximation.
+    *year* is ``tropical`` (the default) or ``sidereal``: the Babylonian
+    relations count sidereal years.
     """
+    if year not in SEARCH_YEARS:
+        raise UnknownNameError("year", year, SEARCH_YEARS)
     bodies = _bodies(bodies)
     if isinstance(max_years, bool) or not isinstance(max_years, int) or max_years < 1:
         raise NumcheckRangeError(f"--max-years {max_years!r} is not a number of years.",
@@ -339,7 +372,14 @@ def search(bodies, *, max_years: int = DEFAULT_SEARCH_YEARS, values: str = "mode
         raise LimitError("longest span to search, in years", max_years, limits.RELATE_MAX_SEARCH_YEARS,
                          "Search a shorter span, or raise numcheck.limits.RELATE_MAX_SEARCH_YEARS.")
     periods = PeriodSet(values, tradition)
+    year_kind = year
     year, year_by = periods.unit_days("years")
+    if year_kind == "sidereal":
+        sidereal = periods.period("sun", "sidereal")
+        if sidereal is None:
+            raise NumcheckRangeError(f"The {periods.tradition} values give no sidereal year.",
+                                     legal="a tradition whose catalogue rows give the sun's sidereal period")
+        year, year_by = sidereal, "sun sidereal"
     ratios = []
     for body in bodies:
         for b, cycle in CYCLES:
@@ -373,5 +413,17 @@ def search(bodies, *, max_years: int = DEFAULT_SEARCH_YEARS, values: str = "mode
                                       tuple(matching(unit, Fraction(n), c.body, c.cycle, c.nearest)))
                            for c in counts)
             spans.append(SpanRecord(n, unit, span_days, counts, tuple(known.values())))
+    best = {(r.counted.body, r.counted.cycle, r.years, r.counted.nearest) for r in ratios}
+    attested = []
+    for body in bodies:
+        for rel, cycle, years, count in attested_for(body):
+            if years > max_years or count.denominator != 1:
+                continue
+            counted = _count(body, cycle, periods, years * year, nearest=int(count), known=(rel,))
+            if counted is None:
+                continue
+            attested.append(Attested(rel, years, counted,
+                                     (body, cycle, int(years), int(count)) in best))
     return SearchResult(bodies, max_years, values, periods.tradition, year, year_by, tuple(ratios),
-                        reference, unit, tuple(f"{b} {c}" for b, c in targets), tuple(spans))
+                        reference, unit, tuple(f"{b} {c}" for b, c in targets), tuple(spans),
+                        tuple(attested), year_kind)

@@ -347,6 +347,7 @@ def identify(reading_or_text, *, notation: str | None = None, unit: str | None =
     matches = tuple(pool[:top])
     groups = _rank.group_matches(pool, describe=lambda ms: _describe(reading, ms))[:top]
     nearest = () if matches else _nearest(reading, tab)
+    notes.extend(_t.coincidence_notes(reading, unit, len(found)))
     return IdentifyResult(reading, unit, matches, nearest, considered, tuple(notes), groups, wanted)
 
 

@@ -47,6 +47,8 @@ LONG_FACTOR_WEIGHT = 0.6
 MODERN_WEIGHT = 0.8
 #: Another tradition than the one asked for or said by the notation.
 OTHER_TRADITION_WEIGHT = 0.75
+#: Another school of the tradition asked for (indian/vedanga for indian/aryabhata).
+SCHOOL_WEIGHT = 0.9
 #: The floor of the chance weight: a certain coincidence still shows, last.
 CHANCE_FLOOR = 0.02
 
@@ -105,12 +107,18 @@ def tradition_weight(row_tradition: str, wanted: str | None) -> float:
 
     >>> tradition_weight("modern", None), tradition_weight("greek", "greek"), tradition_weight("indian", "greek")
     (0.8, 1.0, 0.75)
+    >>> tradition_weight("indian/aryabhata", "indian"), tradition_weight("indian/vedanga", "indian/aryabhata")
+    (1.0, 0.9)
     """
     modern = row_tradition.startswith("modern")
     if wanted is None:
         return MODERN_WEIGHT if modern else 1.0
-    if row_tradition == wanted or (wanted.startswith("modern") and modern):
+    # A school belongs to its tradition: "indian" takes in "indian/surya-siddhanta".
+    if (row_tradition == wanted or row_tradition.startswith(wanted + "/")
+            or (wanted.startswith("modern") and modern)):
         return 1.0
+    if row_tradition.split("/")[0] == wanted.split("/")[0]:
+        return SCHOOL_WEIGHT            # the same tradition, another school
     return OTHER_TRADITION_WEIGHT * (MODERN_WEIGHT if modern else 1.0)
 
 

@@ -31,6 +31,7 @@ from ..catalogue.statements import side_unit_key
 from ..units import UNITS, canonical_unit, convert, find_unit
 
 __all__ = ["Item", "Table", "Target", "number_text", "table", "catalogue_targets", "candidates", "simple_factors",
+           "chance_matches", "coincidence_notes", "RATE_FORMS",
            "factor_complexity", "factor_weight",
            "CONFIDENCE_WEIGHT"]
 
@@ -133,6 +134,15 @@ def _items_of(entry: catalogue.Entry) -> list[Item]:
     add(entry.value, entry.unit, "the value", multiples=entry.kind == "period" and measured)
     if entry.kind == "period":
         return items
+    head, per = _split_unit(entry.unit)
+    if per == " per day":
+        # Tables give a daily motion per Egyptian year and per hour as well
+        # (Almagest III.2: the sun's motion per year, month, day and hour).
+        # Compared as they stand: parts of a yearly motion are the daily motion's own multiples.
+        for factor, name, label in RATE_FORMS:
+            add(entry.value * factor, head + name, label, alone=True)
+    for value, label in _daily_motions(entry):
+        add(value, "degrees per day", label)
     for side in entry.sides:
         if entry.kind == "parameter" and side.single and side.single.number == 1:
             continue
@@ -150,6 +160,51 @@ def _items_of(entry: catalogue.Entry) -> list[Item]:
         if total is not None:
             add(total, "days", f"the side '{side.text}' in days")
     return items
+
+
+#: Other forms of a daily motion that tables give: (factor, unit suffix, label).
+RATE_FORMS = ((Fraction(365), " per egyptian year", "the value x 365 (per Egyptian year of 365 days)"),
+              (Fraction(1, 24), " per hour", "the value / 24 (per hour)"))
+
+
+def _cycles(side) -> tuple[Fraction, str] | None:
+    """A side as a number of turns of one cycle: 4612 sidereal months - 7 1/2 degrees of sidereal month."""
+    count, cycle = Fraction(0), None
+    for term in side.terms:
+        unit = term.unit.strip().lower()
+        if unit.startswith("degrees of "):
+            name, amount = unit[len("degrees of "):], term.number / 360
+        else:
+            name, amount = unit, term.number
+        name = name.rstrip("s")
+        key = side_unit_key(name)
+        # Years give the sun's motion, which the rows of daily motions state
+        # themselves; a derived one would only crowd them.
+        if key is not None and key != "months":
+            return None
+        if cycle not in (None, name):
+            return None
+        cycle = name
+        count += term.sign * amount
+    return (count, cycle) if cycle and count > 0 else None
+
+
+def _daily_motions(entry: catalogue.Entry) -> list[tuple[Fraction, str]]:
+    """Mean daily motions (degrees per day) a relation implies: 360 x turns / days."""
+    if entry.kind != "relation":
+        return []
+    days = [_side_total(side) for side in entry.sides]
+    days = [d for d in days if d]
+    if not days:
+        return []
+    out = []
+    for side in entry.sides:
+        turns = _cycles(side)
+        if turns is None:
+            continue
+        count, cycle = turns
+        out.append((360 * count / days[0], f"daily motion in {cycle}: 360 x ({side.text}) / {days[0]} days"))
+    return out
 
 
 def _side_total(side) -> Fraction | None:
@@ -366,3 +421,47 @@ def catalogue_targets(lo, hi, unit: str | None = None, *, floating: bool = False
         ))
     out.sort(key=lambda t: (t.value, -t.weight))
     return out
+
+
+#: Relative offsets of the nearby numbers at which chance matches are counted.
+_PROBES = (-0.0437, -0.0261, -0.0113, -0.0047, 0.0053, 0.0121, 0.0277, 0.0413)
+
+
+def _count_near(tab: Table, value: Fraction, ulp: Fraction, scales) -> int:
+    total = 0
+    for scale in scales:
+        p = Fraction(60) ** scale
+        v, tol = float(value * p), float(ulp * p)
+        items, _, _ = candidates(tab, v - tol, v + tol, multiples=100 * tol <= v)
+        total += len(items)
+    return total
+
+
+def chance_matches(value: Fraction, ulp: Fraction, unit: str | None = None, scales=range(-6, 7)) -> float:
+    """How many catalogue numbers (times simple factors, multiples) lie as close by chance.
+
+    Counted at eight numbers a few percent either side of *value*, each
+    within one *ulp* (unit of the last written place) at every scale: the
+    number a text's value meets for no reason but the crowd of the catalogue.
+    """
+    tab = table(unit)
+    counts = [_count_near(tab, value * Fraction(1 + d).limit_denominator(100_000), ulp, scales)
+              for d in _PROBES]
+    return sum(counts) / len(counts)
+
+
+def coincidence_notes(reading, unit: str | None, found: int) -> list[str]:
+    """A plain note when a floating reading without a unit meets the catalogue only by chance."""
+    if not reading.floating or unit is not None or reading.value <= 0 or not found:
+        return []
+    expected = chance_matches(reading.value, reading.ulp)
+    if expected < 0.5:
+        return []
+    if found <= 2 * expected:
+        verdict = ("The matches found here are no more than that: treat them as coincidences unless the "
+                   "text, a unit or the column they stand in supports them.")
+    else:
+        verdict = "More are found here than chance gives, but each still needs the text's support."
+    return [f"A floating number without a unit is compared at every power of 60 with every catalogue "
+            f"number and its simple parts and multiples: numbers a few percent from this one meet "
+            f"{expected:.1f} of them on average as closely by chance. {verdict}"]

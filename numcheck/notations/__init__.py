@@ -28,6 +28,13 @@ NOTATIONS: dict[str, str] = {
     "greek-astronomical": "numcheck.notations.greek.astronomical",
     "greek-documentary": "numcheck.notations.greek.documentary",
     "attic": "numcheck.notations.attic",
+    "hebrew": "numcheck.notations.hebrew",
+    "aryabhata": "numcheck.notations.aryabhata",
+    "arabic-indic": "numcheck.notations.digits.arabic_indic",
+    "persian": "numcheck.notations.digits.persian",
+    "devanagari": "numcheck.notations.digits.devanagari",
+    "atf": "numcheck.notations.atf",
+    "atf-math": "numcheck.notations.atf.mathstyle",
 }
 
 

@@ -40,7 +40,8 @@ from . import sexagesimal
 from .sexagesimal import assign_places
 from .marks import join_marked, status_in, track_bracket
 
-__all__ = ["NAME", "parse", "format", "render", "sign_table", "SignInfo", "BAD_EXAMPLES", "is_cuneiform_sign"]
+__all__ = ["NAME", "parse", "format", "render", "sign_table", "SignInfo", "BAD_EXAMPLES", "is_cuneiform_sign",
+           "count_signs", "parse_count"]
 
 NAME = "cuneiform"
 
@@ -77,12 +78,28 @@ class SignInfo:
 
 
 @functools.cache
-def _signs() -> dict[str, SignInfo]:
+def _all_signs() -> dict[str, SignInfo]:
     table = resources.files("numcheck") / "data" / "cuneiform_signs.csv"
     with table.open(encoding="utf-8", newline="") as fh:
         return {row["sign"]: SignInfo(row["sign"], row["unicode_name"], row["column"],
                                       int(row["place_value"]), int(row["wedges"]), row["source"])
                 for row in csv.DictReader(fh)}
+
+
+@functools.cache
+def _signs() -> dict[str, SignInfo]:
+    """The place-value digits (the counting signs GESH2, GESHU, SHAR2 ... are apart)."""
+    return {k: v for k, v in _all_signs().items() if v.column != "count"}
+
+
+@functools.cache
+def count_signs() -> dict[str, SignInfo]:
+    """Sign -> :class:`SignInfo` for every sign a count may use: the digits and GESH2 ... SHAR2 GAL.
+
+    In a count the sign fixes its magnitude (ONE GESH2 is 60, whatever
+    stands beside it); the digits count their own value (U is 10).
+    """
+    return dict(_all_signs())
 
 
 def sign_table() -> dict[str, SignInfo]:
@@ -97,6 +114,22 @@ def _canonical_sign() -> dict[tuple[str, int], str]:
     for info in _signs().values():
         out.setdefault((info.column, info.value), info.char)
     return out
+
+
+#: The digits Oracc writes for 4, 7, 8 and 9 (its math.xdf table: the "variant form"
+#: code points, not FOUR..NINE DISH).  A number written with them is written back with them.
+ORACC_DIGITS = {4: "\U0001243C", 7: "\U00012442", 8: "\U00012444", 9: "\U00012446"}
+
+
+def _uses_oracc_digits(text: str) -> bool:
+    return any(ch in ORACC_DIGITS.values() for ch in text)
+
+
+def _table(oracc: bool) -> dict[tuple[str, int], str]:
+    table = _canonical_sign()
+    if not oracc:
+        return table
+    return {**table, **{("units", v): ch for v, ch in ORACC_DIGITS.items()}}
 
 
 def is_cuneiform_sign(char: str) -> bool:
@@ -288,6 +321,8 @@ def _sign_item(text: str, tok: Token, state: dict) -> _Item:
         name = unicodedata.name(ch, "an unnamed code point")
         what = ("a metrological sign, not a sexagesimal place-value digit"
                 if unicodedata.numeric(ch, None) is not None else "a cuneiform sign that is not a numeral")
+        if ch in count_signs():
+            what += f"; as a count it is {count_signs()[ch].value} (read counts with --notation atf)"
         raise _syntax(text, tok.start_pos, f"{what} ({name})",
                       "the place-value signs DISH, MIN, THREE..NINE DISH (units), U, U U, U U U, "
                       "FOUR U, FIVE U (tens) or the vertical colon (an empty place)")
@@ -403,7 +438,7 @@ def _format_signs(reading: Reading, choice) -> str:
             fractional = slot.place < 0 and not reading.floating and not semi_done
             parts.append(" ; " if fractional else " ")
             semi_done = semi_done or fractional
-        parts.append(_bracketed(_slot_pieces(slot, chosen)))
+        parts.append(_bracketed(_slot_pieces(slot, chosen, _uses_oracc_digits(reading.text))))
     return "".join(parts)
 
 
@@ -411,19 +446,19 @@ def _bracketed(pieces: list[tuple[str, str | None]]) -> str:
     return join_marked(pieces)
 
 
-def _signs_for(value: int) -> str:
+def _signs_for(value: int, oracc: bool = False) -> str:
     tens, units = divmod(value, 10)
-    table = _canonical_sign()
+    table = _table(oracc)
     if value == 0:
         return table[("zero", 0)]
     return (table[("tens", tens * 10)] if tens else "") + (table[("units", units)] if units else "")
 
 
-def _slot_pieces(slot: Slot, chosen: Fraction | None) -> list[tuple[str, str | None]]:
+def _slot_pieces(slot: Slot, chosen: Fraction | None, oracc: bool = False) -> list[tuple[str, str | None]]:
     if slot.gap is not None or not slot.form:
         if chosen is None:
             return [("...", "[")]
-        return [(_signs_for(int(chosen)), "[" if slot.status is not Status.UNREAD else None)]
+        return [(_signs_for(int(chosen), oracc), "[" if slot.status is not Status.UNREAD else None)]
     items: list[_Item] = list(slot.form)
     if chosen is None or len(slot.values) == 1:
         return [(i.char + ("?" if i.doubtful else ""), _OPEN.get(i.status)) for i in items]
@@ -436,7 +471,7 @@ def _slot_pieces(slot: Slot, chosen: Fraction | None) -> list[tuple[str, str | N
     tens_read = [i for i in read_items if i.column == "tens"]
     units_read = [i for i in read_items if i.column == "units"]
     rest_tens, rest_units = divmod(rest, 10)
-    table = _canonical_sign()
+    table = _table(oracc)
     pieces += [(i.char + ("?" if i.doubtful else ""), _OPEN.get(i.status)) for i in tens_read]
     if rest_tens:
         pieces.append((table[("tens", rest_tens * 10)], bracket))
@@ -446,3 +481,36 @@ def _slot_pieces(slot: Slot, chosen: Fraction | None) -> list[tuple[str, str | N
     if not pieces:
         pieces.append((table[("zero", 0)], bracket))
     return pieces
+
+
+# -- counts (the sign names fix the magnitude) ----------------------------------
+
+def parse_count(text: str, notation: str = NAME) -> Reading:
+    """Read Unicode signs as a count: each sign adds its value (ONE GESH2 = 60, U = 10).
+
+    Administrative texts write counts this way; the value is absolute (not
+    floating).  Signs stand largest first; spaces between them are allowed.
+
+    >>> parse_count("\U00012415\U0001230D\U00012442").value
+    Fraction(97, 1)
+    """
+    table = count_signs()
+    slots = []
+    last = None
+    for pos, ch in enumerate(text):
+        if ch in " \t\u00a0":
+            continue
+        info = table.get(ch)
+        if info is None or info.column == "zero":
+            name = unicodedata.name(ch, f"U+{ord(ch):04X}")
+            raise _syntax(text, pos, f"a sign that is not a counting sign ({name})",
+                          "DISH ... NINE DISH, U ... FIVE U, ONE..NINE GESH2, ONE..FIVE GESHU, SHAR2 ...")
+        if last is not None and info.value > last:
+            raise _syntax(text, pos, "a sign larger than the one before it (a count writes the "
+                          "largest first)", "the signs in descending order")
+        last = info.value
+        slots.append(Slot(values=(Fraction(info.value),), place=0, status=Status.READ, text=ch,
+                          span=(pos, pos + 1), form=("sign", ch)))
+    if not slots:
+        raise _syntax(text, 0, "no sign", "counting signs")
+    return Reading(text=text, notation=notation, slots=tuple(slots), base=60, floating=False)

@@ -2,8 +2,15 @@
 
 The rules, in the order they are tried (each names the evidence that decided):
 
-1. Unicode cuneiform numeric signs (U+12400 block, DIŠ, U) -> ``cuneiform``.
-2. Arabic-script letters -> ``abjad`` (eastern order; ``--notation
+1. Unicode cuneiform numeric signs (U+12400 block, DIŠ, MIN, U, U U, U U U)
+   -> ``cuneiform``.
+1a. ATF transliterations -> ``atf``: a CDLI grapheme ``COUNT(SIGN)``
+   (``3(u)``, ``n(disz)``, ``1/2(disz)``), or Oracc's mathematical style:
+   places joined by ``.`` with two digits after each dot (``1.40``, ``1.03``;
+   ``29.5`` is not taken for it), a number glued to a logogram
+   (``43.KAM₂``, ``15-KAM₂``), hundreds ``1 ME 43``.
+2. Hebrew letters -> ``hebrew``.
+2b. Arabic-script letters -> ``abjad`` (eastern order; ``--notation
    abjad-maghribi`` for the western values).
 3. An Attic acrophonic sign (U+10140..U+10174) or the ASCII fallback of a
    combined sign (``Π(Δ)``) -> ``attic``.
@@ -13,9 +20,14 @@ The rules, in the order they are tried (each names the evidence that decided):
    a repeated sign (ΔΔ, ΙΙΙ) points to Attic (alphabetic numerals never
    repeat a letter), and so does an order that is Attic (largest first) but
    not alphabetic; otherwise alphabetic, and the reason says Attic was possible.
+4b. Arabic-Indic, Persian (extended Arabic-Indic) or Devanagari digits ->
+   ``arabic-indic``, ``persian`` or ``devanagari``.
 5. Roman numeral letters (I V X L C D M, j) or the Unicode Number Forms
    (U+2160 block), with no digits -> ``roman``; but a lone small ``x`` or an
    ``x`` with Leiden marks (``[x]``, ``x,x``) is an unread sexagesimal place.
+5b. Latin letters that are all IAST letters of syllables (consonants and
+   their vowels, khyughṛ), not only Roman numeral letters -> ``aryabhata``
+   when the text is a whole number of syllables or carries an IAST diacritic.
 6. Digits: with ``,`` or ``;`` -> ``sexagesimal``; groups separated by spaces
    with no ``;`` -> ``cuneiform`` (the magnitude floats); plain digits ->
    ``sexagesimal`` (one place, an integer).
@@ -28,6 +40,8 @@ from __future__ import annotations
 import re
 import unicodedata
 
+from .digits import script_of
+
 __all__ = ["detect_notation", "ATTIC_CAPITALS"]
 
 #: Greek capitals that are also Attic acrophonic signs (Γ is the older five).
@@ -38,6 +52,11 @@ _ATTIC_ASCII = re.compile(r"[ΠP]\([ΔΗΧΜDHXM]\)")
 _GREEK_SIGNS = frozenset("\U0001018A\u014d\u0375\u2220") | frozenset(
     chr(c) for c in (0x10175, 0x10176, 0x10177, 0x10178, 0x1018B))
 _ROMAN = frozenset("IVXLCDMJivxlcdmj")
+_ATF_GRAPHEME = re.compile(r"(?:[0-9]+|[nN]|[nN]\+[0-9]+|[0-9]+/[0-9]+)\([^()\s]+\)")
+_ATF_MATH = re.compile(r"(?<![\w.,;])[\[<]*[0-9]+(?:@v)?[\]#?!*>]*"
+                       r"(?:\.:?[\[<]*[0-9]{2}(?:@v)?[\]#?!*>]*)+(?![\w.,;])"
+                       r"|[0-9]+[.-](?:KAM|KÁM|kam|KAM₂|en|et|TA)\b"
+                       r"|\b[0-9]+ (?:ME|LIM)(?: [0-9]+)?\b")
 # The half sign and the Greek numeral signs as a converter writes them (U+2220 for ∠).
 _CODE_POINT_SIGN = re.compile(r"[Uu]\+(?:2220|0374|0375|1018[AaBb]|1017[5-8])")
 _DIGIT_GROUPS = re.compile(r"[0-9xXn\]?>⟩}\u0323]\s+[0-9xXn\[<⟨{]")
@@ -46,6 +65,10 @@ _SEPARATED = "digits with sexagesimal separators (',' between places, ';' after 
 _ONE_PLACE = "plain digits with no separator: one place, an integer"
 # What a transliterated cuneiform number is made of (digits, x, n, Leiden marks).
 _CUNEIFORM_CHARS = re.compile(r"[0-9xXn\[\]<>⟨⟩{}?\u0323\s]+")
+
+
+#: Cuneiform signs outside the numeric block that write digits: DIŠ, MIN, U, U U, U U U.
+_CUNEIFORM_DIGITS = frozenset("\U00012079\U0001222B\U0001230B\U00012399\U0001230D")
 
 
 def _name(ch: str) -> str:
@@ -74,9 +97,20 @@ def detect_notation(text: str) -> tuple[str, str]:
     """
     if text.isascii() and _PLAIN_SEXAGESIMAL.fullmatch(text):   # rule 6 at once, the usual case
         return "sexagesimal", _SEPARATED if ("," in text or ";" in text) else _ONE_PLACE
-    cuneiform = [c for c in text if 0x12400 <= ord(c) <= 0x1247F or c in "\U00012079\U0001230B"]
+    cuneiform = [c for c in text if 0x12400 <= ord(c) <= 0x1247F or c in _CUNEIFORM_DIGITS]
     if cuneiform:
         return "cuneiform", f"Unicode cuneiform numeric signs ({_name(cuneiform[0])})"
+    grapheme = _ATF_GRAPHEME.search(text)
+    if grapheme:
+        return "atf", (f"an ATF numeral grapheme COUNT(SIGN) ({grapheme.group()}): CDLI-style "
+                       "transliteration")
+    math = _ATF_MATH.search(text)
+    if math:
+        return "atf", (f"ATF in Oracc's mathematical style ({math.group()}: places joined by '.', "
+                       "a number glued to a logogram, or hundreds with ME)")
+    hebrew = [c for c in text if 0x05D0 <= ord(c) <= 0x05EA]
+    if hebrew:
+        return "hebrew", f"Hebrew letters ({_name(hebrew[0])})"
     arabic = [c for c in text if _is_arabic_letter(c)]
     if arabic:
         return "abjad", ("Arabic-script letters (eastern abjad order; use --notation abjad-maghribi "
@@ -94,6 +128,10 @@ def detect_notation(text: str) -> tuple[str, str]:
     written = _CODE_POINT_SIGN.search(text)
     if written:
         return "greek", f"a Greek numeral sign written as its code point ({written.group()})"
+    for c in text:
+        script = script_of(c)
+        if script is not None:
+            return script.name, f"{script.label} digits ({_name(c)})"
     number_forms = [c for c in text if 0x2160 <= ord(c) <= 0x2188]
     if number_forms:
         return "roman", f"Unicode Roman numeral characters ({_name(number_forms[0])})"
@@ -105,6 +143,8 @@ def detect_notation(text: str) -> tuple[str, str]:
                                "Roman ten use --notation roman)")
     if not digits and letters and all(c in _ROMAN for c in letters):
         return "roman", "the Latin letters of Roman numerals (I V X L C D M)"
+    if not digits and letters and all(c in _IAST for c in letters) and _aryabhata_like(text):
+        return "aryabhata", "IAST syllables (Āryabhaṭa's alphabetic numerals)"
     if digits:
         if "," in text or ";" in text:
             return "sexagesimal", _SEPARATED
@@ -113,6 +153,22 @@ def detect_notation(text: str) -> tuple[str, str]:
                                  "whose magnitude the text does not fix")
         return "sexagesimal", _ONE_PLACE
     return "sexagesimal", "no numeral letters or signs of another notation; read as sexagesimal"
+
+
+_IAST = frozenset("aāiīuūṛṝḷḹeokgṅcjñṭḍṇtdnpbmyrlvśṣshx")
+_IAST_MARKED = frozenset("āīūṛṝḷḹṅñṭḍṇśṣ")
+
+
+def _aryabhata_like(text: str) -> bool:
+    if any(c in _IAST_MARKED for c in text):
+        return True
+    from .aryabhata import parse
+    from ..errors import NumcheckError
+    try:
+        parse(text)
+    except NumcheckError:
+        return False
+    return True
 
 
 def _greek_or_attic(letters: list[str]) -> tuple[str, str]:

@@ -15,7 +15,7 @@ from ..reading import Status
 __all__ = ["CLOSERS", "SEPARATOR", "RAW", "join_marked", "BRACKET_TOKENS", "track_bracket", "status_in"]
 
 #: The closing bracket of each opening bracket numcheck writes.
-CLOSERS = {"[": "]", "<": ">", "{": "}", "\u2e22": "\u2e23"}
+CLOSERS = {"[": "]", "<": ">", "{": "}", "\u2e22": "\u2e23", "<<": ">>"}
 
 #: A separator between places: it stays inside a bracket only when the piece
 #: after it stands in the same bracket (``[1,49]``, but ``5[x],8``).

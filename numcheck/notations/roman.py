@@ -16,6 +16,16 @@ not add independently (a lost letter before X may make it IX or XX), so all
 the counted letters form **one** slot whose values are every total the
 traces allow, found by trying every letter at every lost position.  A
 superfluous letter (``{I}``) keeps a slot of its own that does not count.
+
+Medieval forms (Cappelli, *Lexicon abbreviaturarum*, "Numeri romani", from
+memory; common practice in editions of Latin astronomical tables): framing
+points around and between the groups (``.m.cc.lij.`` = 1252, with ``.`` or
+the middle dot) are punctuation and carry no value; they are kept for
+writing the numeral back.  The apostrophic forms write 1000 as ``CIↃ``, 500
+as ``IↃ``, 10000 as ``CCIↃↃ`` and 5000 as ``IↃↃ``: as many C before the I
+as reversed C (U+2183, or the small U+2184) after it make 10^(n+2); an I
+followed by n reversed C with no C before it makes 5 x 10^(n+1).  Each such
+group is one letter of that value (``CIↃCCCXX`` = 1320).
 """
 
 from __future__ import annotations
@@ -54,6 +64,10 @@ BAD_EXAMPLES: list[tuple[str, int, str]] = [
     ("\u0305X", 1, "an overline with no letter before it"),
     ("\u2183", 1, "a Number Forms character with no value of its own"),
     ("X]", 2, "a closing bracket with no opening bracket"),
+    ("..", 1, "framing points with no letter"),
+    ("X[.?]", 3, "a framing point inside brackets"),
+    ("X.?", 3, "a doubt mark with no letter before it"),
+    ("ↃI", 1, "a Number Forms character with no value of its own"),
     ("[X", 1, "a bracket opened and never closed"),
 ]
 
@@ -73,6 +87,8 @@ class _Letter:
     start: int           # positions in the NFC text
     end: int
     mark: str = "?"      # how the doubt was written: "?" or an underdot (U+0323)
+    before: tuple = ()   # framing points written before it: ((text, bracket), ...)
+    after: tuple = ()    # framing points written after it
 
 
 class _OrderError(Exception):
@@ -148,19 +164,33 @@ def parse(text: str) -> Reading:
 
 def _letters(text: str, nfd: str, where: list[int], tokens) -> list[_Letter]:
     letters: list[_Letter] = []
+    pending: list[tuple[str, str | None]] = []     # points before the first letter
     state: dict[str, int | None] = {"lost": None, "added": None, "superfluous": None}
     for tok in tokens:
         start, end = where[tok.start_pos], where[tok.end_pos]
         t = tok.type
         if track_bracket(t, start, state, lambda pos, what, exp: _error(text, pos, what, exp)):
             continue
+        if t == "POINT":
+            if state["lost"] is not None:
+                raise _error(text, start, "a framing point inside brackets",
+                             "points outside [ ] ('[.]' is a lost letter)")
+            bracket = _BRACKET_OF(state)
+            if letters:
+                letters[-1] = replace(letters[-1], after=letters[-1].after + ((str(tok), bracket),))
+            else:
+                pending.append((str(tok), bracket))
+            continue
+        if t == "APOSTROPHIC":
+            letters.extend(_apostrophic(str(tok), start, state))
+            continue
         if t in ("DOUBT", "UNDERDOT"):
-            if not letters or letters[-1].kind != "letter":
+            if not letters or letters[-1].kind != "letter" or letters[-1].after:
                 raise _error(text, start, "a doubt mark with no letter before it", "a letter before it")
             letters[-1] = replace(letters[-1], doubtful=True, end=max(letters[-1].end, end),
                                   mark="?" if t == "DOUBT" else "\u0323")
         elif t == "OVERLINE":
-            if not letters or letters[-1].kind != "letter" or letters[-1].value >= 1000 and \
+            if not letters or letters[-1].kind != "letter" or letters[-1].after or letters[-1].value >= 1000 and \
                     letters[-1].text.endswith("\u0305"):
                 raise _error(text, start, "an overline with no letter before it",
                              "a letter before the overline (U+0305)")
@@ -188,7 +218,36 @@ def _letters(text: str, nfd: str, where: list[int], tokens) -> list[_Letter]:
         if opened is not None:
             raise _error(text, opened, "a bracket opened and never closed",
                          f"a closing bracket for the {name} part")
+    if pending and not letters:
+        raise _error(text, 0, "framing points with no letter", "a numeral between the points (.m.cc.lij.)")
+    if pending:
+        letters[0] = replace(letters[0], before=tuple(pending))
     return letters
+
+
+def _BRACKET_OF(state: dict) -> str | None:
+    """The bracket a point stands in (points are written back inside it)."""
+    if state.get("superfluous") is not None:
+        return "{"
+    if state.get("lost") is not None:
+        return "["
+    return "<" if state.get("added") is not None else None
+
+
+def _apostrophic(group: str, start: int, state: dict) -> list[_Letter]:
+    """An apostrophic group (CIↃ, IↃ, CCIↃↃ ...) as its letters: extra C's, then one value."""
+    n = sum(1 for c in group if c in "\u2183\u2184")
+    cs = group.index(next(c for c in group if c in "Ii"))
+    status = status_in(state, False)
+    out = []
+    if cs >= n:
+        extra, value = cs - n, 10 ** (n + 2)
+    else:
+        extra, value = cs, 5 * 10 ** (n + 1)
+    for k in range(extra):
+        out.append(_Letter(group[k], 100, "letter", status, False, start + k, start + k + 1))
+    out.append(_Letter(group[extra:], value, "letter", status, False, start + extra, start + len(group)))
+    return out
 
 
 def _check_j(text: str, letters: list[_Letter]) -> None:
@@ -383,12 +442,18 @@ def format(reading: Reading, choice: tuple[Fraction, ...] | None = None) -> str:
             for x in letters:
                 if fill_iter is not None and x.status in _OPEN_KINDS:
                     piece = next(fill_iter)
-                    pieces.append((piece, None if x.status is Status.UNREAD else "["))
+                    pieces.extend(_pieces(x, (piece, None if x.status is Status.UNREAD else "[")))
                 else:
-                    pieces.append(_piece(x))
+                    pieces.extend(_pieces(x, _piece(x)))
         else:
-            pieces.extend(_piece(x) for x in form)
+            for x in form:
+                pieces.extend(_pieces(x, _piece(x)))
     return unicodedata.normalize("NFC", _join(pieces))
+
+
+def _pieces(x: _Letter, main: tuple[str, str | None]) -> list[tuple[str, str | None]]:
+    """A letter's piece with the framing points written around it."""
+    return list(x.before) + [main] + list(x.after)
 
 
 def _piece(x: _Letter) -> tuple[str, str | None]:

@@ -11,7 +11,7 @@ from fractions import Fraction
 
 import re
 
-from ..errors import NumcheckRangeError, NumcheckSyntaxError
+from ..errors import LimitError, NumcheckRangeError, NumcheckSyntaxError
 from .grammars import parser_for
 from .. import limits
 from ..reading import Reading, Slot, Status
@@ -142,7 +142,7 @@ def _plain(text: str, *, floating: bool, notation: str) -> Reading | None:
     for k, place in enumerate(whole + fraction):
         value = int(place)
         capped = not (lone_whole and k == 0)
-        if (capped and value > 59) or (not capped and len(place) > 6):
+        if (capped and value > 59) or (not capped and len(place) > limits.MAX_WHOLE_PLACE_DIGITS):
             return None
         form = tuple(_Pos(ch, Status.READ, False, start + i) for i, ch in enumerate(place))
         slots.append(Slot(values=(Fraction(value),), status=Status.READ, text=place,
@@ -294,11 +294,16 @@ def _place(text: str, tokens: list[Token], state: dict, capped: bool = True) -> 
 
 def _uncapped_place(text, counted: list[_Pos], positions, written: str, start: int) -> Slot:
     """A lone whole place written in decimal (365 in 365;14,48): any value."""
-    if len(counted) > 6:
-        raise NumcheckRangeError(f"The units place {written!r} has more digits than numcheck reads.",
-                                 value=written, legal="at most six decimal digits", text=text,
-                                 position=start)
     open_kinds = (Status.UNREAD, Status.LOST, Status.RESTORED)
+    if len(counted) > limits.MAX_WHOLE_PLACE_DIGITS:
+        raise LimitError(f"number of decimal digits in the whole place {written!r}", len(counted),
+                         limits.MAX_WHOLE_PLACE_DIGITS,
+                         "Set numcheck.limits.MAX_WHOLE_PLACE_DIGITS higher to read it.")
+    open_count = sum(1 for p in counted if p.kind in open_kinds)
+    if open_count > limits.MAX_WHOLE_PLACE_OPEN_DIGITS:
+        raise LimitError(f"number of unread or lost digits in the whole place {written!r}", open_count,
+                         limits.MAX_WHOLE_PLACE_OPEN_DIGITS,
+                         "Set numcheck.limits.MAX_WHOLE_PLACE_OPEN_DIGITS higher to read it.")
     sums = {0}
     n = len(counted)
     for i, pos in enumerate(counted):

@@ -41,7 +41,7 @@ def _reading(reading_or_text, notation, unit) -> Reading:
 
 
 def restore(reading_or_text, *, notation=None, unit=None, expect=None, context=(), top=10,
-            use_catalogue=True, tradition=None) -> RestoreResult:
+            use_catalogue=True, tradition=None, satisfies=()) -> RestoreResult:
     """Rank the readings a damaged number allows, with probabilities and reasons.
 
     *reading_or_text* is a :class:`~numcheck.reading.Reading` or a text read
@@ -50,7 +50,9 @@ def restore(reading_or_text, *, notation=None, unit=None, expect=None, context=(
     of :class:`Evidence` from the number's surroundings; the catalogue of
     periods is consulted unless ``use_catalogue=False``; *tradition*
     (babylonian, greek ...) weighs that tradition's catalogue rows above the
-    others (without it, the tradition the notation says).  Gives the *top*
+    others (without it, the tradition the notation says); *satisfies* is a
+    relation from mathematics (``"x^2 = 2"``) or several, weighed like an
+    expected value (:mod:`numcheck.restore.mathematics`).  Gives the *top*
     candidates, best first, with probabilities over the whole space.
 
     >>> restore("29;31,5[x],8,20", use_catalogue=False, expect="29;31,50,8,20").best.text
@@ -72,7 +74,7 @@ def restore(reading_or_text, *, notation=None, unit=None, expect=None, context=(
     space = build_space(reading)
     targets, ev_notes = gather(reading, space, expect=expect, context=context,
                                use_catalogue=use_catalogue, unit=unit or reading.unit,
-                               tradition=tradition)
+                               tradition=tradition, satisfies=satisfies)
     notes = list(space.notes) + ev_notes
     grids = [grid_for(s) for s in space.subspaces]
     order = sorted(range(len(targets)), key=lambda i: targets[i].value)

@@ -9,7 +9,9 @@ off still agrees, a weight, a plain-language label):
 * context passed in by the caller as :class:`Evidence` (the value a table's
   scheme or a relation expects in this cell);
 * a value the user expects (``expect``: a text read with
-  :func:`numcheck.read`, or an exact number).
+  :func:`numcheck.read`, or an exact number);
+* a relation from mathematics the number should satisfy (``satisfies``:
+  ``x^2 = 2``, ``1/x = 7,30``; :mod:`numcheck.restore.mathematics`).
 
 A catalogue value or an expected value agrees with a reading when it lies
 less than one unit of the reading's last written place away (the scribe may
@@ -64,7 +66,7 @@ class Target:
     tolerance: Fraction | None   # None: less than one unit of the reading's last place
     weight: float
     label: str
-    kind: str                    # "catalogue", "context" or "expect"
+    kind: str                    # "catalogue", "context", "expect" or "mathematics"
     group: str | None = None     # evidence of one group shares the group's weight
     id: str = ""
 
@@ -192,8 +194,21 @@ def _catalogue(reading: Reading, space, unit: str | None, notes: list[str],
     return sorted(out, key=lambda t: (t.value, t.id))
 
 
+def _relation_targets(satisfies) -> list[Target]:
+    from .mathematics import parse_relation, solve
+
+    relations = [satisfies] if isinstance(satisfies, str) else list(satisfies)
+    out = []
+    for i, text in enumerate(relations):
+        relation = parse_relation(text)
+        out.append(Target(solve(relation), None, scoring.EXPECT_WEIGHT, relation.label, "mathematics",
+                          id=f"relation-{i + 1}"))
+    return out
+
+
 def gather(reading: Reading, space, *, expect=None, context=(), use_catalogue=True,
-           unit: str | None = None, tradition: str | None = None) -> tuple[list[Target], list[str]]:
+           unit: str | None = None, tradition: str | None = None,
+           satisfies=()) -> tuple[list[Target], list[str]]:
     """Every piece of evidence as :class:`Target` s, and notes on what was used."""
     notes: list[str] = []
     targets: list[Target] = []
@@ -205,6 +220,8 @@ def gather(reading: Reading, space, *, expect=None, context=(), use_catalogue=Tr
                               id=f"context-{i + 1}"))
     if expect is not None:
         targets.append(_expect_target(reading, expect, reading.notation))
+    if satisfies:
+        targets.extend(_relation_targets(satisfies))
     if use_catalogue:
         targets.extend(_catalogue(reading, space, unit, notes, tradition))
     return [t for t in targets if t.weight > 0], notes

@@ -39,7 +39,7 @@ def evidence_reason(target: Target, value: Fraction, ulp: Fraction, base: int) -
     else:
         fit = f"off by {_num(abs(value - t), base)} (tolerance {_num(target.tolerance, base)})"
     what = {"catalogue": "agrees with the catalogue: ", "expect": "agrees with ",
-            "context": "agrees with "}.get(target.kind, "agrees with ")
+            "context": "agrees with ", "mathematics": "agrees with mathematics: "}.get(target.kind, "agrees with ")
     return f"{what}{target.label}, {fit}"
 
 

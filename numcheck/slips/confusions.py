@@ -31,7 +31,8 @@ NOTATIONS_WITH_CONFUSIONS = ("sexagesimal", "cuneiform", "greek", "abjad", "abja
                              "roman", "decimal")
 
 #: Notations that share another's confusion data.
-_ALIASES = {"greek-ascending": "greek", "greek-astronomical": "greek", "greek-documentary": "greek"}
+_ALIASES = {"greek-ascending": "greek", "greek-astronomical": "greek", "greek-documentary": "greek",
+            "atf": "cuneiform", "atf-math": "cuneiform"}
 
 #: Sexagesimal values are searched for confusions down to this many fractional places.
 _MAX_FRACTION_PLACES = 8

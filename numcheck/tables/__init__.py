@@ -1,7 +1,7 @@
 """Every table source read into one :class:`Table` of exact cells, for the audit and the batch.
 
 A table may come as a TSV, CSV or whitespace-aligned text file, as the first
-``<table>`` of a TEI/EpiDoc file, or as a pandas DataFrame of cell texts:
+``<table>`` of a TEI/EpiDoc file, as a tabular ATF transliteration (``.atf``), or as a pandas DataFrame of cell texts:
 each source gives a header and rows of cell texts, and :func:`build_table`
 reads them all the same way.
 """
@@ -18,10 +18,12 @@ from .text import read_text_file, split_text
 
 __all__ = ["read_table", "read_column", "ColumnReading", "Table", "Column", "Cell", "split_text",
            "sign_index", "ZODIAC",
-           "TEI_SUFFIXES"]
+           "TEI_SUFFIXES", "ATF_SUFFIXES"]
 
 #: File suffixes read as TEI/EpiDoc (their first ``<table>``).
 TEI_SUFFIXES = (".xml",)
+#: File suffixes read as ATF transliterations (one row per text line with numbers).
+ATF_SUFFIXES = (".atf",)
 
 
 def read_table(table, *, notation: str | None = None, columns=None, join=None) -> Table:
@@ -43,7 +45,11 @@ def read_table(table, *, notation: str | None = None, columns=None, join=None) -
     elif isinstance(table, (str, Path)):
         path = Path(table)
         source = str(path)
-        if path.suffix.lower() in TEI_SUFFIXES and path.is_file():
+        if path.suffix.lower() in ATF_SUFFIXES and path.is_file():
+            from .atf import atf_rows
+            header, rows, found = atf_rows(read_text_file(path), str(path))
+            notation = notation or found
+        elif path.suffix.lower() in TEI_SUFFIXES and path.is_file():
             from .tei import table_to_dataframe
             frame = table_to_dataframe(path, notation=notation)
             notation = notation or frame.attrs.get("notation")

@@ -32,6 +32,8 @@ __all__ = ["Cell", "Column", "Table", "build_table", "check_cells", "ZODIAC", "s
            "ColumnReading", "read_column"]
 
 
+#: Notations whose module writes a value in the style of a given cell (``write_like``).
+_WRITES_LIKE = ("atf", "atf-math")
 _PLAIN = re.compile(r"-?\d+(?:,\d+)*(?:;\d+(?:,\d+)*)?")
 _SEPARATORS = re.compile(r"[,;]")
 _LONGITUDE = re.compile(r"(?P<number>.*\S)\s+(?P<sign>\S+)")
@@ -124,6 +126,12 @@ class Column:
         """
         from ..slips import write_value
         cell = self.cells[index]
+        if cell.reading is not None and cell.notation in _WRITES_LIKE:
+            # a notation with styles of its own (ATF: 2(u) 4(disz) or 24) writes as the cell does
+            from ..notations import notation_module
+            text = notation_module(cell.notation).write_like(cell.reading, value)
+            if text is not None:
+                return text
         text = write_value(value, notation=cell.notation,
                            places=self.usual_places if self.final_zeros else 0,
                            floating=cell.floating, sign_name=cell.sign_name,
@@ -347,7 +355,7 @@ def _fast(row, column, number, notation, text) -> Cell | None:
     # Too many places, or a place of more digits than the reader accepts:
     # let the reader give its own error (the same limits as numcheck.read).
     if number.count(",") + number.count(";") >= limits.MAX_PLACES or \
-            any(len(p) > 6 for p in _SEPARATORS.split(number.lstrip("-"))):
+            any(len(p) > limits.MAX_WHOLE_PLACE_DIGITS for p in _SEPARATORS.split(number.lstrip("-"))):
         return None
     neg = number.startswith("-")
     whole, _, frac = (number[1:] if neg else number).partition(";")

@@ -1,0 +1,34 @@
+"""The persian digits: see :mod:`numcheck.notations.digits` (e.g. ``۳۶۵``)."""
+
+from __future__ import annotations
+
+from fractions import Fraction
+
+from ...reading import Reading
+from . import SCRIPTS, format_in, parse_in
+
+__all__ = ["NAME", "parse", "format", "render", "BAD_EXAMPLES"]
+
+NAME = "persian"
+_SCRIPT = SCRIPTS[NAME]
+
+#: Known-bad inputs, the column (1-based) the error must point at, and the label.
+BAD_EXAMPLES: list[tuple[str, int, str]] = [
+    ("\u06f1\u06f2a", 3, "a character that is not part of a number in these digits"),
+    ("\u06f1\u0664", 2, "a digit of another script (Arabic-Indic) among them"),
+]
+
+
+def parse(text: str) -> Reading:
+    """Read *text* written in persian digits."""
+    return parse_in(text, _SCRIPT)
+
+
+def format(reading: Reading, choice: tuple[Fraction, ...] | None = None) -> str:
+    """Write *reading* back in persian digits, marks included."""
+    return format_in(reading, _SCRIPT, choice)
+
+
+def render(reading: Reading, choice: tuple[Fraction, ...]) -> str:
+    """One reading of a damaged number, restored digits in brackets."""
+    return format_in(reading, _SCRIPT, choice)
