@@ -226,7 +226,7 @@ def classify(written: Fraction, expected: Fraction, *, places: int = 0, floating
                 carry = _carry_kind(prev, expected, written, k, modulus)
                 if carry is not None:
                     return carry
-            if abs(dw) in (1, 10) and notation not in ("sexagesimal", "cuneiform"):
+            if abs(dw) in (1, 10) and notation.startswith(_LETTER_SCRIPTS):
                 # In a script of letters a slip of one or ten is first a letter
                 # confusion when the table of look-alikes knows it.
                 alt = _letter(notation, w[k], e[k])
@@ -363,6 +363,12 @@ def _shape(ws: list[int], es: list[int]) -> Diagnosis | None:
     return None
 
 
+#: Scripts that write numbers with letters (a slip of one or ten is a letter there).
+_LETTER_SCRIPTS = ("greek", "abjad", "hebrew")
+#: Notations of wedges and corners (cuneiform, its transcriptions and ATF).
+_WEDGE_SCRIPTS = ("sexagesimal", "cuneiform", "atf")
+
+
 def _digit_reason(notation: str, size: int, dw: int, what: str, written: int, expected: int) -> str:
     """A slip of one or ten in one place, in the script's own terms.
 
@@ -375,7 +381,7 @@ def _digit_reason(notation: str, size: int, dw: int, what: str, written: int, ex
     'the tens letter κ written for ι in the first fractional place (one ten too many)'
     """
     more = "too many" if dw > 0 else "too few"
-    if notation in ("sexagesimal", "cuneiform"):
+    if notation.startswith(_WEDGE_SCRIPTS):
         sign = "unit wedge" if size == 1 else "ten-corner"
         return f"one {sign} {more} in {what}"
     if notation.startswith("greek"):
