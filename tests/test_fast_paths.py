@@ -200,3 +200,51 @@ def test_identify_lookup_finds_what_the_full_grid_finds(unit, centre, width):
     tab = targets.table(unit)
     lo, hi = centre - abs(centre) * width - 1e-9, centre + abs(centre) * width + 1e-9
     assert targets.candidates(tab, lo, hi, multiples=False) == _grid_candidates(tab, lo, hi)
+
+
+# ---- Greek numbers without the LALR parser ---------------------------------
+
+_GREEK_SIGNS = "αβγδεϛζηθικλμνξοπϙρστυφχψωϡΑΓΚΣ͵ʹ'’\u0305𐆊ō∠𐅵"
+
+
+def _tokens(tree):
+    return [(t.type, str(t), t.start_pos, t.end_pos, t.line, t.column, t.end_line, t.end_column)
+            for t in tree.scan_values(lambda v: True)]
+
+
+@given(st.lists(st.text(alphabet=_GREEK_SIGNS, min_size=1, max_size=4), min_size=1, max_size=5),
+       st.sampled_from([" ", "  ", "\u00a0"]))
+def test_a_plain_greek_number_gets_the_parsers_tree(groups, space):
+    from numcheck.notations import greek
+
+    text = space.join(groups)
+    fast = greek._plain_tree(text)
+    slow = build_parser("greek").parse(text)
+    assert fast is not None
+    assert fast == slow and _tokens(fast) == _tokens(slow)
+
+
+@pytest.mark.parametrize("text", sorted(t for t in SEEDS if any("\u0370" <= c <= "\u03ff" for c in t)))
+def test_greek_reads_the_same_with_and_without_the_parser(text, monkeypatch):
+    import warnings
+
+    from numcheck.notations import greek
+
+    def outcome():
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore")
+            try:
+                return read(text, notation="greek")
+            except NumcheckError as err:
+                return (type(err).__name__, str(err))
+
+    fast = outcome()
+    monkeypatch.setattr(greek, "_plain_tree", lambda text: None)
+    assert outcome() == fast
+
+
+@pytest.mark.parametrize("text", ["κ[θ]", "κθ?", "κ.", " κθ", "κθ ", "κθ λα\u0323"])
+def test_greek_with_marks_goes_to_the_parser(text):
+    from numcheck.notations import greek
+
+    assert greek._plain_tree(text) is None
