@@ -385,8 +385,9 @@ def _read_once(text: str, notation: str) -> Reading:
     """
     from .. import limits
 
-    names = _LIMIT_NAMES or _LIMIT_NAMES.extend(sorted(k for k in vars(limits) if k.isupper())) or _LIMIT_NAMES
-    return _remembered(text, notation, tuple(getattr(limits, k) for k in names))
+    if not _LIMIT_NAMES:
+        _LIMIT_NAMES.extend(sorted(k for k in vars(limits) if k.isupper()))
+    return _remembered(text, notation, tuple(getattr(limits, k) for k in _LIMIT_NAMES))
 
 
 _LIMIT_NAMES: list[str] = []
