@@ -9,16 +9,16 @@ the wheel, so that ``numcheck demo`` works after ``pip install``):
   month) and B (the longitude of the syzygy), computed with the parameters of
   the Babylonian lunar System B, column A: a linear zigzag with
   M = 30;1,59, m = 28;10,39,40, d = 0;18 (O. Neugebauer, Astronomical
-  Cuneiform Texts, 1955, vol. 1, System B; reference/schemes.csv
-  BAB-LUN-B-A), and B the running sum of A, written as degrees within a
+  Cuneiform Texts, 1955, vol. 1, System B),
+  and B the running sum of A, written as degrees within a
   zodiacal sign; then damaged: scribal slips of several kinds and lost digits.
 * ``papyrus.xml``  a Greek papyrus-style table in TEI/EpiDoc: the moon's mean
   motion for days 1 to 24 at 13;10,35 degrees a day (the mean of the System B
-  daily lunar velocity scheme, reference/schemes.csv BAB-LUN-DAILY), in Greek
+  daily lunar velocity scheme, ACT vol. 1), in Greek
   alphabetic numerals with sexagesimal places, damaged with <gap>,
   <supplied> and <unclear>, and one slip.
 * ``fragments.tsv``  stray numbers "from fragments": published periods and
-  parameters (reference/periods.csv) written in the notations of their
+  parameters (numcheck/data/periods.csv) written in the notations of their
   traditions, with lost digits.
 * ``answer_key.json``  what was injected where, and the true values.
 
@@ -298,7 +298,7 @@ def _range(value: Fraction, place: int) -> tuple[Fraction, Fraction]:
 # -- the fragments ---------------------------------------------------------
 
 FRAGMENTS = [
-    # fragment, text, notation, unit, true text, true value, catalogue ids (reference/periods.csv)
+    # fragment, text, notation, unit, true text, true value, catalogue ids (numcheck/data/periods.csv)
     ("Frag. K 1", "29;31,5[x],8,20", "sexagesimal", "days", "29;31,50,8,20",
      sexa("29;31,50,8,20"), ["bab_month_sysB", "hipp_month"]),
     ("Frag. K 2", "365;14,4[x]", "sexagesimal", "days", "365;14,48", sexa("365;14,48"),

@@ -16,6 +16,7 @@ import argparse
 import importlib
 import json
 import pkgutil
+import re
 import sys
 import warnings
 
@@ -52,7 +53,17 @@ def _chosen_command(argv: list[str], names: list[str]) -> str | None:
 
 
 class _Parser(argparse.ArgumentParser):
-    """argparse, but bad options exit 2 with a one-line message (bad input)."""
+    """argparse, but bad options exit 2 with a one-line message (bad input).
+
+    A word that begins with ``-`` and a digit is a value, never an option:
+    ``numcheck read -3;30`` reads minus 3;30 and ``numcheck interval
+    -746-02-26 -323-11-12`` takes astronomical years (no option of numcheck
+    begins with a digit).
+    """
+
+    def __init__(self, *args, **kwargs):
+        super().__init__(*args, **kwargs)
+        self._negative_number_matcher = re.compile(r"^-\d")
 
     def error(self, message):
         self.print_usage(sys.stderr)
@@ -73,6 +84,9 @@ def build_parser(argv: list[str] | None = None) -> argparse.ArgumentParser:
         description="Read, identify, restore and audit the numbers of ancient and medieval "
                     "astronomical and mathematical texts.",
     )
+    from . import __version__
+
+    parser.add_argument("--version", action="version", version=f"numcheck {__version__}")
     sub = parser.add_subparsers(dest="command", metavar="COMMAND", parser_class=_Parser)
     names = _command_names()
     chosen = _chosen_command(argv, names) if argv is not None else None
@@ -155,6 +169,47 @@ def _on_terminate(signum, frame):
     raise SystemExit(128 + signum)
 
 
+class _TrimmedLines:
+    """A pipe's stdout for rich: each line without the spaces that pad it to the width.
+
+    What goes through a pipe is pasted into editions and e-mails; trailing
+    blanks would only get in the way.
+    """
+
+    def __init__(self, out):
+        self._out = out
+        self._partial = ""
+        self.encoding = getattr(out, "encoding", None) or "utf-8"
+
+    def write(self, text: str) -> int:
+        lines = (self._partial + text).split("\n")
+        self._partial = lines.pop()
+        for line in lines:
+            self._out.write(line.rstrip() + "\n")
+        return len(text)
+
+    def flush(self) -> None:
+        if self._partial:
+            self._out.write(self._partial)
+            self._partial = ""
+        self._out.flush()
+
+    def isatty(self) -> bool:
+        return False
+
+    def fileno(self) -> int:
+        return self._out.fileno()
+
+
+def _stdout():
+    out = sys.stdout
+    try:
+        tty = out.isatty()
+    except (AttributeError, ValueError):
+        tty = False
+    return out if tty else _TrimmedLines(out)
+
+
 def main(argv: list[str] | None = None) -> int:
     import signal
 
@@ -208,7 +263,7 @@ def _main(args) -> int:
     if not args.json:   # rich is loaded only for the readable tables
         from rich.console import Console
 
-        console = _console_class()(stderr=False, highlight=False, soft_wrap=False)
+        console = _console_class()(file=_stdout(), highlight=False, soft_wrap=False)
         err_console = Console(stderr=True, highlight=False)
     try:
         with warnings.catch_warnings(record=True) as caught:
@@ -217,8 +272,18 @@ def _main(args) -> int:
         if args.json:
             sys.stdout.write(_json_text(result))
         else:
+            console.file.flush()
+            # A warning the command already showed as a note of its result is not said twice.
+            shown = set()
+            if isinstance(result, dict):
+                for key in ("warnings", "notes"):
+                    shown.update(str(n) for n in result.get(key) or () if isinstance(n, str))
             for w in caught:
-                err_console.print(f"[yellow]warning:[/yellow] {w.message}", markup=True)
+                if str(w.message) in shown:
+                    continue
+                from rich.markup import escape
+
+                err_console.print(f"[yellow]warning:[/yellow] {escape(str(w.message))}", markup=True)
         sys.stdout.flush()
         return 0
     except NumcheckError as err:

@@ -126,8 +126,9 @@ def _fragments(data: Path, out: Path, key: dict, step: Step) -> None:
         item = {"fragment": name, "text": text, "notation": notation, "unit": unit}
         try:
             reading = read(text, notation=notation, unit=unit)
-            ident = identify(reading, unit=unit, top=3)
             rest = restore(reading, unit=unit, top=_RESTORE_TOP)
+            # Identify what the best restoration reads, not the damaged text at its lowest.
+            ident = identify(_restored_reading(rest, reading, notation, unit), unit=unit, top=3)
         except NumcheckError as err:
             item["skipped"] = f"{type(err).__name__}: {err}"
             step.reasons.append(f"{name} ({text}): {item['skipped']}")
@@ -167,6 +168,30 @@ def _fragments(data: Path, out: Path, key: dict, step: Step) -> None:
                     f"value for {right_value}, the best identification its catalogue entry for {right_id}")
     if done < total:
         step.status = "partial" if done else "skipped"
+
+
+#: Damage marks taken away from a restored reading to read it as the restorer proposes it.
+_MARKS = str.maketrans("", "", "[]⸢⸣?\u0323")
+
+
+def _restored_reading(rest, reading, notation, unit):
+    """The best restoration read as if it were written so (the damaged reading if there is none).
+
+    >>> from numcheck.restore import restore
+    >>> from numcheck.reader import read
+    >>> r = read("29;31,5[x],8,20")
+    >>> _restored_reading(restore(r), r, None, "days").text
+    '29;31,50,8,20'
+    """
+    from .reader import read
+
+    if not reading.damaged or not rest.candidates:
+        return reading
+    text = rest.candidates[0].text.translate(_MARKS)
+    try:
+        return read(text, notation=notation, unit=unit)
+    except NumcheckError:
+        return reading
 
 
 def _fraction(text: str) -> Fraction:

@@ -187,7 +187,13 @@ def test_demo_restores_the_fragments(demo, key):
     assert _step(d, "fragments")["best_restoration_right"] == 8
     for name in ("Frag. K 1", "Frag. K 2", "Frag. K 3", "Frag. K 4", "Frag. T 1", "Frag. T 2"):
         assert items[name]["identified"][0]["id"] in truth[name]["catalogue"], name
+    # The best restoration is identified, not the damaged text at its lowest reading:
+    # 3,4[3] is the Saros (223 months), CCXXX[V] the 19-year cycle (235 months).
+    assert _step(d, "fragments")["identified_right"] == 8
     tsv = (out / "fragments-restored.tsv").read_text(encoding="utf-8")
+    best = {row[0]: row[-1] for row in (ln.split("\t") for ln in tsv.splitlines()[2:]) if row[4] == "1"}
+    for name, want in truth.items():
+        assert best[name] in want["catalogue"], (name, best[name])
     assert "29;31,5[0],8,20" in tsv and "suggestions" in tsv
 
 
@@ -203,7 +209,7 @@ def test_demo_summary_and_console_text(demo):
     _show(d, console)
     text = console.export_text()
     assert "the audit flagged 14 of them (14 with the same kind)" in text
-    assert "contradiction line" in text and "suggestions for the editor" in text
+    assert "contradiction: line" in text and "suggestions for the editor" in text
 
 
 def test_demo_refuses_a_file_as_output(tmp_path):

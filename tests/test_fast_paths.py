@@ -133,7 +133,9 @@ def test_a_damaged_cache_file_is_compiled_again(tmp_path, monkeypatch):
 
 def test_an_empty_setting_turns_the_cache_off(monkeypatch):
     monkeypatch.setenv("NUMCHECK_CACHE", "")
-    assert grammars.cache_dir() is None
+    from numcheck import cache
+
+    assert cache.cache_dir() is None
 
 
 # ---- the catalogue without pandas ------------------------------------------
@@ -248,3 +250,38 @@ def test_greek_with_marks_goes_to_the_parser(text):
     from numcheck.notations import greek
 
     assert greek._plain_tree(text) is None
+
+
+# ---- the catalogue's tables kept on disk -----------------------------------
+
+def test_the_catalogue_kept_on_disk_is_the_catalogue_computed(tmp_path, monkeypatch):
+    from numcheck.identify import targets
+
+    monkeypatch.setenv("NUMCHECK_CACHE", str(tmp_path))
+    catalogue._entries.cache_clear()
+    targets.all_items.cache_clear()
+    try:
+        computed = targets.all_items()                 # computed, then stored
+        assert sorted(p.name.split("-")[0] for p in tmp_path.glob("*.pickle")) == ["catalogue", "catalogue"]
+        catalogue._entries.cache_clear()
+        targets.all_items.cache_clear()
+        loaded = targets.all_items()                   # loaded from the files
+        assert loaded is not computed
+        assert loaded == computed == targets.compute_items()
+        assert catalogue._entries() == catalogue._parse_entries()
+    finally:
+        catalogue._entries.cache_clear()
+        targets.all_items.cache_clear()
+
+
+def test_a_damaged_catalogue_file_is_computed_again(tmp_path, monkeypatch):
+    monkeypatch.setenv("NUMCHECK_CACHE", str(tmp_path))
+    catalogue._entries.cache_clear()
+    try:
+        catalogue._entries()
+        (path,) = tmp_path.glob("catalogue-*.pickle")
+        path.write_bytes(b"\x80\x05not a pickle")
+        catalogue._entries.cache_clear()
+        assert catalogue._entries() == catalogue._parse_entries()
+    finally:
+        catalogue._entries.cache_clear()

@@ -1,23 +1,32 @@
 """Every example command of the README runs (a README that lies is a bug).
 
-Examples that need a file of the reader's own (ephemeris.tsv, edition.xml ...)
-and the usage summaries in capitals are left out; the rest run through the
-command line with --json and must succeed.  Some also pin the value the
+The usage summaries in capitals are left out; every other example runs
+through the command line with --json and must succeed.  Examples that name
+files use the ones the repository ships (``examples/``, ``corpora_demo/``):
+they run in a fresh folder holding a copy of both, as from a fresh checkout,
+and every input they name must exist there.  Some also pin the value the
 README's comment promises.
 """
 
 import json
 import re
 import shlex
+import shutil
 from pathlib import Path
 
 import pytest
 
 from numcheck.cli import main
 
-README = Path(__file__).resolve().parent.parent / "README.md"
+ROOT = Path(__file__).resolve().parent.parent
+README = ROOT / "README.md"
 
-_NEEDS_A_FILE = re.compile(r"\.(tsv|csv|xml|html|png|atf)\b|/\s|/$|\bDIR\b|\bTEXT\b|\bFILE\b|\bBODY\b|\bDATE\b|\bN\b|\[--")
+#: A usage summary (placeholders in capitals, optional parts in brackets), not an example.
+_PLACEHOLDERS = re.compile(r"\bDIR\b|\bTEXT\b|\bFILE\b|\bBODY\b|\bDATE\b|\bN\b|\[--")
+#: An argument that names a file or folder.
+_A_FILE = re.compile(r"\.(tsv|csv|xml|html|png|svg|atf)$|/$")
+#: The folders the README's examples take their files from.
+SHIPPED = ("examples", "corpora_demo")
 
 
 def _examples() -> list[str]:
@@ -26,7 +35,7 @@ def _examples() -> list[str]:
     for block in re.findall(r"```\n(.*?)```", text, flags=re.S):
         for line in block.splitlines():
             line = line.split("  #")[0].strip()
-            if line.startswith("numcheck ") and not _NEEDS_A_FILE.search(line):
+            if line.startswith("numcheck ") and not _PLACEHOLDERS.search(line):
                 lines.append(line)
     return lines
 
@@ -39,10 +48,31 @@ def test_the_readme_has_examples():
     assert len(EXAMPLES) == len(set(EXAMPLES))
 
 
+def _fresh_checkout(tmp_path: Path) -> None:
+    for name in SHIPPED:
+        shutil.copytree(ROOT / name, tmp_path / name)
+
+
+def _inputs(argv: list[str]) -> list[str]:
+    """The files an example reads (outputs follow -o, --plot, --report, --csv)."""
+    outputs = {"-o", "--output", "--plot", "--report", "--csv", "--out"}
+    return [a for i, a in enumerate(argv) if _A_FILE.search(a) and (i == 0 or argv[i - 1] not in outputs)]
+
+
+def test_examples_with_files_are_run():
+    with_files = [ln for ln in EXAMPLES if _inputs(shlex.split(ln)[1:])]
+    assert len(with_files) >= 8, with_files
+    assert any(" audit " in f" {ln} " for ln in with_files)
+    assert any(" annotate " in f" {ln} " for ln in with_files)
+
+
 @pytest.mark.parametrize("line", EXAMPLES)
 def test_readme_example_runs(line, capsys, tmp_path, monkeypatch):
+    _fresh_checkout(tmp_path)
     monkeypatch.chdir(tmp_path)            # `numcheck demo` writes into the current folder
     argv = shlex.split(line)[1:]
+    for name in _inputs(argv):
+        assert (tmp_path / name).exists(), f"the README's example names {name!r}, which is not shipped"
     if "--json" not in argv:
         argv.append("--json")
     code = main(argv)
@@ -82,3 +112,26 @@ def test_readme_promises(line, field, value, capsys):
         argv.append("--json")
     assert main(argv) == 0
     assert json.loads(capsys.readouterr().out)[field] == value
+
+
+def test_example_files_are_generated_by_their_script(tmp_path):
+    """examples/make_examples.py writes the shipped files byte for byte."""
+    import importlib.util
+
+    shutil.copytree(ROOT / "examples", tmp_path / "examples")
+    spec = importlib.util.spec_from_file_location("make_examples", tmp_path / "examples" / "make_examples.py")
+    mod = importlib.util.module_from_spec(spec)
+    spec.loader.exec_module(mod)
+    mod.main()
+    for path in (ROOT / "examples").rglob("*"):
+        if path.is_file() and path.suffix in (".tsv", ".xml", ".atf"):
+            assert (tmp_path / "examples" / path.relative_to(ROOT / "examples")).read_bytes() == \
+                path.read_bytes(), path.name
+
+
+def test_demo_readme_cites_files_that_exist():
+    text = (ROOT / "corpora_demo" / "README.md").read_text(encoding="utf-8")
+    cited = set(re.findall(r"`([\w./-]+\.(?:tsv|csv|xml|json|py|md))`", text))
+    assert cited
+    missing = [c for c in cited if not ((ROOT / "corpora_demo" / c).exists() or (ROOT / c).exists())]
+    assert not missing, missing

@@ -127,3 +127,60 @@ def test_cli_readable_output(table, capsys):
     assert main(["audit", str(table)]) == 0
     out = capsys.readouterr().out
     assert "schemes" in out and "flags" in out
+
+
+# ---- pictures that show the error ---------------------------------------------------
+
+DEMO = os.path.join(os.path.dirname(__file__), "..", "corpora_demo", "ephemeris.tsv")
+
+
+def test_residual_in_units_of_the_last_place():
+    from numcheck.report.plot import residuals
+
+    r = audit(DEMO)
+    res = dict(residuals(r, "A"))      # column A writes three fractional places
+    assert res[9] == 3600              # a unit slip in the first fractional place: 60^2 last places
+    assert res[15] == 36000            # a ten slip there
+    assert res[1] == 0
+    carried = dict(residuals(r, "B"))
+    assert {carried[k] for k in range(28, 37)} == {600}   # ten in the second place, carried on
+
+
+def test_plot_has_no_panel_for_the_line_numbers_and_names_the_file(tmp_path):
+    from numcheck.report._common import numbering_columns
+    from numcheck.report.plot import _columns
+
+    r = audit(DEMO)
+    assert numbering_columns(r.table) == {"line"}
+    assert _columns(r) == ["A", "B"]
+    svg = report.plot_bytes(r, "svg").decode("utf-8")
+    assert "ephemeris.tsv" in svg and "site-packages" not in svg
+    assert "written minus scheme" in svg and "29;30" in svg      # residual panel, sexagesimal ticks
+
+
+def test_plot_shows_a_column_without_a_scheme(tmp_path):
+    path = tmp_path / "t.tsv"
+    path.write_text("A\tB\n1;0\t5;17\n2;0\t3;2\n3;0\t9;41\n4;0\t1;13\n5;0\t7;29\n", encoding="utf-8")
+    r = audit(path)
+    assert "B" in r.to_dict()["unchecked"]
+    svg = report.plot_bytes(r, "svg").decode("utf-8")
+    assert "no scheme found" in svg
+
+
+def test_html_names_the_file_keys_the_colours_and_links_cells_to_flags():
+    r = audit(DEMO)
+    html = report.html_text(r, plot=False)
+    assert "<h1>numcheck audit of ephemeris.tsv</h1>" in html
+    assert "class='key'" in html and "slip (!)" in html
+    for f in r.to_dict()["flags"]:
+        anchor = f"flag-{f['row']}-{f['column']}"
+        assert f"id='{anchor}'" in html and f"href='#{anchor}'" in html
+    assert "href='#restored-3-A'" in html and "id='restored-3-A'" in html
+
+
+def test_html_of_a_dataframe_says_so():
+    import pandas as pd
+
+    df = pd.DataFrame({"A": ["1;0", "2;0", "3;0", "4;1", "5;0"]})
+    html = report.html_text(audit(df), plot=False)
+    assert "<DataFrame>" not in html and "a table given as a DataFrame" in html

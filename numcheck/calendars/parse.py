@@ -22,7 +22,6 @@ an error that points at the part that is wrong.
 
 from __future__ import annotations
 
-import difflib
 import re
 import unicodedata
 
@@ -166,7 +165,13 @@ def _julian_date(text: str, tokens: list) -> CalendarDate:
             items.append(("month", month_named("julian", value).number, pos))
         else:
             era_spellings = [e.name for e in eras()]
-            if pos == 0 and difflib.get_close_matches(value, era_spellings, n=1, cutoff=0.6):
+            if is_month_name("egyptian", value):
+                raise NumcheckSyntaxError(
+                    f"Cannot read {text!r}: {value!r} is an Egyptian month, and an Egyptian or "
+                    f"Alexandrian date begins with its era ({', '.join(era_spellings)})", text, pos,
+                    expected="e.g. 'Nabonassar 1 Thoth 1' or 'Diocletian 1 Thoth 1'")
+            if pos == 0:
+                # A date that begins with a word that is no month names an era.
                 raise UnknownNameError("era", value, era_spellings)
             raise UnknownNameError("Julian month", value, [m for m in _julian_month_names()])
     months_found = [i for i, it in enumerate(items) if it[0] == "month"]

@@ -129,8 +129,32 @@ def frame():
     return df
 
 
+def source_key() -> str:
+    """The cache key of what the catalogue is computed from: its files and this code."""
+    from pathlib import Path
+
+    from .. import cache
+
+    files = [resources.files("numcheck.data").joinpath(name).read_bytes() for name in _FILES]
+    code = [Path(__file__).read_bytes(), (Path(__file__).parent / "statements.py").read_bytes()]
+    return cache.make_key(*files, *code)
+
+
 @lru_cache(maxsize=1)
 def _entries() -> tuple[Entry, ...]:
+    """Every entry, parsed once and kept in numcheck's cache folder (:mod:`numcheck.cache`)."""
+    from .. import cache
+
+    key = source_key()
+    kept = cache.load("catalogue", key)
+    if isinstance(kept, tuple) and all(isinstance(e, Entry) for e in kept):
+        return kept
+    out = _parse_entries()
+    cache.store("catalogue", key, out)
+    return out
+
+
+def _parse_entries() -> tuple[Entry, ...]:
     out = []
     for row in _rows():
         out.append(Entry(

@@ -100,7 +100,7 @@ def progress_bar(console, label: str):
     With ``console=None`` (``--json``) it yields ``None``: nothing is drawn.
     Also used by ``numcheck audit DIR``.
     """
-    if console is None:
+    if console is None or not console.is_terminal:
         yield None
         return
     from rich.progress import BarColumn, MofNCompleteColumn, Progress, TextColumn
@@ -116,12 +116,15 @@ def progress_bar(console, label: str):
 
 
 def _show_file(out: dict, console) -> None:
-    from rich.markup import escape
-    from rich.table import Table
+    from ..report.layout import Sheet, note
 
-    table = Table(title=f"numcheck annotate  {escape(out['input'])}", header_style="bold")
-    for col in ("#", "text line", "as read", "notation", "value", "status"):
-        table.add_column(col)
+    note(console, f"numcheck annotate  {out['input']}", "bold")
+    # "#" counts the <num> of the file; "line" is the text's own line (the <lb n>
+    # before it), with its <div> when that is not the edition.
+    has_text_lines = any(n.get("text_line") is not None for n in out["nums"])
+    cols = [("#", "number")] + ([("line", "key")] if has_text_lines else []) + [
+        ("as read", "key"), ("notation", "key"), ("value", "text"), ("status", "key")]
+    table = Sheet(console, cols)
     style = {"contradiction": "red", "fixed": "yellow", "range-added": "cyan", "unreadable": "red",
              "not-checkable": "magenta", "word": "blue"}
     # A long file: list what needs the editor (damaged, contradicted, unread), not every number.
@@ -129,27 +132,38 @@ def _show_file(out: dict, console) -> None:
         n for n in out["nums"] if n["damaged"] or n["status"] not in ("agrees", "value-added")]
     for n in shown:
         status = n["status"]
-        table.add_row(str(n["index"]), _text_line(n), escape(n["text"]), n["notation"], _value(n),
-                      f"[{style[status]}]{status}[/]" if status in style else status)
-    console.print(table)
+        cells = [str(n["index"])] + ([_text_line(n)] if has_text_lines else []) + [
+            n["text"], n["notation"], _value(n), (status, style.get(status))]
+        table.row(*cells)
+    table.print()
     if len(shown) < len(out["nums"]):
-        console.print(f"{len(out['nums']) - len(shown)} undamaged numbers that agree with their "
+        note(console, f"{len(out['nums']) - len(shown)} undamaged numbers that agree with their "
                       "letters are not listed (--json lists every one).")
     for n in out["nums"]:
-        where = f"<num> {n['index']} ({_text_line(n) or 'XML line ' + str(n['line'])})"
+        where = _where(n)
         if n.get("message"):
             colour = "red" if n["status"] in ("contradiction", "unreadable", "fixed") else "blue"
-            console.print(f"[{colour}]{escape(where)}:[/{colour}] {escape(n['message'])}")
+            note(console, f"{where}: {n['message']}", colour)
         if n.get("alternatives"):
-            alts = ", ".join(f"{escape(a['text'])} = {a['value']} ({a['probability']:.0%})"
+            alts = ", ".join(f"{a['text']} = {a['value']} ({a['probability']:.0%})"
                              for a in n["alternatives"])
-            console.print(f"{escape(where)}: restorations (suggestions, not readings): {alts}")
-    for note in out["notes"]:
-        console.print(f"[yellow]note:[/yellow] {escape(note)}")
-    where = f"written to {escape(out['output'])}" if out["output"] else "nothing written (no -o given)"
-    console.print(f"{out['numbers']} numbers, {out['damaged']} damaged, {out['flagged']} contradicted "
+            note(console, f"{where}: restorations (suggestions, not readings): {alts}")
+    for msg in out["notes"]:
+        note(console, f"note: {msg}", "yellow")
+    where = f"written to {out['output']}" if out["output"] else "nothing written (no -o given)"
+    note(console, f"{out['numbers']} numbers, {out['damaged']} damaged, {out['flagged']} contradicted "
                   f"by their letters, {out.get('unreadable', 0)} unreadable, {out.get('words', 0)} in "
                   f"words, {out['restored']} with restorations; {where}.")
+
+
+def _where(n: dict) -> str:
+    """Where a <num> is, for a reader: its place in the file, the text's line, else the XML line.
+
+    >>> _where({"index": 3, "line": 26, "text_line": "4"}), _where({"index": 3, "line": 26})
+    ('<num> 3 (line 4)', '<num> 3 (XML line 26)')
+    """
+    line = _text_line(n)
+    return f"<num> {n.get('index', '')} ({'line ' + line if line else 'XML line ' + str(n['line'])})"
 
 
 def _text_line(n: dict) -> str:
@@ -171,49 +185,55 @@ def _value(n: dict) -> str:
 
 
 def _exact(text: str) -> str:
-    """An exact value for the table, with its sexagesimal form when it is not whole."""
+    """An exact value for the table, with its sexagesimal form when it is not whole.
+
+    The whole part stays decimal, as editions write degrees and days (92;14,5, not 1,32;14,5).
+
+    >>> _exact("66409/720"), _exact("12")
+    ('66409/720 (92;14,5)', '12')
+    """
     from fractions import Fraction
 
-    from ..reading import sexagesimal_text
+    from ..identify.targets import number_text
 
     value = Fraction(text)
-    return text if value.denominator == 1 else f"{text} ({sexagesimal_text(value)})"
+    return text if value.denominator == 1 else f"{text} ({number_text(value)})"
 
 
 def show_batch(out: dict, console, kind: str) -> None:
     """The summary table of a batch run (also used by ``audit DIR``)."""
-    from rich.markup import escape
-    from rich.table import Table
+    from ..report.layout import Sheet, note
 
-    table = Table(title=f"numcheck {kind}  {escape(out['folder'])}", header_style="bold")
-    for col in ("file", "numbers", "damaged", "flagged", "unreadable", "restored", "note"):
-        table.add_column(col)
+    note(console, f"numcheck {kind}  {out['folder']}", "bold")
+    table = Sheet(console, [("file", "key"), ("numbers", "number"), ("damaged", "number"),
+                            ("flagged", "number"), ("unreadable", "number"), ("restored", "number"),
+                            ("note", "text")])
     for f in out["files"]:
         if "error" in f:
-            table.add_row(escape(f["file"]), "", "", "", "", "", "[red]not read (see below)[/red]")
+            table.row(f["file"], "", "", "", "", "", ("not read (see below)", "red"))
         elif "skipped" in f:
-            table.add_row(escape(f["file"]), "", "", "", "", "", "skipped (see below)")
+            table.row(f["file"], "", "", "", "", "", "skipped (see below)")
         else:
-            table.add_row(escape(f["file"]), str(f.get("numbers", 0)), str(f.get("damaged", 0)),
-                          str(f.get("flagged", 0)), str(f.get("unreadable", 0)),
-                          str(f.get("restored", 0)), "")
+            table.row(f["file"], str(f.get("numbers", 0)), str(f.get("damaged", 0)),
+                      str(f.get("flagged", 0)), str(f.get("unreadable", 0)),
+                      str(f.get("restored", 0)), "")
     s = out["summary"]
-    table.add_section()
-    table.add_row(f"{s['files']} files ({s['failed']} failed, {s.get('skipped', 0)} skipped)",
-                  str(s["numbers"]), str(s["damaged"]), str(s["flagged"]), str(s.get("unreadable", 0)),
-                  str(s["restored"]), "", style="bold")
-    console.print(table)
+    table.section()
+    files = f"{s['files']} file{'s' if s['files'] != 1 else ''}"
+    table.row(files, str(s["numbers"]), str(s["damaged"]), str(s["flagged"]), str(s.get("unreadable", 0)),
+              str(s["restored"]), f"{s['failed']} failed, {s.get('skipped', 0)} skipped", style="bold")
+    table.print()
     for f in out["files"]:
         if "error" in f:
-            console.print(f"[red]{escape(f['file'])}:[/red] {escape(f['error'])}")
+            note(console, f"{f['file']}: {f['error']}", "red")
         elif "skipped" in f:
-            console.print(f"{escape(f['file'])}: skipped: {escape(f['skipped'])}")
+            note(console, f"{f['file']}: skipped: {f['skipped']}")
     if out.get("resumed"):
-        console.print(f"resumed: {out['resumed']} files were already done by an earlier run "
+        note(console, f"resumed: {out['resumed']} files were already done by an earlier run "
                       "(--fresh redoes them)")
     if out.get("out"):
-        console.print(f"output: {escape(out['out'])}")
+        note(console, f"output: {out['out']}")
     for name in out.get("summary_files", []):
-        console.print(f"summary: {escape(name)}")
+        note(console, f"summary: {name}")
     if out.get("index"):
-        console.print(f"index of reports: {escape(out['index'])}")
+        note(console, f"index of reports: {out['index']}")

@@ -38,6 +38,9 @@ def add_arguments(parser) -> None:
     parser.add_argument("--csv", metavar="OUT.csv", help="write the flags as CSV")
     from .annotate import add_batch_arguments
     add_batch_arguments(parser)
+    parser.add_argument("--full", action="store_true",
+                        help="show every line of the table and every restoration with its reasons "
+                             "(--json is always complete)")
 
 
 def run(args, console) -> dict:
@@ -57,8 +60,11 @@ def run(args, console) -> dict:
         check_distinct(path, out)
     columns = [c.strip() for c in args.columns.split(",")] if args.columns else None
     # A TEI file gives its first <table> (numcheck.tables reads every source).
-    result = audit(path, notation=args.notation, relation=args.relation, columns=columns,
-                   scheme=args.scheme, model=args.model, join=args.join)
+    from . import busy
+
+    with busy(console, f"auditing {path.name}"):
+        result = audit(path, notation=args.notation, relation=args.relation, columns=columns,
+                       scheme=args.scheme, model=args.model, join=args.join)
     from .. import report
 
     written = {}
@@ -72,10 +78,10 @@ def run(args, console) -> dict:
     if written:
         out["written"] = written
     if console is not None:
-        report.show(result, console)
-        from rich.markup import escape
-        for note in out.get("table_notes", []):
-            console.print(f"[yellow]note:[/yellow] {escape(note)}")
+        report.show(result, console, full=args.full)
+        from ..report.layout import note
+        for table_note in out.get("table_notes", []):
+            note(console, f"note: {table_note}", "yellow")
         _show_unreadable(out, console)
         for what, where in written.items():
             console.print(f"{what} written to {where}")
@@ -95,40 +101,39 @@ def _folder(args, path: Path, console) -> dict:
                            summary_dir=args.summary, fresh=args.fresh, scheme=args.scheme,
                            model=args.model, join=args.join)
     if console is not None:
-        from rich.markup import escape
-        from rich.table import Table
-        t = Table(title=f"audit of the folder {escape(str(path))}", show_edge=False,
-                  header_style="bold")
-        for col in ("file", "numbers", "flagged", "restored", "schemes"):
-            t.add_column(col)
+        from ..report.layout import Sheet, note
+
+        note(console, f"audit of the folder {path}", "bold")
+        t = Sheet(console, [("file", "key"), ("numbers", "number"), ("flagged", "number"),
+                            ("restored", "number"), ("schemes", "text")])
         for f in out.get("files", []):
             if "error" in f or "skipped" in f:
-                t.add_row(escape(f["file"]), "", "", "",
-                          "[red]" + escape(f.get("error") or "skipped: " + str(f["skipped"])) + "[/]")
+                t.row(f["file"], "", "", "", (f.get("error") or "skipped: " + str(f["skipped"]), "red"))
                 continue
             kinds = ", ".join(f"{s['column']}: {s['kind']}" for s in f.get("schemes", []))
-            t.add_row(escape(f["file"]), str(f.get("numbers", 0)), str(f.get("flagged", 0)),
-                      str(f.get("restored", 0)), escape(kinds))
-        console.print(t)
+            t.row(f["file"], str(f.get("numbers", 0)), str(f.get("flagged", 0)),
+                  str(f.get("restored", 0)), kinds)
+        t.print()
         if out.get("index"):
-            console.print(f"reports: {escape(str(out['index']))}")
+            note(console, f"reports: {out['index']}")
         if out.get("resumed"):
-            console.print(f"resumed: {out['resumed']} files were already done by an earlier run "
+            note(console, f"resumed: {out['resumed']} files were already done by an earlier run "
                           "(--fresh redoes them)")
         for name in out.get("summary_files", []):
-            console.print(f"summary: {escape(name)}")
+            note(console, f"summary: {name}")
     return out
 
 
 def _show_unreadable(out: dict, console) -> None:
     """The cells the audit could not read, and the columns it left out."""
-    from rich.markup import escape
+    from ..report.layout import note
 
     for u in out.get("unreadable", []):
-        console.print(f"[red]unreadable:[/red] row {u['row']}, column {escape(str(u['column']))} "
-                      f"({escape(u['text'])!s}): {escape(u['message'])}")
+        note(console, f"unreadable: row {u['row']}, column {u['column']} ({u['text']}): {u['message']}",
+             "red")
     for c in out.get("left_out", []):
-        console.print(f"[yellow]left out:[/yellow] {escape(c['message'])}")
+        note(console, f"left out: {c['message']}", "yellow")
     if out.get("unreadable"):
-        console.print(f"{len(out['unreadable'])} cells could not be read; the audit went on with "
+        n = len(out["unreadable"])
+        note(console, f"{n} cell{'s' if n != 1 else ''} could not be read; the audit went on with "
                       "the others (an unreadable cell counts as lost).")

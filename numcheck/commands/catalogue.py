@@ -13,6 +13,8 @@ def add_arguments(parser) -> None:
     parser.add_argument("--body", "-b", help="only this body (moon, sun, mercury ... calendar, stars)")
     parser.add_argument("--kind", choices=catalogue.KINDS, help="only periods, parameters or relations")
     parser.add_argument("--tradition", "-t", help="only this tradition (babylonian, greek, indian, islamic, modern ...)")
+    parser.add_argument("--full", action="store_true",
+                        help="the whole source of each row, with its notes (--json is always complete)")
 
 
 def run(args, console) -> dict:
@@ -20,25 +22,29 @@ def run(args, console) -> dict:
                               tradition=getattr(args, "tradition", None))
     out = {"count": len(found), "entries": [e.to_dict() for e in found]}
     if console is not None:
-        _show(found, console)
+        _show(found, console, full=getattr(args, "full", False))
     return out
 
 
-def _show(found, console) -> None:
-    from rich.markup import escape
-    from rich.table import Table
-
+def _show(found, console, full: bool = False) -> None:
     from ..identify.core import _short_source
+    from ..report.layout import Sheet, note, singular_ones
 
-    # The statement already holds body, value and unit; the full source is in --json.
-    table = Table(header_style="bold", show_edge=False, expand=True, title=f"{len(found)} catalogue entries")
-    table.add_column("id", overflow="fold", ratio=2)
-    table.add_column("tradition", overflow="fold", ratio=1)
-    table.add_column("statement", overflow="fold", ratio=4)
-    table.add_column("confidence", overflow="fold", ratio=1)
-    table.add_column("source", overflow="fold", ratio=3)
+    # One table per tradition (so the tradition needs no column); the statement
+    # holds body, value and unit; a row not published says how it is known.
+    note(console, f"{len(found)} catalogue entr{'y' if len(found) == 1 else 'ies'}", "bold")
+    by_tradition: dict[str, list] = {}
     for e in found:
-        table.add_row(escape(e.id), e.tradition, escape(e.statement), e.confidence,
-                      escape(_short_source(e.source)))
-    console.print(table)
-    console.print("[dim]Full sources, attested forms and exact values: numcheck catalogue --json[/dim]")
+        by_tradition.setdefault(e.tradition, []).append(e)
+    for tradition, entries in by_tradition.items():
+        sheet = Sheet(console, [("id", "key"), ("statement", "text"), ("source", "text")],
+                      title=f"{tradition} ({len(entries)})")
+        for e in entries:
+            source = e.source if full else _short_source(e.source)
+            if e.confidence != "published":
+                source += f" ({e.confidence})"
+            sheet.row(e.id, singular_ones(e.statement), (source, "dim" if e.confidence == "from memory" else None))
+        sheet.print()
+    note(console, "Rows marked 'from memory' are leads, not citations: check them against the source. "
+                  + ("" if full else "The whole sources: --full; attested forms and exact values: --json."),
+         "dim")

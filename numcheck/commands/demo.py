@@ -27,27 +27,28 @@ def run(args, console) -> dict:
 
 
 def _show(d: dict, console) -> None:
-    from rich.markup import escape
+    from ..report.layout import indented, note
 
-    console.print("[bold]numcheck demo[/bold] on an invented corpus (see its README.md)\n")
+    note(console, "numcheck demo on an invented corpus (see its README.md)", "bold")
+    console.print()
     titles = {"fragments": "Stray numbers from fragments: identify and restore",
               "ephemeris": "Lunar ephemeris (System B): audit",
               "papyrus": "Greek papyrus in TEI/EpiDoc: annotate and audit its table"}
     colour = {"done": "green", "partial": "yellow", "skipped": "red"}
     for step in d["steps"]:
-        console.print(f"[bold]{titles.get(step['name'], step['name'])}[/bold]  "
-                      f"[{colour.get(step['status'], 'white')}]{step['status']}[/]")
+        note(console, f"{titles.get(step['name'], step['name'])}: {step['status']}",
+             f"bold {colour.get(step['status'], 'white')}")
         if step["summary"]:
-            console.print("  " + escape(step["summary"]))
+            indented(console, step["summary"])
         for c in step.get("contradictions", []):
-            console.print("  [red]contradiction[/red] " + escape(c))
+            indented(console, "contradiction: " + c, style="red")
         for f in step.get("table_flags", []):
-            console.print("  flag: " + escape(f))
+            indented(console, "flag: " + f)
         for reason in step.get("reasons", []):
             # the first line says what and why; summary.json keeps the whole message
-            console.print("  [yellow]skipped:[/yellow] " + escape(reason.splitlines()[0]))
+            indented(console, "skipped: " + reason.splitlines()[0], style="yellow")
         if step["files"]:
-            console.print("  files: " + ", ".join(escape(f) for f in step["files"]))
+            indented(console, "files: " + ", ".join(step["files"]))
         console.print()
-    console.print(f"Everything is in {escape(d['out'])}/ (summary.json lists it).")
-    console.print(escape(d["note"]))
+    note(console, f"Everything is in {d['out']}/ (summary.json lists it).")
+    note(console, d["note"])

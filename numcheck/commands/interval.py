@@ -13,8 +13,8 @@ ORDER = 60
 def add_arguments(parser) -> None:
     examples = ", ".join(repr(e) for e in DATE_EXAMPLES)
     parser.add_argument("date1", metavar="DATE",
-                        help=f"the first date, e.g. {examples} (put -- before the dates when one "
-                             "begins with '-': numcheck interval -- -746-02-26 -323-11-12)")
+                        help=f"the first date, e.g. {examples} (astronomical years may begin with "
+                             "'-': numcheck interval -746-02-26 -323-11-12)")
     parser.add_argument("date2", metavar="DATE", help="the second date")
     parser.add_argument("--calendar", "-c", default="julian",
                         help="calendar of a date that names no era: "
@@ -33,26 +33,19 @@ def run(args, console) -> dict:
 
 
 def _show(result, out: dict, console) -> None:
-    from rich.markup import escape
-    from rich.table import Table
+    from ..report.layout import Sheet, note
 
-    table = Table(title="numcheck interval", header_style="bold", show_edge=False)
-    table.add_column("")
-    table.add_column("as given")
-    table.add_column("calendar")
-    table.add_column("JDN", justify="right")
-    table.add_column("Julian")
-    table.add_column("Egyptian (Nabonassar)")
+    note(console, "numcheck interval", "bold")
+    table = Sheet(console, [("", "key"), ("as given", "text"), ("calendar", "key"), ("JDN", "number"),
+                            ("Julian", "text"), ("Egyptian (Nabonassar)", "text")])
     for label, date in (("from", out["dates"][0]), ("to", out["dates"][1])):
         eq = date["equivalents"]
-        table.add_row(label, escape(date["text"]), date["calendar"], str(date["jd"]),
-                      eq["julian"] + f"  ({eq['iso']})", eq.get("egyptian", "before the era"))
-    console.print(table)
+        table.row(label, date["text"], date["calendar"], str(date["jd"]),
+                  eq["julian"] + f" ({eq['iso']})", eq.get("egyptian", "before the era"))
+    table.print()
     years, rest = result.egyptian_years
     for date in out["dates"]:
         if date.get("note"):
-            console.print(f"[dim]{escape(date['note'])}[/dim]")
-    console.print(f"[bold]{result.days:,}[/bold] days"
-                  f"  = {years} Egyptian years of 365 days + {rest} days"
-                  f"  = {float(result.julian_years):.4f} Julian years"
-                  "  (counted from civil day to civil day)")
+            note(console, date["note"], "dim")
+    note(console, f"{result.days:,} days = {years} Egyptian years of 365 days + {rest} days "
+                  f"= {float(result.julian_years):.4f} Julian years (counted from civil day to civil day)")

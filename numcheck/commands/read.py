@@ -26,6 +26,11 @@ def run(args, console) -> dict:
     return result
 
 
+def args_text(reading) -> str:
+    """What the user typed (after the NFC normalisation every input gets)."""
+    return reading.text
+
+
 def _show(reading, result: dict, console) -> None:
     from rich.markup import escape
     from rich.panel import Panel
@@ -34,7 +39,10 @@ def _show(reading, result: dict, console) -> None:
     head = Table.grid(padding=(0, 2))
     head.add_column(style="bold")
     head.add_column()
-    head.add_row("as written", escape(result["canonical"]))
+    head.add_row("as typed", escape(args_text(reading)))
+    if result["canonical"] != args_text(reading):
+        head.add_row("normalised", escape(result["canonical"]) + "  (the same number in numcheck's "
+                                                                  "canonical form)")
     head.add_row("notation", result.get("detected") or result["notation"])
     if reading.floating:
         head.add_row("magnitude", "floating: the text does not fix it (shown at integer scale)")
@@ -47,19 +55,24 @@ def _show(reading, result: dict, console) -> None:
         head.add_row("range", f"{sexagesimal_text(reading.min, fixed=not reading.floating)} to "
                               f"{sexagesimal_text(reading.max, fixed=not reading.floating)}"
                               f"  ({exact_text(reading.min)} to {exact_text(reading.max)})")
-        head.add_row("readings", f"{reading.count:,} readings remain possible")
+        head.add_row("readings", f"{reading.count:,} reading{'s' if reading.count != 1 else ''} "
+                                 f"remain{'' if reading.count != 1 else 's'} possible")
         head.add_row("value shown", "the edition's restorations, lost digits at their lowest"
                      if reading.damaged else "the lowest of the readings the text allows (see the notes)")
-    places = Table(title="places", show_edge=False, header_style="bold")
-    for col in ("written", "place", "status", "may be"):
-        places.add_column(col)
-    style = {"read": "", "doubtful": "yellow", "unread": "magenta", "lost": "red",
+    from ..report.layout import Sheet
+
+    places = Sheet(console, [("written", "key"), ("place", "key"), ("status", "key"), ("may be", "text")],
+                   title="places")
+    style = {"read": None, "doubtful": "yellow", "unread": "magenta", "lost": "red",
              "restored": "cyan", "added": "green", "superfluous": "dim"}
     for p in result["places"]:
         where = ("60^" + str(p["place"])) if "gap" not in p else f"{p['gap'][0]}-{p['gap'][1]} places"
-        places.add_row(escape(p["text"]), where, f"[{style[p['status']]}]{p['status']}[/]" if style[p["status"]] else p["status"],
-                       p["values"])
-    console.print(Panel.fit(head, title=f"numcheck read  {escape(reading.text)}"))
-    console.print(places)
+        places.row(p["text"], where, (p["status"], style[p["status"]]), p["values"])
+    from rich import box
+
+    # Through a pipe the frame is ASCII, so that the text pastes anywhere.
+    console.print(Panel.fit(head, title=f"numcheck read  {escape(reading.text)}",
+                            box=box.ROUNDED if console.is_terminal else box.ASCII))
+    places.print()
     for w in reading.warnings:
         console.print(f"[yellow]note:[/yellow] {escape(w)}")

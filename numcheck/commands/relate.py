@@ -21,7 +21,7 @@ def add_arguments(parser) -> None:
                         help="with --values ancient: whose periods (babylonian, greek, indian, islamic)")
     parser.add_argument("--search", metavar="BODY", default=None,
                         help=f"search for relations of a body or several, comma-separated: {', '.join(BODIES)}")
-    parser.add_argument("--max-years", type=int, default=DEFAULT_SEARCH_YEARS,
+    parser.add_argument("--max-years", type=int, default=None,
                         help=f"with --search: the longest span in years (default {DEFAULT_SEARCH_YEARS})")
     parser.add_argument("--cycles", default=None,
                         help="with --search: the cycles to close at once, e.g. synodic,sidereal")
@@ -31,13 +31,30 @@ def add_arguments(parser) -> None:
     parser.add_argument("--top", type=int, default=None, help="show only the first K rows of the table")
 
 
+#: Options that only work with another, and the one they need.
+_NEEDS_SEARCH = (("--max-years", "max_years"), ("--cycles", "cycles"))
+
+
 def run(args, console) -> dict:
+    from . import busy
+
+    if args.search is None:
+        given = [flag for flag, name in _NEEDS_SEARCH if getattr(args, name) is not None]
+        if given:
+            raise NumcheckRangeError(
+                f"{' and '.join(given)} work{'s' if len(given) == 1 else ''} only with --search BODY; "
+                f"without it {'it does' if len(given) == 1 else 'they do'} nothing.",
+                legal=f"numcheck relate --search moon {' '.join(g + ' ...' for g in given)}, "
+                      "or leave them out")
+    if args.max_years is None:
+        args.max_years = DEFAULT_SEARCH_YEARS
     if args.search is not None:
         if args.n is not None:
             raise NumcheckRangeError(f"Give either N ({args.n!r}) or --search, not both.",
                                      legal="'relate N --unit years' or 'relate --search BODY'")
-        result = search(args.search, max_years=args.max_years, values=args.values,
-                        tradition=args.tradition, cycles=args.cycles, year=args.year)
+        with busy(console, f"searching relations of {args.search} up to {args.max_years} years"):
+            result = search(args.search, max_years=args.max_years, values=args.values,
+                            tradition=args.tradition, cycles=args.cycles, year=args.year)
         out = result.to_dict()
         if console is not None:
             _show_search(result, console, args.top)
@@ -55,46 +72,49 @@ def run(args, console) -> dict:
     return out
 
 
-def _known_text(known) -> str:
-    from rich.markup import escape
+class _Legend:
+    """Attested relations as numbered marks in a table, cited in full below it."""
 
-    return ", ".join(escape(k.id) for k in known)
+    def __init__(self):
+        self.seen: dict[str, tuple[int, object]] = {}
 
-
-def _legend(known_lists, console) -> None:
-    """One line per attested relation shown: its id, statement and source."""
-    from rich.markup import escape
-
-    seen = {}
-    for known in known_lists:
+    def marks(self, known) -> str:
+        out = []
         for k in known:
-            seen.setdefault(k.id, k)
-    for k in seen.values():
-        console.print(f"[bold]{escape(k.id)}[/bold]: {escape(k.statement)}  [dim]({escape(k.source)};"
-                      f" {escape(k.confidence)})[/dim]")
+            if k.id not in self.seen:
+                self.seen[k.id] = (len(self.seen) + 1, k)
+            out.append(f"[{self.seen[k.id][0]}]")
+        return " ".join(out)
+
+    def print(self, console) -> None:
+        from ..report.layout import notes
+
+        notes(console, [(f"[{n}]", f"{k.id}: {k.statement} ({k.source}; {k.confidence})")
+                        for n, k in self.seen.values()])
 
 
 def _show_relate(result, out: dict, console, top) -> None:
-    from rich.table import Table
+    from ..report.layout import Sheet, note
 
     values = "modern mean values (J2000.0)" if result.values == "modern" else f"{result.tradition} values"
-    table = Table(title=f"numcheck relate  {out['n']} {result.unit}  = {out['span_days_decimal']} days "
-                        f"({result.unit_defined_by}, {values})", header_style="bold", show_edge=False)
-    for col, just in (("body", "left"), ("cycle", "left"), ("count", "right"), ("nearest", "right"),
-                      ("residual days", "right"), ("residual °", "right"), ("known relation", "left")):
-        table.add_column(col, justify=just)
+    note(console, f"numcheck relate  {out['n']} {result.unit} = {out['span_days_decimal']} days "
+                  f"({result.unit_defined_by}, {values})", "bold")
+    sheet = Sheet(console, [("body", "key"), ("cycle", "key"), ("count", "number"),
+                            ("nearest", "number"), ("residual days", "number"),
+                            ("residual °", "number"), ("known", "key")])
+    legend = _Legend()
     rows = out["bodies"] if top is None else out["bodies"][:max(0, top)]
     for count, row in zip(result.bodies, rows):
-        style = "bold" if count.known else ""
-        table.add_row(row["body"], row["cycle"], row["count"], str(row["nearest"]),
-                      _short(row["residual_days"], 3), _short(row["residual_degrees"], 2),
-                      _known_text(count.known), style=style)
-    console.print(table)
-    _legend([c.known for c in result.bodies[:len(rows)]], console)
+        sheet.row(row["body"], row["cycle"], row["count"], str(row["nearest"]),
+                  _short(row["residual_days"], 3), _short(row["residual_degrees"], 2),
+                  legend.marks(count.known), style="bold" if count.known else None)
+    sheet.print()
+    legend.print(console)
     if result.missing:
-        console.print(f"[dim]no {result.tradition} period for: {', '.join(out['missing'])}[/dim]")
-    console.print("[dim]residual = the span minus the whole cycles; degrees = the residual as an arc of "
-                  "the cycle. Sorted by closeness; the sun's other years last.[/dim]")
+        note(console, f"no {result.tradition} period for: {', '.join(out['missing'])}", "dim")
+    note(console, "residual = the span minus the whole cycles; degrees = the residual as an arc of "
+                  "the cycle. Sorted by closeness; the sun's other years last. [n]: a relation "
+                  "attested in the catalogue, cited above.", "dim")
 
 
 def _short(text: str, digits: int) -> str:
@@ -103,56 +123,53 @@ def _short(text: str, digits: int) -> str:
 
 
 def _show_search(result, console, top) -> None:
-    from rich.table import Table
+    from ..report.layout import Sheet, note
 
-    table = Table(title=f"best relations with the year ({result.year_defined_by}), up to "
-                        f"{result.max_years} years", header_style="bold", show_edge=False)
-    for col, just in (("body", "left"), ("cycle", "left"), ("cycles", "right"), ("years", "right"),
-                      ("kind", "left"), ("residual days", "right"), ("residual °", "right"),
-                      ("known relation", "left")):
-        table.add_column(col, justify=just)
+    note(console, f"best relations with the year ({result.year_defined_by}), up to "
+                  f"{result.max_years} years", "bold")
+    sheet = Sheet(console, [("body", "key"), ("cycle", "key"), ("cycles", "number"),
+                            ("years", "number"), ("kind", "key"), ("residual days", "number"),
+                            ("residual °", "number"), ("known", "key")])
+    legend = _Legend()
     ratios = result.ratios if top is None else result.ratios[:max(0, top)]
     for r in ratios:
         c = r.counted
-        table.add_row(c.body, c.cycle, str(c.nearest), str(r.years), r.kind,
-                      f"{float(c.residual_days):+.3f}", f"{float(c.residual_degrees):+.2f}",
-                      _known_text(c.known), style="bold" if c.known else "")
-    console.print(table)
-    _legend([r.counted.known for r in ratios], console)
+        sheet.row(c.body, c.cycle, str(c.nearest), str(r.years), r.kind,
+                  f"{float(c.residual_days):+.3f}", f"{float(c.residual_degrees):+.2f}",
+                  legend.marks(c.known), style="bold" if c.known else None)
+    sheet.print()
     _show_attested(result, console)
-    if not result.spans:
-        return
-    spans = Table(title=f"spans of whole {result.span_unit} ({result.reference}) close to whole "
-                        f"numbers of {', '.join(result.targets)} at once (each better than every "
-                        "shorter one)", header_style="bold", show_edge=False)
-    for col, just in (("span", "right"), ("days", "right"), ("counts", "left"), ("worst °", "right"),
-                      ("known relation", "left")):
-        spans.add_column(col, justify=just)
-    for s in result.spans:
-        counts = ", ".join(f"{c.nearest} {c.body} {c.cycle} ({float(c.residual_degrees):+.2f}°)"
-                           for c in s.counts)
-        spans.add_row(f"{s.span} {s.unit if s.span != 1 else s.unit[:-1]}", f"{float(s.span_days):.3f}", counts,
-                      f"{float(s.worst_degrees):.2f}", _known_text(s.known),
-                      style="bold" if s.known else "")
-    console.print(spans)
-    _legend([s.known for s in result.spans], console)
+    if result.spans:
+        note(console, f"spans of whole {result.span_unit} ({result.reference}) close to whole numbers of "
+                      f"{', '.join(result.targets)} at once (each better than every shorter one)", "bold")
+        spans = Sheet(console, [("span", "number"), ("days", "number"), ("counts", "text"),
+                                ("worst °", "number"), ("known", "key")])
+        for s in result.spans:
+            counts = ", ".join(f"{c.nearest} {c.body} {c.cycle} ({float(c.residual_degrees):+.2f}°)"
+                               for c in s.counts)
+            spans.row(f"{s.span} {s.unit if s.span != 1 else s.unit[:-1]}", f"{float(s.span_days):.3f}",
+                      counts, f"{float(s.worst_degrees):.2f}", legend.marks(s.known),
+                      style="bold" if s.known else None)
+        spans.print()
+    legend.print(console)
+    note(console, "kind: a convergent of the continued fraction is better than every shorter "
+                  "relation, a semiconvergent better than every shorter one on its side. [n]: a "
+                  "relation attested in the catalogue, cited above.", "dim")
 
 
 def _show_attested(result, console) -> None:
-    from rich.markup import escape
-    from rich.table import Table
+    from ..report.layout import Sheet, note
 
     if not result.attested:
         return
-    table = Table(title=f"relations the catalogue attests, counted in {result.year} years "
-                        "(best approximation or not)", header_style="bold", show_edge=False)
-    for col, just in (("relation", "left"), ("span given in", "left"), ("years", "right"),
-                      ("cycles", "right"), ("residual days", "right"), ("residual °", "right"),
-                      ("best?", "left")):
-        table.add_column(col, justify=just)
+    note(console, f"relations the catalogue attests, counted in {result.year} years "
+                  "(best approximation or not)", "bold")
+    table = Sheet(console, [("relation", "key"), ("span given in", "text"), ("years", "number"),
+                            ("cycles", "text"), ("residual days", "number"), ("residual °", "number"),
+                            ("best?", "key")])
     for a in result.attested:
         c = a.counted
-        table.add_row(escape(a.relation.id), escape(a.relation.given_in), str(a.years),
-                      f"{c.nearest} {c.body} {c.cycle}", f"{float(c.residual_days):+.3f}",
-                      f"{float(c.residual_degrees):+.2f}", "yes" if a.best else "no")
-    console.print(table)
+        table.row(a.relation.id, a.relation.given_in, str(a.years), f"{c.nearest} {c.body} {c.cycle}",
+                  f"{float(c.residual_days):+.3f}", f"{float(c.residual_degrees):+.2f}",
+                  "yes" if a.best else "no")
+    table.print()

@@ -14,10 +14,12 @@ exactly and classed:
   catalogue number itself, factor 1) within 1e-5 relative: how close good
   ancient periods come to modern ones.
 
-Ranking follows the historian's order of preference: exact before near,
-simpler factor before complex, smaller residual first.  The residual is in
-units of the last written place.  Matches are suggestions for the editor's
-judgement, not readings.
+Ranking (:mod:`numcheck.identify.ranking`) weighs the class of the match,
+the simplicity of the factor, the scale, the confidence and tradition of the
+catalogue row and the chance that any number of this precision would match;
+matches that say the same thing are folded into one statement with all its
+sources (``groups``).  The residual is in units of the last written place.
+Matches are suggestions for the editor's judgement, not readings.
 """
 
 from __future__ import annotations
@@ -29,6 +31,7 @@ from .. import limits
 from ..errors import NumcheckError
 from ..reading import Reading, decimal_text, exact_text, sexagesimal_text
 from ..units import canonical_unit
+from . import ranking as _rank
 from . import targets as _t
 
 __all__ = ["Match", "IdentifyResult", "identify", "CLASSES", "NEAR_ULPS", "NEAR_RELATIVE", "SCALES"]
@@ -101,6 +104,8 @@ class IdentifyResult:
     nearest: tuple[dict, ...] = field(default=())
     considered: int = 0
     notes: tuple[str, ...] = ()
+    groups: tuple = ()              # ranking.MatchGroup: one per distinct statement, best first
+    tradition: str | None = None    # the tradition weighed (asked for, or said by the notation)
 
     @property
     def found(self) -> bool:
@@ -137,6 +142,8 @@ class IdentifyResult:
             "considered": self.considered,
             "notes": list(self.notes),
             "summary": self.summary,
+            "tradition": self.tradition,
+            "groups": [g.to_dict() for g in self.groups],
         }
 
 
@@ -153,18 +160,6 @@ def _classify(reading: "_Window", v: Fraction, target: Fraction, ulp: Fraction, 
     if abs(diff) <= tol:
         return "near"
     return None
-
-
-def _score(how: str, complexity: int, closeness: float) -> float:
-    """A score that sorts like the rank: class band, then factor, then residual.
-
-    Within the band, 1/c for complexity c, less a residual term smaller than
-    the gap to 1/(c + 1), so a simpler factor always scores higher.
-    """
-    lo, hi = CLASSES[how]
-    c = complexity
-    s = 1.0 / c - min(max(closeness, 0.0), 0.999) / (c * (c + 1))
-    return lo + (hi - lo) * s
 
 
 def _factor_text(factor: Fraction) -> str:
@@ -197,14 +192,46 @@ def _explain(reading: Reading, m_how: str, factor: Fraction, item: _t.Item, scal
     return f"{shown}{scale_text} = {what} ({where}{conv}): {how}"
 
 
+_HOW = {
+    "exact": "exact",
+    "truncated": "the catalogue value cut at the last written place (texts truncate)",
+    "rounded": "the catalogue value rounded at the last written place",
+    "damage": "agrees with a reading the damage allows",
+}
+
+
+def _describe(reading: Reading, ms) -> str:
+    """One distinct statement in words, with every catalogue row that makes it.
+
+    "1,49,45;20 = 223 synodic months, converted to days with the babylonian
+    (default month) convention: off by +0.65 in the last written place.
+    Rows: saros_almagest (a side: ...; Ptolemy, Almagest IV.2; published); ..."
+    """
+    m = ms[0]
+    shown = (sexagesimal_text(reading.value * Fraction(60) ** m.scale, fixed=True, max_places=8)
+             if reading.floating else reading.text)
+    scale_text = f" read at 60^{m.scale}" if m.scale else ""
+    conv = f", converted to {m.unit} with the {m.convention} convention" if m.convention else ""
+    if m.how == "near":
+        rel = float(abs(m.target - reading.value) / m.target) if m.target else 0.0
+        how = f"off by {float(m.residual):+.3g} in the last written place ({rel:.1e} relative)"
+    else:
+        how = _HOW[m.how]
+    rows = []
+    for x in ms:
+        side = f"{x.label}; " if x.label != "the value" else ""
+        rows.append(f"{x.id} ({side}{_short_source(x.source)}; {x.confidence})")
+    label = "Row" if len(rows) == 1 else f"{len(rows)} rows"
+    return f"{shown}{scale_text} = {m.what}{conv}: {how}. {label}: " + "; ".join(rows) + "."
+
+
 def _short_source(source: str) -> str:
     """The author, work and section of a source, without the notes that follow.
 
     >>> _short_source("Ptolemy, Almagest IV.2 (tr. G. J. Toomer, 1984); Geminus 18")
     'Ptolemy, Almagest IV.2'
     """
-    head = source.split(";")[0].split(" (")[0].strip()
-    return head if len(head) <= 70 else head[:69] + "…"
+    return source.split(";")[0].split(" (")[0].strip()
 
 
 def _scales(reading: Reading) -> range:
@@ -212,13 +239,17 @@ def _scales(reading: Reading) -> range:
 
 
 def identify(reading_or_text, *, notation: str | None = None, unit: str | None = None,
-             top: int = 10) -> IdentifyResult:
+             top: int = 10, tradition: str | None = None) -> IdentifyResult:
     """Which period, parameter or relation (or simple multiple or part of one) is this number?
 
     *reading_or_text* is a :class:`~numcheck.reading.Reading` or a text read
     with :func:`numcheck.read` (``notation`` as there).  With *unit* (or a
     unit the text itself carries) only catalogue numbers convertible to it
-    are compared; without one, every number in its own unit.
+    are compared; without one, every number in its own unit.  *tradition*
+    (babylonian, greek, indian, islamic ...) weighs that tradition's rows
+    above the others; without it the tradition the notation says (Greek
+    letters, cuneiform, abjad) is weighed.  ``top`` bounds both the matches
+    and the distinct statements (``groups``).
 
     >>> identify("1,49,45;20", unit="days").matches[0].id
     'saros_almagest'
@@ -231,6 +262,14 @@ def identify(reading_or_text, *, notation: str | None = None, unit: str | None =
         reading_or_text, notation=notation, unit=unit)
     unit = unit if unit is not None else reading.unit
     unit = canonical_unit(unit) if unit is not None else None
+    if tradition is not None:
+        from .. import catalogue
+        from ..errors import UnknownNameError
+
+        known = catalogue.traditions()
+        if tradition not in known:
+            raise UnknownNameError("tradition", tradition, known)
+    wanted = tradition if tradition is not None else _rank.text_tradition(reading.notation)
     tab = _t.table(unit)
     value = reading.value
     if value <= 0:
@@ -292,15 +331,24 @@ def identify(reading_or_text, *, notation: str | None = None, unit: str | None =
                     how = "damage"
                 key = (item.entry.id, item.value, item.unit, factor, scale)
                 residual = (v - target) / ulp
-                rank = (_RANK[how], _t.factor_complexity(factor), abs(residual),
-                        -_t.CONFIDENCE_WEIGHT.get(item.entry.confidence, 0.5), abs(scale))
+                width = 2 * tol if how == "near" else ulp
+                closeness = (float(abs(v - target) / tol) if how == "near"
+                             else min(1.0, float(abs(residual))))
+                sc = _rank.score(how, factor, scale, item.entry.confidence, item.entry.tradition,
+                                 wanted, closeness,
+                                 _rank.chance(width, item.value * tab.factors[idx], factor))
+                rank = (-sc, _RANK[how], _t.factor_complexity(factor), abs(residual), abs(scale),
+                        item.entry.id)
                 if key not in found or rank < found[key][0]:
-                    found[key] = (rank, how, item, idx, factor, scale, target, residual, v)
-    ranked = sorted(found.values(), key=lambda t: t[0])[:top]
-    matches = tuple(_match(reading, tab, *row[1:]) for row in ranked)
+                    found[key] = (rank, how, item, idx, factor, scale, target, residual, v, sc)
+    ranked = sorted(found.values(), key=lambda t: t[0])
+    # Enough matches to fill *top* distinct statements (rows that say the same fold into one).
+    pool = [_match(reading, tab, *row[1:]) for row in ranked[:top * 12]]
+    matches = tuple(pool[:top])
+    groups = _rank.group_matches(pool, describe=lambda ms: _describe(reading, ms))[:top]
     nearest = () if matches else _nearest(reading, tab)
     notes.extend(_t.coincidence_notes(reading, unit, len(found)))
-    return IdentifyResult(reading, unit, matches, nearest, considered, tuple(notes))
+    return IdentifyResult(reading, unit, matches, nearest, considered, tuple(notes), groups, wanted)
 
 
 @dataclass(frozen=True)
@@ -312,15 +360,11 @@ class _Window:
     max: Fraction
 
 
-def _match(reading, tab, how, item, idx, factor, scale, target, residual, v) -> Match:
+def _match(reading, tab, how, item, idx, factor, scale, target, residual, v, score) -> Match:
     unit_shown = tab.unit if tab.unit is not None else item.unit
     if tab.unit is not None:
         unit_shown = tab.unit + item.per
     rel = float(abs(v - target) / target) if target else 0.0
-    closeness = float(abs(residual)) if how != "near" else float(abs(v - target) /
-                                                                  max(NEAR_ULPS * reading.ulp * Fraction(60) ** scale,
-                                                                      NEAR_RELATIVE * v))
-    score = _score(how, _t.factor_complexity(factor), closeness)
     convention = tab.conventions[idx]
     e = item.entry
     return Match(

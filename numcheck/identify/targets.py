@@ -220,7 +220,24 @@ def _side_total(side) -> Fraction | None:
 
 @lru_cache(maxsize=1)
 def all_items() -> tuple[Item, ...]:
-    """Every item of every catalogue row."""
+    """Every item of every catalogue row (computed once and kept in numcheck's cache folder)."""
+    from pathlib import Path
+
+    from .. import cache
+
+    here = Path(__file__)
+    key = cache.make_key(catalogue.source_key(), here.read_bytes(),
+                         (here.parents[1] / "units.py").read_bytes())
+    kept = cache.load("catalogue-items", key)
+    if isinstance(kept, tuple) and all(isinstance(i, Item) for i in kept):
+        return kept
+    items = compute_items()
+    cache.store("catalogue-items", key, items)
+    return items
+
+
+def compute_items() -> tuple[Item, ...]:
+    """Every item of every catalogue row, computed from the catalogue (no cache)."""
     return tuple(item for entry in catalogue.entries() for item in _items_of(entry))
 
 

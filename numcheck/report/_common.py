@@ -16,6 +16,29 @@ def style_for(kind: str) -> str:
     return KIND_STYLE.get(kind, SLIP_STYLE)
 
 
+#: What a cell's colour (and, where there is no colour, its mark) means: the key of
+#: every screen and picture of an audit.  (name, rich style, mark, HTML colour, plot colour)
+KEY = (
+    ("slip", SLIP_STYLE, "!", "#fdd", "tab:red"),
+    ("carried forward", KIND_STYLE["carried-forward"], "^", "#ffc", "tab:olive"),
+    ("unexplained", KIND_STYLE["unexplained"], "?", "#fdf", "tab:purple"),
+    ("restored", RESTORED_STYLE, "+", "#dff", "tab:cyan"),
+)
+
+
+def key_of(kind: str | None) -> tuple | None:
+    """The KEY row of a flag kind ("restored" for a restored cell), or None.
+
+    >>> key_of("ten-slip")[0], key_of("carried-forward")[2], key_of(None)
+    ('slip', '^', None)
+    """
+    if kind is None:
+        return None
+    name = {"carried-forward": "carried forward", "unexplained": "unexplained",
+            "restored": "restored"}.get(kind, "slip")
+    return next(k for k in KEY if k[0] == name)
+
+
 def write_output(result, path, data, suffixes: tuple[str, ...], what: str) -> Path:
     """Check *path* (its suffix, not the input table) and write *data* atomically."""
     from ..errors import NumcheckError
@@ -74,3 +97,25 @@ def summary_line(d: dict) -> str:
             f"{s['slips']} slip{'s' if s['slips'] != 1 else ''}, "
             f"{s['carried_forward']} line{'s' if s['carried_forward'] != 1 else ''} carrying one forward; "
             f"{s['damaged']} damaged, {s['restored']} restored.")
+
+
+def display_name(source: str) -> str:
+    """The name a reader knows a table by: its file name, or what it was given as.
+
+    >>> display_name("/usr/lib/python3/site-packages/numcheck/data/demo/ephemeris.tsv")
+    'ephemeris.tsv'
+    >>> display_name("<DataFrame>")
+    'a table given as a DataFrame'
+    """
+    from pathlib import PurePath
+
+    if source.startswith("<") and source.endswith(">"):
+        return f"a table given as a {source[1:-1]}"
+    return PurePath(source).name or source
+
+
+def numbering_columns(table) -> set[str]:
+    """The columns that only number the lines (1, 2, 3 ... down the table)."""
+    want = [str(i) for i in range(1, table.nrows + 1)]
+    return {name for name, col in table.columns.items()
+            if [c.text.strip() for c in col.cells] == want}

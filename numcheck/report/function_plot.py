@@ -7,7 +7,6 @@ model and its parameter in the title.  Floats here are for drawing only.
 
 from __future__ import annotations
 
-import numpy as np
 
 __all__ = ["draw_function", "is_function"]
 
@@ -18,6 +17,8 @@ def is_function(scheme) -> bool:
 
 def draw_function(ax, result, scheme, findings) -> None:
     """Draw the residuals of *scheme*'s column on the matplotlib axes *ax*."""
+    import numpy as np
+
     frame = result.frame
     fit = scheme.fit
     s = frame.scale

@@ -41,14 +41,16 @@ def _reading(reading_or_text, notation, unit) -> Reading:
 
 
 def restore(reading_or_text, *, notation=None, unit=None, expect=None, context=(), top=10,
-            use_catalogue=True, satisfies=()) -> RestoreResult:
+            use_catalogue=True, tradition=None, satisfies=()) -> RestoreResult:
     """Rank the readings a damaged number allows, with probabilities and reasons.
 
     *reading_or_text* is a :class:`~numcheck.reading.Reading` or a text read
     with :func:`numcheck.read` (*notation*, *unit* as there).  *expect* is a
     value the user expects (a text or an exact number); *context* a sequence
     of :class:`Evidence` from the number's surroundings; the catalogue of
-    periods is consulted unless ``use_catalogue=False``; *satisfies* is a
+    periods is consulted unless ``use_catalogue=False``; *tradition*
+    (babylonian, greek ...) weighs that tradition's catalogue rows above the
+    others (without it, the tradition the notation says); *satisfies* is a
     relation from mathematics (``"x^2 = 2"``) or several, weighed like an
     expected value (:mod:`numcheck.restore.mathematics`).  Gives the *top*
     candidates, best first, with probabilities over the whole space.
@@ -68,10 +70,16 @@ def restore(reading_or_text, *, notation=None, unit=None, expect=None, context=(
         # ones, say so; the probabilities stay those of the whole space.
         top = limits.RESTORE_MAX_LISTED
     reading = _reading(reading_or_text, notation, unit)
+    if tradition is not None:
+        from .. import catalogue
+        from ..errors import UnknownNameError
+
+        if tradition not in catalogue.traditions():
+            raise UnknownNameError("tradition", tradition, catalogue.traditions())
     space = build_space(reading)
     targets, ev_notes = gather(reading, space, expect=expect, context=context,
                                use_catalogue=use_catalogue, unit=unit or reading.unit,
-                               satisfies=satisfies)
+                               tradition=tradition, satisfies=satisfies)
     notes = list(space.notes) + ev_notes
     if asked > top:
         notes.append(f"{asked:,} candidates were asked for; the best {top:,} are listed "
@@ -224,7 +232,17 @@ def _candidate(targets: list[Target], row, support) -> Candidate:
 def _space_notes(reading, space, targets, possible, notes) -> None:
     count = space.count
     if count == 1:
-        notes.append("Nothing is lost or doubtful: the only reading is the text itself.")
+        from ..reading import Status
+
+        doubtful = [s.text for s in reading.slots if s.status is Status.DOUBTFUL]
+        if doubtful:
+            which = ", ".join(repr(t) for t in doubtful)
+            notes.append(f"The doubtful sign{'s' if len(doubtful) > 1 else ''} {which} "
+                         f"{'have' if len(doubtful) > 1 else 'has'} no known confusion in numcheck's "
+                         "table of look-alike signs, so the only reading is the one written. "
+                         "Give the alternatives you see with --expect.")
+        else:
+            notes.append("Nothing is lost or doubtful: the only reading is the text itself.")
         return
     unmet = [t for i, t in enumerate(targets) if i not in possible and t.kind != "catalogue"]
     for t in unmet:

@@ -141,7 +141,17 @@ def _modern(ident: str) -> bool:
         return False
 
 
-def _catalogue(reading: Reading, space, unit: str | None, notes: list[str]) -> list[Target]:
+def _tradition_of(ident: str) -> str:
+    from .. import catalogue
+
+    try:
+        return catalogue.by_id(ident).tradition
+    except Exception:   # a row the catalogue does not know (a stand-in)
+        return ""
+
+
+def _catalogue(reading: Reading, space, unit: str | None, notes: list[str],
+               tradition: str | None = None) -> list[Target]:
     """The catalogue values the traces could reach, one target per distinct value.
 
     Only the values themselves and their simple parts and multiples (n/m
@@ -149,7 +159,9 @@ def _catalogue(reading: Reading, space, unit: str | None, notes: list[str]) -> l
     multiple of a period (4260 months) fits almost any count and says
     nothing.  Modern values (the catalogue's ``modern`` traditions) are left
     out: they serve to judge an ancient value, not to restore one.  Rows that give the same value are one hypothesis, with the
-    weight of the best of them.
+    weight of the best of them.  A row of another tradition than *tradition*
+    (asked for, or said by the notation: Greek letters, cuneiform, abjad)
+    weighs less (:func:`numcheck.identify.ranking.tradition_weight`).
     """
     source = catalogue_source()
     if source is None:
@@ -164,6 +176,9 @@ def _catalogue(reading: Reading, space, unit: str | None, notes: list[str]) -> l
             ranges.append((lo, hi))
     best: dict[Fraction, list] = {}   # value -> [weight, label, id, others]
     top = scoring.CATALOGUE_MAX_FACTOR
+    from ..identify.ranking import text_tradition, tradition_weight
+
+    wanted = tradition if tradition is not None else text_tradition(reading.notation)
     for lo, hi in ranges:
         for t in source(lo, hi, unit, max_factor=top):
             factor = Fraction(getattr(t, "factor", 1))
@@ -174,6 +189,8 @@ def _catalogue(reading: Reading, space, unit: str | None, notes: list[str]) -> l
                 continue
             value = Fraction(t.value)
             weight = float(getattr(t, "weight", 1.0)) ** scoring.CATALOGUE_SHARPNESS
+            if wanted is not None and ident:
+                weight *= tradition_weight(_tradition_of(ident), wanted)
             old = best.get(value)
             if old is not None:
                 if ident != old[2] and weight <= old[0]:
@@ -208,7 +225,8 @@ def _relation_targets(satisfies) -> list[Target]:
 
 
 def gather(reading: Reading, space, *, expect=None, context=(), use_catalogue=True,
-           unit: str | None = None, satisfies=()) -> tuple[list[Target], list[str]]:
+           unit: str | None = None, tradition: str | None = None,
+           satisfies=()) -> tuple[list[Target], list[str]]:
     """Every piece of evidence as :class:`Target` s, and notes on what was used."""
     notes: list[str] = []
     targets: list[Target] = []
@@ -229,5 +247,5 @@ def gather(reading: Reading, space, *, expect=None, context=(), use_catalogue=Tr
     if satisfies:
         targets.extend(_relation_targets(satisfies))
     if use_catalogue:
-        targets.extend(_catalogue(reading, space, unit, notes))
+        targets.extend(_catalogue(reading, space, unit, notes, tradition))
     return [t for t in targets if t.weight > 0], notes

@@ -51,7 +51,8 @@ def _needed_places(value: Fraction, most: int = 12) -> int | None:
 
 
 def write_value(value: Fraction, *, notation: str = "sexagesimal", places: int = 0,
-                floating: bool = False, sign_name: str | None = None, longitude: bool = False) -> str:
+                floating: bool = False, sign_name: str | None = None, longitude: bool = False,
+                decimal_whole: bool = False, separator: str = ",") -> str:
     """Write *value* as the scribe would: in the cell's notation, with its places.
 
     Sexagesimal values get at least *places* fractional places (final zeros
@@ -62,6 +63,18 @@ def write_value(value: Fraction, *, notation: str = "sexagesimal", places: int =
     '0;30,0'
     >>> write_value(Fraction(206, 1), longitude=True, sign_name="Libra")
     '26 Libra'
+
+    With *decimal_whole* (the column writes its whole part in decimal, as
+    a day count ``365;15``) the whole part is written so, not ``6,5;15``:
+
+    >>> write_value(Fraction(7305, 4), decimal_whole=True)
+    '1826;15'
+
+    A floating value takes the *separator* of the cell's places (``6 40`` where
+    the text writes places apart with spaces):
+
+    >>> write_value(Fraction(20, 3), floating=True, separator=" ")
+    '6 40'
     """
     value = Fraction(value)
     if longitude:
@@ -85,8 +98,12 @@ def write_value(value: Fraction, *, notation: str = "sexagesimal", places: int =
         m = mantissa(value)
         if m is None:
             return sexagesimal_text(value, fixed=False)
-        return ",".join(str(d) for d in digits_of(m, 0)[0])
+        return separator.join(str(d) for d in digits_of(m, 0)[0])
     text = sexagesimal_text(value)
+    if decimal_whole and value >= 0:
+        whole = value.numerator // value.denominator
+        text = str(whole) + (";" + sexagesimal_text(value - whole).split(";", 1)[1]
+                             if value != whole else "")
     written = text.split(";")[1].count(",") + 1 if ";" in text else 0
     if written < places and not text.endswith("..."):
         text += (";" if written == 0 else ",") + ",".join(["0"] * (places - written))
@@ -209,10 +226,16 @@ def classify(written: Fraction, expected: Fraction, *, places: int = 0, floating
                 carry = _carry_kind(prev, expected, written, k, modulus)
                 if carry is not None:
                     return carry
+            if abs(dw) in (1, 10) and notation.startswith(_LETTER_SCRIPTS):
+                # In a script of letters a slip of one or ten is first a letter
+                # confusion when the table of look-alikes knows it.
+                alt = _letter(notation, w[k], e[k])
+                if alt is not None:
+                    return alt
             if abs(dw) == 1:
-                return Diagnosis("unit-slip", f"one unit wedge {'too many' if dw > 0 else 'too few'} in {what}")
+                return Diagnosis("unit-slip", _digit_reason(notation, 1, dw, what, w[k], e[k]))
             if abs(dw) == 10:
-                return Diagnosis("ten-slip", f"one ten-corner {'too many' if dw > 0 else 'too few'} in {what}")
+                return Diagnosis("ten-slip", _digit_reason(notation, 10, dw, what, w[k], e[k]))
             if notation not in ("sexagesimal", "cuneiform"):
                 alt = _letter(notation, w[k], e[k])
                 if alt is not None:
@@ -338,6 +361,42 @@ def _shape(ws: list[int], es: list[int]) -> Diagnosis | None:
             if ws[i] == 0 and es == ws[:i] + ws[i + 1:]:
                 return Diagnosis("dropped-zero", "an empty (zero) place was inserted inside the number")
     return None
+
+
+#: Scripts that write numbers with letters (a slip of one or ten is a letter there).
+_LETTER_SCRIPTS = ("greek", "abjad", "hebrew")
+#: Notations of wedges and corners (cuneiform, its transcriptions and ATF).
+_WEDGE_SCRIPTS = ("sexagesimal", "cuneiform", "atf")
+
+
+def _digit_reason(notation: str, size: int, dw: int, what: str, written: int, expected: int) -> str:
+    """A slip of one or ten in one place, in the script's own terms.
+
+    Wedges and corners for cuneiform (and its modern transcription); letters
+    for the Greek alphabetic numerals; the digits otherwise.
+
+    >>> _digit_reason("sexagesimal", 10, 10, "the first fractional place", 25, 15)
+    'one ten-corner too many in the first fractional place'
+    >>> _digit_reason("greek", 10, 10, "the first fractional place", 25, 15)
+    'the tens letter κ written for ι in the first fractional place (one ten too many)'
+    """
+    more = "too many" if dw > 0 else "too few"
+    if notation.startswith(_WEDGE_SCRIPTS):
+        sign = "unit wedge" if size == 1 else "ten-corner"
+        return f"one {sign} {more} in {what}"
+    if notation.startswith("greek"):
+        try:
+            from ..notations.greek.build import letter_text
+        except ImportError:
+            letter_text = None
+        if letter_text is not None:
+            def part(n: int) -> str:
+                n = n % 10 if size == 1 else (n // 10) * 10
+                return letter_text(n) if n else "no letter"
+            rank = "units" if size == 1 else "tens"
+            return (f"the {rank} letter {part(written)} written for {part(expected)} in {what} "
+                    f"(one {'unit' if size == 1 else 'ten'} {more})")
+    return f"{written} written for {expected} in {what} (one {'unit' if size == 1 else 'ten'} {more})"
 
 
 def _letter(notation: str, written, expected) -> Diagnosis | None:

@@ -135,7 +135,8 @@ class Column:
         text = write_value(value, notation=cell.notation,
                            places=self.usual_places if self.final_zeros else 0,
                            floating=cell.floating, sign_name=cell.sign_name,
-                           longitude=self.longitude)
+                           longitude=self.longitude,
+                           separator=" " if " " in cell.text.strip() and "," not in cell.text else ",")
         if self.whole_in_one_place and not cell.floating:
             v = Fraction(value)
             whole = abs(v.numerator) // v.denominator

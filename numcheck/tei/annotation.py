@@ -22,6 +22,7 @@ output is written atomically; everything else in the file stays as it was.
 
 from __future__ import annotations
 
+import functools
 import os
 import unicodedata
 import warnings
@@ -386,6 +387,28 @@ def _annotate_reading(el, res, reading, text, fix, alternatives, restore_fn, ind
 DOCUMENTARY_GREEK = "greek-documentary"
 
 
+def _read_once(text: str, notation: str) -> Reading:
+    """``read(text, notation=notation)``, remembered: a corpus writes the same numbers again and again.
+
+    A Reading is immutable and read() a function of its text, its notation
+    and the limits in force (part of the key), so a remembered Reading is the
+    Reading read() would give; errors are not remembered.
+    """
+    from .. import limits
+
+    if not _LIMIT_NAMES:
+        _LIMIT_NAMES.extend(sorted(k for k in vars(limits) if k.isupper()))
+    return _remembered(text, notation, tuple(getattr(limits, k) for k in _LIMIT_NAMES))
+
+
+_LIMIT_NAMES: list[str] = []
+
+
+@functools.lru_cache(maxsize=8192)
+def _remembered(text: str, notation: str, settings: tuple) -> Reading:
+    return read(text, notation=notation)
+
+
 def _read_num(el, name, line, pieces, plain: str, notation: str | None):
     """Read a ``<num>``: in the notation given, else the one its letters suggest.
 
@@ -420,7 +443,7 @@ def _read_num(el, name, line, pieces, plain: str, notation: str | None):
                 # How odd letters were read is kept in reading.warnings, one
                 # per number, not raised once per <num> of a long file.
                 warnings.simplefilter("ignore", NumcheckWarning)
-                return read(text, notation=chosen), text
+                return _read_once(text, chosen), text
         except NumcheckError as err:
             if first_error is None:
                 first_error = (chosen, text, err)

@@ -97,6 +97,9 @@ def num_places(root) -> dict[int, Place]:
             line = None
             if last_lb is not None and (last_lb[1] is None or last_lb[1] in divs):
                 line = last_lb[0]
+            if line is None:        # no <lb>: the verse <l n> or table <row n> that holds it
+                line = next((a.get("n") for a in el.iterancestors()
+                             if a.tag in (f"{{{TEI_NS}}}l", f"{{{TEI_NS}}}row") and a.get("n")), None)
             label = " > ".join(_div_label(d) for d in divs) or None
             places[id(el)] = Place(count, _xpath(el), line, label)
     return places
