@@ -43,7 +43,7 @@ from pathlib import Path
 
 from . import limits
 from .errors import LimitError, NumcheckError
-from .files import OutputError, check_distinct, same_file, short, write_atomic
+from .files import OutputError, check_distinct, display_name, same_file, short, write_atomic
 
 __all__ = ["BatchResult", "annotate_folder", "audit_folder", "find_files", "POOL_MIN_FILES",
            "TABLE_SUFFIXES", "write_index", "display_name", "machine_workers",
@@ -69,18 +69,6 @@ def machine_workers() -> int:
         return max(1, len(os.sched_getaffinity(0)))
     except (AttributeError, OSError):
         return max(1, os.cpu_count() or 1)
-
-
-def display_name(text: str) -> str:
-    """A file name as valid Unicode text: bytes that are not UTF-8 become U+FFFD.
-
-    File names on Linux are bytes; Python keeps the undecodable ones as lone
-    surrogates, which cannot be written as UTF-8 (JSON, HTML, CSV).
-
-    >>> display_name("a" + chr(0xDCFF) + ".xml")
-    'a\ufffd.xml'
-    """
-    return text.encode("utf-8", "surrogateescape").decode("utf-8", "replace")
 
 
 @dataclass

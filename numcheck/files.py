@@ -27,7 +27,7 @@ from . import limits
 from .errors import LimitError, NumcheckError
 
 __all__ = ["OutputError", "InputFileError", "write_atomic", "check_distinct", "same_file",
-           "check_input_file", "sweep_stale_temporaries", "TEMP_MARK"]
+           "check_input_file", "sweep_stale_temporaries", "TEMP_MARK", "display_name", "short"]
 
 #: Every temporary file numcheck writes is named ``.<target>.numcheck-<pid>-<random>.tmp``.
 TEMP_MARK = ".numcheck-"
@@ -129,6 +129,18 @@ def check_input_file(path: str | os.PathLike, *, max_bytes: int | None = None,
         raise InputFileError(f"{short(str(p))!r} looks like a binary file (it holds NUL bytes), "
                              f"not {a_what}; numcheck reads text (TSV, CSV, XML).")
     return st.st_size
+
+
+def display_name(text: str) -> str:
+    """A file name as valid Unicode text: bytes that are not UTF-8 become U+FFFD.
+
+    File names on Linux are bytes; Python keeps the undecodable ones as lone
+    surrogates, which cannot be written as UTF-8 (JSON, HTML, CSV).
+
+    >>> display_name("a" + chr(0xDCFF) + ".xml")
+    'a\ufffd.xml'
+    """
+    return text.encode("utf-8", "surrogateescape").decode("utf-8", "replace")
 
 
 def short(text: str, width: int | None = None) -> str:

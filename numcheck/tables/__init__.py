@@ -11,6 +11,7 @@ from __future__ import annotations
 from pathlib import Path
 
 from ..errors import NumcheckError
+from ..files import display_name
 from .cells import ZODIAC, Cell, Column, ColumnReading, Table, build_table, read_column, sign_index
 from .frame import frame_rows, is_dataframe
 from .join import join_columns
@@ -44,7 +45,9 @@ def read_table(table, *, notation: str | None = None, columns=None, join=None) -
         source = str(table.attrs.get("source", "<DataFrame>"))
     elif isinstance(table, (str, Path)):
         path = Path(table)
-        source = str(path)
+        # The name shown (reports, plots, JSON): a file name that is not UTF-8
+        # shows U+FFFD; the file itself is read by its real name.
+        source = display_name(str(path))
         if path.suffix.lower() in ATF_SUFFIXES and path.is_file():
             from .atf import atf_rows
             header, rows, found = atf_rows(read_text_file(path), str(path))
