@@ -18,7 +18,7 @@ from __future__ import annotations
 
 import os
 
-__all__ = ["cache_dir", "make_key", "load", "store"]
+__all__ = ["cache_dir", "make_key", "load", "store", "remembered"]
 
 
 def cache_dir():
@@ -91,3 +91,17 @@ def store(name: str, key: str, obj=None, *, data: bytes | None = None, suffix: s
                 old.unlink(missing_ok=True)    # computed from another version
     except (OSError, NumcheckError, TypeError, AttributeError, RecursionError):
         pass                                   # no cache then: the result stands
+
+
+def remembered(name: str, key: str, compute, item_type: type) -> tuple:
+    """The tuple of *item_type* kept under *name* and *key*, else ``compute()`` (then kept).
+
+    A kept file holding anything but such a tuple (damaged, or from other
+    code) is passed over and computed again.
+    """
+    kept = load(name, key)
+    if isinstance(kept, tuple) and all(isinstance(x, item_type) for x in kept):
+        return kept
+    out = compute()
+    store(name, key, out)
+    return out

@@ -145,13 +145,7 @@ def _entries() -> tuple[Entry, ...]:
     """Every entry, parsed once and kept in numcheck's cache folder (:mod:`numcheck.cache`)."""
     from .. import cache
 
-    key = source_key()
-    kept = cache.load("catalogue", key)
-    if isinstance(kept, tuple) and all(isinstance(e, Entry) for e in kept):
-        return kept
-    out = _parse_entries()
-    cache.store("catalogue", key, out)
-    return out
+    return cache.remembered("catalogue", source_key(), _parse_entries, Entry)
 
 
 def _parse_entries() -> tuple[Entry, ...]:

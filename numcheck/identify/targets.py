@@ -228,12 +228,7 @@ def all_items() -> tuple[Item, ...]:
     here = Path(__file__)
     key = cache.make_key(catalogue.source_key(), here.read_bytes(),
                          (here.parents[1] / "units.py").read_bytes())
-    kept = cache.load("catalogue-items", key)
-    if isinstance(kept, tuple) and all(isinstance(i, Item) for i in kept):
-        return kept
-    items = compute_items()
-    cache.store("catalogue-items", key, items)
-    return items
+    return cache.remembered("catalogue-items", key, compute_items, Item)
 
 
 def compute_items() -> tuple[Item, ...]:
