@@ -38,12 +38,13 @@ from ..files import check_distinct, write_atomic
 from ..reader import read
 from ..reading import Reading, exact_text
 from .expansions import empty_result, expansion_result, sign_result, words_result
-from .markup import (TEI_NS, TeiError, has_expansion, leiden_text, local_name, notation_hint,
+from .markup import (TEI_NS, TeiError, has_expansion, lang_hint, leiden_text, local_name,
                      num_pieces, parse_tei, plain_text, read_bytes)
 from ..tables.tei import table_to_dataframe
 from .table_context import table_restorations
 from ..notations import NOTATIONS
-from .places import num_places
+from .survey import survey
+from . import outcomes
 from .values import (CERTAINTY_MATCHES, certainty_match, decide, is_unit_fraction,
                      positive_range, unresolved)
 from .words import is_word, looks_like_words, read_words
@@ -215,9 +216,8 @@ def annotate_bytes(data: bytes, name: str | os.PathLike = "<input>", *, alternat
     if not isinstance(data, (bytes, bytearray, memoryview)):
         raise NumcheckError(f"Expected the bytes of a TEI document, got {type(data).__name__}.")
     root = parse_tei(name, data)
-    elements = [e for e in root.iter() if isinstance(e.tag, str)]
-    index_of = {id(e): i for i, e in enumerate(elements)}
-    nums = [e for e in elements if e.tag == f"{{{TEI_NS}}}num"]
+    found = survey(root)
+    elements, index_of, nums = found.elements, found.index_of, found.nums
     if len(nums) > limits.MAX_XML_NUMS:
         raise LimitError(f"number of <num> elements in {str(name)!r}", len(nums),
                          limits.MAX_XML_NUMS, "Set numcheck.limits.MAX_XML_NUMS higher to annotate it.")
@@ -230,12 +230,25 @@ def annotate_bytes(data: bytes, name: str | os.PathLike = "<input>", *, alternat
         if damaged:
             in_tables = table_restorations(root, damaged, notation=notation, top=alternatives,
                                            notes=notes)
-    places = num_places(root)
+    places, langs = found.places, found.langs
+    settings = _settings()
+    # Without restorations a number's outcome is a function of its own markup
+    # (and the language in force): the same markup is annotated once (.outcomes).
+    remember = restore_fn is None and outcomes.ENABLED
     edits: dict[int, Edit] = {}
     results: list[NumResult] = []
     for el in nums:
-        res, edit = _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of,
-                                  in_tables.get(id(el)), places[id(el)])
+        place, hint = places[id(el)], lang_hint(langs[id(el)])
+        key = outcomes.key(el, hint, notation, fix, settings) if remember else None
+        known = outcomes.recall(key, el.sourceline, place) if remember else None
+        if known is not None:
+            res, edit = known
+        else:
+            res, edit, own = _annotate_num(el, name, notation, fix, alternatives, restore_fn,
+                                           index_of, in_tables.get(id(el)), place, hint,
+                                           settings)
+            if remember and own:
+                outcomes.keep(key, res, edit)
         results.append(res)
         if edit is not None:
             edits[index_of[id(el)]] = edit
@@ -264,8 +277,22 @@ def _line(el) -> int | None:
 
 
 def _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of, from_table,
-                  place):
-    """One ``<num>``: its result, and the edit to make (or None).  Never raises for the number."""
+                  place, hint, settings):
+    """One ``<num>``: its result, the edit to make (or None), and whether they are its own.
+
+    They are its own (the third item) when they follow from the element's
+    markup, *hint* and the options alone, not from the text around it nor
+    from the file's name or line (see :mod:`.outcomes`).  Never raises for
+    the number.
+    """
+    res, edit = _annotate_markup(el, name, notation, fix, alternatives, restore_fn, index_of,
+                                 from_table, place, hint, settings)
+    own = res.status != "unreadable" and res.read_from not in (None, "words before")
+    return res, edit, own
+
+
+def _annotate_markup(el, name, notation, fix, alternatives, restore_fn, index_of, from_table,
+                     place, hint, settings):
     existing = {k: el.get(k) for k in ("value", "atLeast", "atMost") if el.get(k) is not None}
     res = NumResult(_line(el), "", "", "agrees", existing=existing, index=place.index,
                     xpath=place.xpath, text_line=place.text_line, div=place.div)
@@ -287,7 +314,7 @@ def _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of, f
         words_result(res, plain)
         return res, None
     try:
-        reading, text = _read_num(el, name, res.line, pieces, plain, notation)
+        reading, text = _read_num(name, res.line, pieces, plain, notation, hint, settings)
     except NumcheckError as err:
         if has_expansion(pieces):
             expansion_result(res, pieces, plain, letters_failed=True)
@@ -387,18 +414,21 @@ def _annotate_reading(el, res, reading, text, fix, alternatives, restore_fn, ind
 DOCUMENTARY_GREEK = "greek-documentary"
 
 
-def _read_once(text: str, notation: str) -> Reading:
+def _read_once(text: str, notation: str, settings: tuple | None = None) -> Reading:
     """``read(text, notation=notation)``, remembered: a corpus writes the same numbers again and again.
 
     A Reading is immutable and read() a function of its text, its notation
-    and the limits in force (part of the key), so a remembered Reading is the
-    Reading read() would give; errors are not remembered.
+    and the limits in force (*settings*, part of the key), so a remembered
+    Reading is the Reading read() would give; errors are not remembered.
     """
-    from .. import limits
+    return _remembered(text, notation, _settings() if settings is None else settings)
 
+
+def _settings() -> tuple:
+    """The limits in force (a document is read under one setting of them)."""
     if not _LIMIT_NAMES:
         _LIMIT_NAMES.extend(sorted(k for k in vars(limits) if k.isupper()))
-    return _remembered(text, notation, tuple(getattr(limits, k) for k in _LIMIT_NAMES))
+    return tuple(getattr(limits, k) for k in _LIMIT_NAMES)
 
 
 _LIMIT_NAMES: list[str] = []
@@ -409,12 +439,13 @@ def _remembered(text: str, notation: str, settings: tuple) -> Reading:
     return read(text, notation=notation)
 
 
-def _read_num(el, name, line, pieces, plain: str, notation: str | None):
+def _read_num(name, line, pieces, plain: str, notation: str | None, hint: str | None,
+              settings: tuple | None = None):
     """Read a ``<num>``: in the notation given, else the one its letters suggest.
 
     Without a notation, the letters choose it (:func:`detect_notation`); when
-    they cannot be read that way, the ``xml:lang`` in force (``grc`` ->
-    greek, ``la`` -> roman ...) is tried before giving up.
+    they cannot be read that way, the notation *hint* of the ``xml:lang`` in
+    force (``grc`` -> greek, ``la`` -> roman ...) is tried before giving up.
     """
     if notation is not None:
         candidates = [notation]
@@ -423,7 +454,6 @@ def _read_num(el, name, line, pieces, plain: str, notation: str | None):
         if plain:
             from ..notations.detect import detect_notation
             candidates.append(detect_notation(plain)[0])
-        hint = notation_hint(el)
         if hint is not None and hint not in candidates:
             candidates.append(hint)
         if not candidates:
@@ -443,7 +473,7 @@ def _read_num(el, name, line, pieces, plain: str, notation: str | None):
                 # How odd letters were read is kept in reading.warnings, one
                 # per number, not raised once per <num> of a long file.
                 warnings.simplefilter("ignore", NumcheckWarning)
-                return _read_once(text, chosen), text
+                return _read_once(text, chosen, settings), text
         except NumcheckError as err:
             if first_error is None:
                 first_error = (chosen, text, err)
@@ -505,7 +535,7 @@ def _write(data: bytes, root, elements: list, edits: dict[int, Edit], notes: lis
         except (ValueError, AttributeError):
             spans = []
         names_agree = len(spans) == len(elements) and all(
-            s.name.rsplit(":", 1)[-1] == etree.QName(e).localname for s, e in zip(spans, elements))
+            s.name.rsplit(":", 1)[-1] == e.tag.rsplit("}", 1)[-1] for s, e in zip(spans, elements))
         if names_agree:
             prefixes = {i: elements[i].prefix for i in edits}
             return apply_edits(text, spans, edits, prefixes).encode(codec)

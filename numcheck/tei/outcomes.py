@@ -1,0 +1,78 @@
+"""The outcomes of ``<num>`` markup already annotated in this process, kept to be given again.
+
+A corpus writes the same numbers again and again: a thousand accounts hold
+the same few thousand ``<num value="12">ιβ</num>``.  Without restorations,
+what annotate finds for a number (its text, value, status, message and the
+attributes to write) follows from the element's own markup, the language in
+force, the options and the limits alone: only its place differs.  So the
+outcome is kept under that key, and a number with the same markup gets a
+copy of it, with its own place.
+
+What depends on more than the element is never kept: an empty ``<num>``
+(read from the words before it), a number numcheck cannot read (its reason
+names the file and line), a sign without letters, and anything annotated
+with restorations (they may come from the table around the number).
+``tests/test_tei_outcomes.py`` checks that every file annotates the same
+with and without this memory.
+"""
+
+from __future__ import annotations
+
+from lxml import etree
+
+__all__ = ["ENABLED", "MAX_KEPT", "key", "recall", "keep", "forget"]
+
+#: Whether annotate keeps outcomes (the tests turn it off to compare).
+ENABLED = True
+#: At most this many outcomes are kept; past it the memory starts again empty.
+MAX_KEPT = 50_000
+
+#: The fields of a NumResult that are its place, not its outcome.
+_PLACE = ("line", "index", "xpath", "text_line", "div")
+
+_kept: dict = {}
+
+
+def key(el, hint: str | None, notation: str | None, fix: bool, settings: tuple):
+    """What a ``<num>``'s outcome depends on: its markup, the language hint, options, limits."""
+    if len(el):
+        markup = etree.tostring(el, with_tail=False)   # children, their attributes and text
+    else:
+        markup = (el.text, tuple(el.items()))
+    return markup, hint, notation, bool(fix), settings
+
+
+def keep(k, res, edit) -> None:
+    """Keep the outcome *res*, *edit* of the markup *k*."""
+    if edit is not None and (edit.add_children or edit.drop_children):
+        return                          # children are found by their index in one file
+    if len(_kept) >= MAX_KEPT:
+        _kept.clear()
+    fields = {f: v for f, v in vars(res).items() if f not in _PLACE}
+    fields.update(existing=dict(res.existing), alternatives=list(res.alternatives),
+                  warnings=list(res.warnings))
+    attrs = None if edit is None else (dict(edit.set_attrs), list(edit.drop_attrs))
+    _kept[k] = (type(res), fields, attrs, type(edit))
+
+
+def recall(k, line: int | None, place):
+    """A fresh copy of the outcome kept for *k*, at *line* and *place*; None if none is kept."""
+    found = _kept.get(k)
+    if found is None:
+        return None
+    cls, fields, attrs, edit_cls = found
+    res = cls.__new__(cls)
+    state = dict(fields)
+    state["existing"] = dict(fields["existing"])
+    state["alternatives"] = list(fields["alternatives"])
+    state["warnings"] = list(fields["warnings"])
+    state.update(line=line, index=place.index, xpath=place.xpath, text_line=place.text_line,
+                 div=place.div)
+    res.__dict__.update(state)
+    edit = None if attrs is None else edit_cls(dict(attrs[0]), list(attrs[1]))
+    return res, edit
+
+
+def forget() -> None:
+    """Drop every kept outcome."""
+    _kept.clear()
