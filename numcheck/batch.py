@@ -404,14 +404,17 @@ def _annotate_one(job: tuple) -> dict:
     except NumcheckError as err:
         entry["error"] = short(str(err), limits.MAX_ECHO * 4)
         return entry
-    d = result.to_dict()
+    # The file's counts, and the JSON of only the numbers listed (result.to_dict()
+    # would build every number's; tests/test_batch.py compares the two).
+    d = result.counts()
     entry.update({k: d[k] for k in ("numbers", "damaged", "flagged", "restored", "unreadable",
                                     "statuses")})
-    entry["contradictions"] = [n for n in d["nums"] if n["status"] in ("contradiction", "fixed")]
+    entry["contradictions"] = [n.to_dict() for n in result.nums
+                               if n.status in ("contradiction", "fixed")]
     # A number that cannot be read is listed with its place; the file was still annotated.
-    entry["unreadable_nums"] = [n for n in d["nums"] if n["status"] == "unreadable"]
-    if d["notes"]:
-        entry["notes"] = d["notes"]
+    entry["unreadable_nums"] = [n.to_dict() for n in result.nums if n.status == "unreadable"]
+    if result.notes:
+        entry["notes"] = list(result.notes)
     return entry
 
 

@@ -159,23 +159,31 @@ class AnnotateResult:
     def words(self) -> int:
         return sum(1 for n in self.nums if n.status == "word")
 
-    def to_dict(self) -> dict:
+    def counts(self) -> dict:
+        """The head of :meth:`to_dict`: the input, the output and the counts, without the numbers."""
         counts: dict[str, int] = {}
+        damaged = restored = 0
         for n in self.nums:
             counts[n.status] = counts.get(n.status, 0) + 1
+            damaged += bool(n.damaged)
+            restored += bool(n.alternatives)
         return {
             "input": self.input,
             "output": self.output,
             "numbers": len(self.nums),
-            "damaged": self.damaged,
-            "flagged": len(self.contradictions),
-            "restored": self.restored,
-            "unreadable": len(self.unreadable),
-            "words": self.words,
+            "damaged": damaged,
+            "flagged": counts.get("contradiction", 0) + counts.get("fixed", 0),
+            "restored": restored,
+            "unreadable": counts.get("unreadable", 0),
+            "words": counts.get("word", 0),
             "statuses": counts,
-            "nums": [n.to_dict() for n in self.nums],
-            "notes": list(self.notes),
         }
+
+    def to_dict(self) -> dict:
+        out = self.counts()
+        out["nums"] = [n.to_dict() for n in self.nums]
+        out["notes"] = list(self.notes)
+        return out
 
 
 def annotate(in_path: str | os.PathLike, out_path: str | os.PathLike | None, *,

@@ -48,38 +48,37 @@ def survey(root) -> Survey:
     nums: list = []
     places: dict[int, Place] = {}
     langs: dict[int, str | None] = {}
-    steps: dict[str, str] = {}          # tag -> "tei:name" (the XPath step without position)
-    paths: dict[int, str] = {}          # id(element) -> its XPath
-    divs_in: dict[int, tuple] = {}      # id(element) -> the <div> it is or is in (outermost first)
-    labels: dict[int, str | None] = {}  # id(element) -> the label of divs_in
-    lang_in: dict[int, str | None] = {}
+    kinds: dict[str, tuple] = {}        # tag -> (XPath step without position, is a <div>)
+    # id(element) -> (its XPath, the <div> it is or is in (outermost first),
+    # their label, the xml:lang in force)
+    state: dict[int, tuple] = {}
     seen: dict[tuple, int] = {}         # (id(parent), tag) -> children with that tag so far
     last_lb = None                      # (n, id of the innermost <div> around it, or None)
     count = 0
     for el in root.iter():
         tag = el.tag
-        if not isinstance(tag, str):
-            continue
+        if tag.__class__ is not str:
+            continue                    # a comment, PI or entity
         me = id(el)
         index_of[me] = len(elements)
         elements.append(el)
-        step = steps.get(tag)
-        if step is None:
-            step = steps[tag] = ("tei:" if tag.startswith(f"{{{TEI_NS}}}") else "") + _local(tag)
+        kind = kinds.get(tag)
+        if kind is None:
+            local = _local(tag)
+            kind = kinds[tag] = (("tei:" if tag.startswith(f"{{{TEI_NS}}}") else "") + local,
+                                 local == "div")
         parent = el.getparent()
-        own_lang = el.get(XML_LANG)
+        lang = el.get(XML_LANG)
         if parent is None:
-            paths[me] = "/" + step
-            divs, label, lang = (), None, own_lang
+            path, divs, label = "/" + kind[0], (), None
         else:
             up = id(parent)
             key = (up, tag)
-            position = seen.get(key, 0) + 1
-            seen[key] = position
-            paths[me] = f"{paths[up]}/{step}[{position}]"
-            divs, label = divs_in[up], labels[up]
-            lang = own_lang if own_lang is not None else lang_in[up]
-        lang_in[me] = lang
+            position = seen[key] = seen.get(key, 0) + 1
+            path, divs, label, up_lang = state[up]
+            path = f"{path}/{kind[0]}[{position}]"
+            if lang is None:
+                lang = up_lang
         if tag == _NUM:
             count += 1
             line = None
@@ -88,13 +87,13 @@ def survey(root) -> Survey:
             if line is None:        # no <lb>: the verse <l n> or table <row n> that holds it
                 line = next((a.get("n") for a in el.iterancestors()
                              if a.tag in _LINE_HOLDERS and a.get("n")), None)
-            places[me] = Place(count, paths[me], line, label)
+            places[me] = Place(count, path, line, label)
             langs[me] = lang
             nums.append(el)
         elif tag == _LB:
             last_lb = (el.get("n"), id(divs[-1]) if divs else None)
-        if _local(tag) == "div":
+        elif kind[1]:
             divs = divs + (el,)
             label = " > ".join(div_label(d) for d in divs)
-        divs_in[me], labels[me] = divs, label
+        state[me] = (path, divs, label, lang)
     return Survey(elements, index_of, nums, places, langs)
