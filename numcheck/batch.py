@@ -43,7 +43,8 @@ from pathlib import Path
 
 from . import limits
 from .errors import LimitError, NumcheckError
-from .files import OutputError, check_distinct, display_name, same_file, short, write_atomic
+from .files import (OutputError, check_distinct, display_name, same_file, short,
+                    sweep_stale_temporaries, write_atomic)
 
 __all__ = ["BatchResult", "annotate_folder", "audit_folder", "find_files", "POOL_MIN_FILES",
            "TABLE_SUFFIXES", "write_index", "display_name", "machine_workers",
@@ -395,12 +396,15 @@ def _prepare(src_root: Path, out: Path | None, what: str) -> None:
 
 def _annotate_one(job: tuple) -> dict:
     rel, src, dst, alternatives, fix, notation = job
-    from .tei import annotate
+    from .tei.annotation import annotate_path
 
     entry = {"file": display_name(rel), "output": display_name(str(dst))}
     try:
         Path(dst).parent.mkdir(parents=True, exist_ok=True)
-        result = annotate(src, dst, alternatives=alternatives, fix=fix, notation=notation)
+        # annotate_folder swept the output folders of stale temporaries once;
+        # a folder made since holds none a killed run left.
+        result = annotate_path(src, dst, alternatives=alternatives, fix=fix, notation=notation,
+                               sweep=False)
     except NumcheckError as err:
         entry["error"] = short(str(err), limits.MAX_ECHO * 4)
         return entry
@@ -459,6 +463,9 @@ def annotate_folder(in_dir: str | os.PathLike, out_dir: str | os.PathLike, *,
     else:
         journal.clear()
     journal.start()
+    for folder in sorted({Path(job[2]).parent for job in jobs}):
+        if folder.is_dir():         # once per folder, not once per file written (quadratic)
+            sweep_stale_temporaries(folder)
     result = BatchResult("annotate", display_name(str(src_root)), display_name(str(dst_root)),
                          summary_dir=display_name(str(sdir)))
     already = sum(1 for i, j in enumerate(jobs)

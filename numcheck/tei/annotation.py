@@ -196,13 +196,20 @@ def annotate(in_path: str | os.PathLike, out_path: str | os.PathLike | None, *,
     malformed XML, a file that is not TEI, and an output path equal to the
     input; a ``<num>`` that cannot be read is no error (status ``unreadable``).
     """
+    return annotate_path(in_path, out_path, alternatives=alternatives, fix=fix, notation=notation)
+
+
+def annotate_path(in_path, out_path, *, alternatives: int = 0, fix: bool = False,
+                  notation: str | None = None, sweep: bool = True) -> AnnotateResult:
+    """:func:`annotate`; with ``sweep=False`` the output folder is not swept of stale
+    temporaries first (a batch sweeps each of its folders once: :func:`~numcheck.files.write_atomic`)."""
     if out_path is not None:
         check_distinct([in_path], out_path)
     data = read_bytes(in_path)
     out_bytes, result = annotate_bytes(data, in_path, alternatives=alternatives, fix=fix,
                                        notation=notation)
     if out_path is not None:
-        write_atomic(out_path, out_bytes)
+        write_atomic(out_path, out_bytes, sweep=sweep)
         result.output = str(out_path)
     return result
 
