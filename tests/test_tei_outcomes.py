@@ -46,6 +46,8 @@ NUMS = [
     '<num value="2"><g type="dipondius"/></num>', '<num>ιβ<!-- c --></num>',
     '<num><choice><sic>β</sic><corr>γ</corr></choice></num>', '<num>??</num>',
     '<num value="100"><hi rend="supraline">ρ</hi></num>', '<num>ε<lb n="2" break="no"/>ι</num>',
+    '<num xml:id="n1" value="12">ιβ</num>', '<num rend="x" value="12">ιβ</num>',
+    '<num xml:id="n2" value="125"><unclear>ρ</unclear>κε</num>', '<num xml:lang="la">XII</num>',
 ]
 
 

@@ -33,13 +33,17 @@ _PLACE = ("line", "index", "xpath", "text_line", "div")
 _kept: dict = {}
 
 
+#: The attributes of the ``<num>`` itself that annotate reads (an ``@xml:id`` is no part of the key).
+READ_ATTRIBUTES = ("value", "atLeast", "atMost", "type")
+
+
 def key(el, hint: str | None, notation: str | None, fix: bool, settings: tuple):
-    """What a ``<num>``'s outcome depends on: its markup, the language hint, options, limits."""
-    if len(el):
-        markup = etree.tostring(el, with_tail=False)   # children, their attributes and text
-    else:
-        markup = (el.text, tuple(el.items()))
-    return markup, hint, notation, bool(fix), settings
+    """What a ``<num>``'s outcome depends on: its content, the attributes read, the language
+    hint, the options and the limits."""
+    # The content: its text and each child whole (markup, attributes, text, tail).
+    content = (el.text, tuple(etree.tostring(c) for c in el)) if len(el) else el.text
+    return (content, tuple(el.get(a) for a in READ_ATTRIBUTES), hint, notation, bool(fix),
+            settings)
 
 
 def keep(k, res, edit) -> None:
