@@ -58,6 +58,7 @@ def _document(nums: list[str]) -> bytes:
     for lang, n in (("grc", "1"), ("la", "2")):
         parts.append(f'<div type="textpart" n="{n}" xml:lang="{lang}"><ab>')
         for i, num in enumerate(nums):
+            num = num.replace('xml:id="', f'xml:id="{lang}{i}-')      # an @xml:id is unique
             parts.append(f'<lb n="{i + 1}"/>ἕξ καὶ {num}\n')
         parts.append("</ab></div>")
     parts.append('<ab>' + "".join(nums) + "</ab></body></text></TEI>\n")
