@@ -34,16 +34,21 @@ _kept: dict = {}
 
 
 #: The attributes of the ``<num>`` itself that annotate reads (an ``@xml:id`` is no part of the key).
-READ_ATTRIBUTES = ("value", "atLeast", "atMost", "type")
+READ_ATTRIBUTES = frozenset({"value", "atLeast", "atMost", "type"})
 
 
 def key(el, hint: str | None, notation: str | None, fix: bool, settings: tuple):
     """What a ``<num>``'s outcome depends on: its content, the attributes read, the language
     hint, the options and the limits."""
-    # The content: its text and each child whole (markup, attributes, text, tail).
-    content = (el.text, tuple(etree.tostring(c) for c in el)) if len(el) else el.text
-    return (content, tuple(el.get(a) for a in READ_ATTRIBUTES), hint, notation, bool(fix),
-            settings)
+    items = el.items()
+    read = tuple(kv for kv in items if kv[0] in READ_ATTRIBUTES)
+    if not len(el):
+        content = el.text
+    elif len(read) == len(items):
+        content = etree.tostring(el, with_tail=False)      # its attributes and content whole
+    else:   # its text and each child whole (markup, attributes, text, tail)
+        content = (el.text, tuple(etree.tostring(c) for c in el))
+    return content, read, hint, notation, bool(fix), settings
 
 
 def keep(k, res, edit) -> None:
