@@ -549,8 +549,9 @@ def _write(data: bytes, root, elements: list, edits: dict[int, Edit], notes: lis
             spans = scan_elements(text)
         except (ValueError, AttributeError):
             spans = []
-        names_agree = len(spans) == len(elements) and all(
-            s.name.rsplit(":", 1)[-1] == e.tag.rsplit("}", 1)[-1] for s, e in zip(spans, elements))
+        names_agree = len(spans) == len(elements) and (
+            [s.name.rpartition(":")[2] for s in spans]
+            == [e.tag.rpartition("}")[2] for e in elements])
         if names_agree:
             prefixes = {i: elements[i].prefix for i in edits}
             return apply_edits(text, spans, edits, prefixes).encode(codec)
