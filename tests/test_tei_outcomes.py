@@ -186,3 +186,13 @@ def test_the_counts_are_the_head_of_the_json():
     head = {k: v for k, v in d.items() if k not in ("nums", "notes")}
     assert result.counts() == head
     assert list(result.counts()) == list(head)
+
+
+def test_the_memory_is_bounded(monkeypatch):
+    monkeypatch.setattr(outcomes, "MAX_KEPT", 3)
+    outcomes.forget()
+    data = _document(NUMS[:8])
+    out, d, _ = _annotate(data)
+    assert len(outcomes._kept) <= 3
+    monkeypatch.setattr(outcomes, "ENABLED", False)
+    assert _annotate(data)[:2] == (out, d)

@@ -24,8 +24,8 @@ __all__ = ["ENABLED", "MAX_KEPT", "key", "recall", "keep", "forget"]
 
 #: Whether annotate keeps outcomes (the tests turn it off to compare).
 ENABLED = True
-#: At most this many outcomes are kept; past it the memory starts again empty.
-MAX_KEPT = 50_000
+#: At most this many outcomes are kept (about 1.3 kB each); past it the memory starts again empty.
+MAX_KEPT = 20_000
 
 #: The fields of a NumResult that are its place, not its outcome.
 _PLACE = ("line", "index", "xpath", "text_line", "div")
