@@ -27,9 +27,6 @@ ENABLED = True
 #: At most this many outcomes are kept (about 1.3 kB each); past it the memory starts again empty.
 MAX_KEPT = 20_000
 
-#: The fields of a NumResult that are its place, not its outcome.
-_PLACE = ("line", "index", "xpath", "text_line", "div")
-
 _kept: dict = {}
 
 
@@ -57,7 +54,7 @@ def keep(k, res, edit) -> None:
         return                          # children are found by their index in one file
     if len(_kept) >= MAX_KEPT:
         _kept.clear()
-    fields = {f: v for f, v in vars(res).items() if f not in _PLACE}
+    fields = dict(vars(res))            # the place too, overwritten at each recall
     fields.update(existing=dict(res.existing), alternatives=list(res.alternatives),
                   warnings=list(res.warnings))
     attrs = None if edit is None else (dict(edit.set_attrs), list(edit.drop_attrs))
@@ -70,15 +67,19 @@ def recall(k, line: int | None, place):
     if found is None:
         return None
     cls, fields, attrs, edit_cls = found
+    state = fields.copy()
+    # The mutable fields fresh; the others are immutable (str, Fraction, tuple, bool).
+    state["existing"] = fields["existing"].copy()
+    state["alternatives"] = fields["alternatives"].copy()
+    state["warnings"] = fields["warnings"].copy()
+    state["line"] = line
+    state["index"] = place.index
+    state["xpath"] = place.xpath
+    state["text_line"] = place.text_line
+    state["div"] = place.div
     res = cls.__new__(cls)
-    state = dict(fields)
-    state["existing"] = dict(fields["existing"])
-    state["alternatives"] = list(fields["alternatives"])
-    state["warnings"] = list(fields["warnings"])
-    state.update(line=line, index=place.index, xpath=place.xpath, text_line=place.text_line,
-                 div=place.div)
-    res.__dict__.update(state)
-    edit = None if attrs is None else edit_cls(dict(attrs[0]), list(attrs[1]))
+    res.__dict__ = state
+    edit = None if attrs is None else edit_cls(attrs[0].copy(), attrs[1].copy())
     return res, edit
 
 
