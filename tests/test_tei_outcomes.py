@@ -7,7 +7,8 @@
 - One walk over the document (numcheck.tei.survey) gives the places of
   ``num_places`` and the notation hint of ``notation_hint``.
 - The regex scanner (write.scan_elements) finds the spans of the
-  character-by-character one (write.scan_elements_plainly).
+  character-by-character one (write.scan_elements_plainly), and
+  write.start_tags their start tags.
 - The depth check asks libxml2 first: it refuses what the walk refuses.
 - A batch entry takes the result's counts without building every number's JSON.
 """
@@ -25,7 +26,7 @@ from numcheck.tei import annotation, outcomes
 from numcheck.tei.markup import notation_hint, parse_tei
 from numcheck.tei.places import num_places
 from numcheck.tei.survey import survey
-from numcheck.tei.write import scan_elements, scan_elements_plainly
+from numcheck.tei.write import scan_elements, scan_elements_plainly, start_tags
 
 ROOT = Path(__file__).resolve().parents[1]
 PAPYRI = ROOT / ".." / "shared" / "realdata" / "papyri"
@@ -161,6 +162,19 @@ def test_the_regex_scanner_finds_the_plain_scanners_spans(text):
             scan_elements(text)
         return
     assert scan_elements(text) == plain
+
+
+@pytest.mark.parametrize("text", HOSTILE_XML + [d.decode("utf-8", "replace") for _, d in CASES])
+def test_the_start_tags_are_the_scanners(text):
+    try:
+        spans = scan_elements_plainly(text)
+    except (ValueError, IndexError):
+        return                  # not well-formed: never given to start_tags (lxml refused it)
+    found = start_tags(text)
+    if found is None:           # a DOCTYPE: the scanner reads it
+        assert "<!DOCTYPE" in text
+        return
+    assert found == ([s.name for s in spans], [s.start for s in spans], [s.start_end for s in spans])
 
 
 def _nested(depth: int) -> bytes:

@@ -48,7 +48,8 @@ from . import outcomes
 from .values import (CERTAINTY_MATCHES, certainty_match, decide, is_unit_fraction,
                      positive_range, unresolved)
 from .words import is_word, looks_like_words, read_words
-from .write import Edit, apply_edits, apply_edits_tree, decode_source, scan_elements
+from .write import (Edit, ElementSpan, apply_edits, apply_edits_tree, decode_source,
+                    scan_elements, start_tags)
 
 __all__ = ["annotate", "annotate_bytes", "AnnotateResult", "NumResult", "TeiError",
            "table_to_dataframe", "TEI_NS"]
@@ -545,15 +546,24 @@ def _write(data: bytes, root, elements: list, edits: dict[int, Edit], notes: lis
     decoded = decode_source(data, docinfo.encoding)
     if decoded is not None:
         text, codec = decoded
+        prefixes = {i: elements[i].prefix for i in edits}
+        local = [e.tag.rpartition("}")[2] for e in elements]
+        if not any(e.add_children or e.drop_children for e in edits.values()):
+            # Attributes alone: the start tags are enough (write.start_tags).
+            tags = start_tags(text)
+            if tags is not None and len(tags[0]) == len(elements) and \
+                    [n.rpartition(":")[2] for n in tags[0]] == local:
+                names, starts, ends = tags
+                spans = {i: ElementSpan(names[i], starts[i], ends[i], text[ends[i] - 2] == "/")
+                         for i in edits}
+                return apply_edits(text, spans, edits, prefixes).encode(codec)
         try:
             spans = scan_elements(text)
         except (ValueError, AttributeError):
             spans = []
         names_agree = len(spans) == len(elements) and (
-            [s.name.rpartition(":")[2] for s in spans]
-            == [e.tag.rpartition("}")[2] for e in elements])
+            [s.name.rpartition(":")[2] for s in spans] == local)
         if names_agree:
-            prefixes = {i: elements[i].prefix for i in edits}
             return apply_edits(text, spans, edits, prefixes).encode(codec)
     note = ("the file could not be edited in place (its text and tree did not match); "
             "it was re-serialised by lxml, so quoting and character references may differ")
