@@ -434,12 +434,17 @@ def build_table(header, rows, *, notation, columns, source) -> Table:
     # One normal form (NFC) for every text, as numcheck.read uses: the same
     # table typed with decomposed accents gives the same audit, word for word.
     header = [_nfc(h) for h in header]
-    # In place: a copy of every row doubled the memory of a 10^6-line table.
-    if not isinstance(rows, list):
-        rows = list(rows)
-    for r in rows:
-        if not all(c.isascii() for c in r):
-            r[:] = [_nfc(c) for c in r]
+    # A text table comes column by column (tables.text.TextColumns, its texts
+    # already in NFC): a list per row cost more than the cells of a 10^6-line table.
+    by_columns = None if isinstance(rows, list) or not hasattr(rows, "columns") else rows
+    if by_columns is None:
+        # In place: a copy of every row doubled the memory of a 10^6-line table.
+        if not isinstance(rows, list):
+            rows = list(rows)
+        for r in rows:
+            if not all(c.isascii() for c in r):
+                r[:] = [_nfc(c) for c in r]
+    nrows = len(rows) if by_columns is None else by_columns.nrows
     if columns is not None:
         try:
             columns = _nfc(columns) if isinstance(columns, str) else [_nfc(str(c)) for c in columns]
@@ -448,10 +453,10 @@ def build_table(header, rows, *, notation, columns, source) -> Table:
                                 f"{type(columns).__name__}.") from None
     if not header or all(not h for h in header):
         raise NumcheckError(f"The table {source} has no header row.")
-    if not rows:
+    if not nrows:
         raise NumcheckError(f"The table {source} is empty: it has a header ({', '.join(header)}) "
                             "but no data rows.")
-    check_cells(len(rows) * len(header))
+    check_cells(nrows * len(header))
     for j, name in enumerate(header):
         if not name:
             raise NumcheckError(f"The header of {source} has no name for column {j + 1}.")
@@ -462,7 +467,8 @@ def build_table(header, rows, *, notation, columns, source) -> Table:
     if len(set(header)) != len(header):
         dup = next(h for h in header if header.count(h) > 1)
         raise NumcheckError(f"The header of {source} names column {dup!r} twice.")
-    for i, r in enumerate(rows, start=1):
+    # (a ragged text table comes as rows: tables.text.split_columns)
+    for i, r in (enumerate(rows, start=1) if by_columns is None else ()):
         if len(r) != len(header):
             hint = (" In CSV, quote the cells that hold commas (\"29;31,20\"), or use tabs."
                     if source.lower().endswith(".csv") else "")
@@ -476,11 +482,14 @@ def build_table(header, rows, *, notation, columns, source) -> Table:
             if name not in header:
                 raise UnknownNameError("column", name, header)
         wanted = [h for h in header if h in columns]
-    nrows = len(rows)
     # Column by column, each row list given up once read: the texts stay (the
     # cells keep them), the row lists do not.
-    by_column = {name: [r[header.index(name)] for r in rows] for name in wanted}
-    rows.clear()
+    if by_columns is None:
+        by_column = {name: [r[header.index(name)] for r in rows] for name in wanted}
+        rows.clear()
+    else:
+        by_column = {name: by_columns.columns[header.index(name)] for name in wanted}
+        by_columns.columns = []
     cols: dict[str, Column] = {}
     left_out: dict[str, str] = {}
     notes: list[str] = []
