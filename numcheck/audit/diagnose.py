@@ -200,7 +200,8 @@ def _chain(table, frame, scheme: Scheme, true):
             S = None  # no true chain here: nothing to compute the next line from
             continue
         e_true = t[0]
-        col_true[i] = e_true
+        if e_true != wi:
+            col_true[i] = e_true    # (an equal value keeps the written one's object: less memory)
         if S is None:
             pred, pred_w = t, None
         else:
