@@ -181,7 +181,8 @@ class Cells:
     def set_texts(self, texts) -> None:
         """The texts of the cells, top to bottom (kept as one string)."""
         self._text = "".join(texts)
-        self._ends = array("q", accumulate(map(len, texts)))
+        # 4 bytes an end where the text allows (any table under MAX_TABLE_BYTES)
+        self._ends = array("I" if len(self._text) < 1 << 32 else "q", accumulate(map(len, texts)))
 
     # -- reading ---------------------------------------------------------
     def __len__(self) -> int:
