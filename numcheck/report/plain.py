@@ -160,10 +160,12 @@ def sheet_lines(title, columns, rows, width: int) -> list[str] | None:
     if not all(_plain_markup(h) for h in headers) or (title and not _plain_markup(title)):
         return None
     widths = []
-    for k, (name, _, _) in enumerate(columns):
+    for k, (name, wraps, _) in enumerate(columns):
         cells = [name] + [cells[k] for cells in data]
         if any("\t" in c for c in cells):
             return None
+        if wraps and any(ln and not ln.strip(" ") for c in cells if "\n" in c for ln in c.split("\n")):
+            return None     # rich drops a line of spaces alone in a wrapping cell
         sizes = [text_width(ln) for c in cells for ln in c.split("\n")]
         if None in sizes:
             return None

@@ -56,6 +56,7 @@ from ..grammars import parser_for
 from ... import limits
 from ...reading import Reading, Slot, Status
 from .build import group_slots, unread_mark_slot
+from .quick import plain_letters_reading
 from .writing import format, render
 from .letters import BARRED, letter_value
 from .conventions import CONVENTIONS, GENERIC
@@ -160,6 +161,10 @@ def parse(text: str, *, ascending: bool = False, notation: str = NAME, conventio
     if convention not in CONVENTIONS:
         raise ValueError(f"unknown Greek convention {convention!r}; expected one of {sorted(CONVENTIONS)}")
     text, cleaned = clean(text)
+    if not cleaned and not ascending:
+        quick = plain_letters_reading(text, notation, limits.MAX_PLACES)
+        if quick is not None:
+            return quick
     notes: list = []
     for note in cleaned:
         notes += [True, note]
