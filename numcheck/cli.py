@@ -14,8 +14,7 @@ from __future__ import annotations
 
 import argparse
 import importlib
-import json
-import pkgutil
+import os
 import re
 import sys
 import warnings
@@ -27,9 +26,18 @@ __all__ = ["main", "build_parser"]
 
 
 def _command_names() -> list[str]:
-    """The commands, one per module of :mod:`numcheck.commands`, found without importing them."""
-    return sorted(info.name for info in pkgutil.iter_modules(_commands_pkg.__path__)
-                  if not info.name.startswith("_"))
+    """The commands, one per module of :mod:`numcheck.commands`, found without importing them.
+
+    The folder is listed rather than walked with pkgutil, which would import
+    typing at every start.
+    """
+    names = set()
+    for folder in _commands_pkg.__path__:
+        for entry in os.listdir(folder):
+            stem, dot, suffix = entry.partition(".")
+            if dot and suffix in ("py", "pyc") and stem.isidentifier() and not stem.startswith("_"):
+                names.add(stem)
+    return sorted(names)
 
 
 def _command_module(name: str):
@@ -52,6 +60,29 @@ def _chosen_command(argv: list[str], names: list[str]) -> str | None:
     return None
 
 
+def _terminal_columns() -> int:
+    """The terminal's width as shutil.get_terminal_size gives it (without importing shutil)."""
+    try:
+        columns = int(os.environ["COLUMNS"])
+    except (KeyError, ValueError):
+        columns = 0
+    if columns <= 0:
+        try:
+            columns = os.get_terminal_size(sys.__stdout__.fileno()).columns
+        except (AttributeError, ValueError, OSError):
+            columns = 0
+    return columns or 80
+
+
+class _HelpFormatter(argparse.HelpFormatter):
+    """argparse's help layout; the width is found here, so that a start need not import
+    shutil (argparse makes a formatter for every argument it adds)."""
+
+    def __init__(self, prog, indent_increment=2, max_help_position=24, width=None):
+        super().__init__(prog, indent_increment, max_help_position,
+                         _terminal_columns() - 2 if width is None else width)
+
+
 class _Parser(argparse.ArgumentParser):
     """argparse, but bad options exit 2 with a one-line message (bad input).
 
@@ -62,6 +93,7 @@ class _Parser(argparse.ArgumentParser):
     """
 
     def __init__(self, *args, **kwargs):
+        kwargs.setdefault("formatter_class", _HelpFormatter)
         super().__init__(*args, **kwargs)
         self._negative_number_matcher = re.compile(r"^-\d")
 
@@ -140,6 +172,8 @@ def _stream_is_utf8(stream) -> bool:
 def _json_text(data: dict) -> str:
     # JSON stays exact and valid in any encoding: ASCII escapes where the
     # output cannot hold the characters.
+    import json
+
     return json.dumps(data, ensure_ascii=not _stream_is_utf8(sys.stdout), sort_keys=False) + "\n"
 
 
@@ -210,6 +244,46 @@ def _stdout():
     return out if tty else _TrimmedLines(out)
 
 
+#: Set, these make rich treat a pipe as a terminal (or write for a notebook).
+_RICH_TERMINAL_ENV = ("FORCE_COLOR", "TTY_COMPATIBLE", "TTY_INTERACTIVE", "JUPYTER_COLUMNS")
+
+
+def _rich_console(file, width=None):
+    return _console_class()(file=file, width=width, highlight=False, soft_wrap=False)
+
+
+def _screen():
+    """Where a command's readable screen goes: rich on a terminal; through a pipe plain
+    lines (numcheck.report.plain), with rich loaded only for what those cannot lay out."""
+    out = _stdout()
+    if isinstance(out, _TrimmedLines) and not any(k in os.environ for k in _RICH_TERMINAL_ENV):
+        from .report.plain import PlainConsole, plain_width
+
+        width = plain_width()
+        if width >= 20:
+            return PlainConsole(out, width, _rich_console)
+    return _rich_console(out)
+
+
+def _warn(message: str) -> None:
+    """A warning on standard error, in yellow on a terminal."""
+    try:
+        tty = sys.stderr is not None and sys.stderr.isatty()
+    except (AttributeError, ValueError):
+        tty = False
+    if not tty and not any(k in os.environ for k in _RICH_TERMINAL_ENV):
+        from .report.plain import plain_width, wrap
+
+        lines = wrap(f"warning: {message}", plain_width())
+        if lines is not None:
+            _say("".join(line + "\n" for line in lines))
+            return
+    from rich.console import Console
+    from rich.markup import escape
+
+    Console(stderr=True, highlight=False).print(f"[yellow]warning:[/yellow] {escape(message)}", markup=True)
+
+
 def main(argv: list[str] | None = None) -> int:
     import signal
 
@@ -259,12 +333,9 @@ def main(argv: list[str] | None = None) -> int:
 
 
 def _main(args) -> int:
-    console = err_console = None
+    console = None
     if not args.json:   # rich is loaded only for the readable tables
-        from rich.console import Console
-
-        console = _console_class()(file=_stdout(), highlight=False, soft_wrap=False)
-        err_console = Console(stderr=True, highlight=False)
+        console = _screen()
     try:
         with warnings.catch_warnings(record=True) as caught:
             warnings.simplefilter("always")
@@ -281,9 +352,7 @@ def _main(args) -> int:
             for w in caught:
                 if str(w.message) in shown:
                     continue
-                from rich.markup import escape
-
-                err_console.print(f"[yellow]warning:[/yellow] {escape(str(w.message))}", markup=True)
+                _warn(str(w.message))
         sys.stdout.flush()
         return 0
     except NumcheckError as err:

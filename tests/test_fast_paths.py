@@ -8,7 +8,10 @@
   compiled one, or fail at the same place.
 - The catalogue is read with the csv module; its pandas frame must hold the
   same rows.
-- The command line imports only the command it runs.
+- The command line imports only the command it runs, and through a pipe
+  writes its screens without rich.
+- A Greek number of plain small letters is read without the general reader
+  (numcheck.notations.greek.quick): the same Reading, slot for slot.
 """
 
 from __future__ import annotations
@@ -163,10 +166,19 @@ print(repr((heavy, others)), file=sys.stderr)
 @pytest.mark.parametrize("argv,allowed", [
     (["read", "1,49,45;20", "--json"], []),
     (["identify", "1,49,45;20", "--unit", "days", "--json"], []),
+    # The screens through a pipe (standard output is captured here) load no rich:
+    (["read", "1,49,45;20"], []),
+    (["read", "κθ λα ν η κ"], []),
+    (["identify", "1,49,45;20", "--unit", "days"], []),
 ])
 def test_a_command_imports_only_what_it_needs(argv, allowed):
+    import os
+
     code = _PROBE.format(argv=argv, name=argv[0])
-    proc = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, timeout=120)
+    env = {k: v for k, v in os.environ.items()
+           if k not in ("FORCE_COLOR", "TTY_COMPATIBLE", "TTY_INTERACTIVE", "JUPYTER_COLUMNS")}
+    proc = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, timeout=120,
+                          env=env)
     assert proc.returncode == 0, proc.stderr
     heavy, others = ast.literal_eval(proc.stderr.strip().splitlines()[-1])
     assert [m for m in heavy if m not in allowed] == []
@@ -285,3 +297,69 @@ def test_a_damaged_catalogue_file_is_computed_again(tmp_path, monkeypatch):
         assert catalogue._entries() == catalogue._parse_entries()
     finally:
         catalogue._entries.cache_clear()
+
+
+# ---- Greek numbers of plain small letters, without the general reader -------
+
+_SMALL = "αβγδεϛζηθικλμνξοπϙϟρστυφχψωϡϝϲͳ"
+_BY_RANK = ("αβγδεϛϝζηθ", "ικλμνξοπϙϟ", "ρσϲτυφχψωϡͳ")
+
+
+@st.composite
+def _small_letter_numbers(draw):
+    """Groups of small letters: mostly one letter per rank in descending order, sometimes any."""
+    groups = []
+    for _ in range(draw(st.integers(1, 6))):
+        if draw(st.booleans()):
+            ranks = sorted(draw(st.sets(st.integers(0, 2), min_size=1)), reverse=True)
+            groups.append("".join(draw(st.sampled_from(_BY_RANK[r])) for r in ranks))
+        else:
+            groups.append(draw(st.text(alphabet=_SMALL, min_size=1, max_size=3)))
+    return " ".join(groups)
+
+
+def _greek_outcome(text, convention):
+    import warnings
+
+    from numcheck.notations import greek
+
+    with warnings.catch_warnings(record=True) as caught:
+        warnings.simplefilter("always")
+        try:
+            r = greek.parse(text, convention=convention)
+        except NumcheckError as err:
+            return (type(err).__name__, str(err)), []
+    return (r, [s.form for s in r.slots]), [str(w.message) for w in caught]
+
+
+@given(_small_letter_numbers(), st.sampled_from(["generic", "astronomical", "documentary"]))
+def test_plain_small_letters_read_as_the_general_reader_reads_them(text, convention):
+    from unittest import mock
+
+    from numcheck import limits
+    from numcheck.notations import greek
+    from numcheck.notations.greek.quick import plain_letters_reading
+
+    fast = plain_letters_reading(text, "greek", limits.MAX_PLACES)
+    with mock.patch.object(greek, "plain_letters_reading", lambda *a: None):
+        slow, said = _greek_outcome(text, convention)
+    if fast is not None:
+        assert said == []
+        assert (fast, [s.form for s in fast.slots]) == slow
+        assert _greek_outcome(text, convention) == (slow, said)
+
+
+@pytest.mark.parametrize("text", ["κθ λα ν η κ", "ρκε", "μ ιϛ", "ϡϙθ νθ"])
+def test_everyday_greek_numbers_take_the_quick_path(text):
+    from numcheck import limits
+    from numcheck.notations.greek.quick import plain_letters_reading
+
+    assert plain_letters_reading(text, "greek", limits.MAX_PLACES) is not None
+
+
+@pytest.mark.parametrize("text", ["ο", "κ ο", "ξ ξ", "θκ", "Κθ", "κθ  λα", "ᾱ", "κ[θ]"])
+def test_greek_numbers_the_quick_path_leaves_to_the_reader(text):
+    from numcheck import limits
+    from numcheck.notations.greek.quick import plain_letters_reading
+
+    assert plain_letters_reading(text, "greek", limits.MAX_PLACES) is None

@@ -29,7 +29,8 @@ def make_frame(table: Table) -> Frame:
     """Scale every exact value of the table to an integer on one common scale."""
     dens = set()
     for col in table.columns.values():
-        for c in col.cells:
+        dens.update(60 ** p for p in col.cells.plain_places())
+        for _, c in col.cells.kept():
             if c.num is not None:
                 dens.add(60 ** c.places)
             elif c.exact is not None:
@@ -37,13 +38,7 @@ def make_frame(table: Table) -> Frame:
     # Twice the common denominator: a zigzag's extremes are half-sums of two
     # lines (M = (y_n + y_n+1 + d)/2), and so stay integers on this scale.
     scale = 2 * (lcm_all(dens) if dens else 1)
-    per_place = {p: scale // 60 ** p for p in range(13) if scale % 60 ** p == 0}
-    written = {}
-    for name, col in table.columns.items():
-        written[name] = [
-            c.num * per_place[c.places] if c.num is not None and c.places in per_place else
-            None if c.value is None else c.value.numerator * (scale // c.value.denominator)
-            for c in col.cells]
+    written = {name: col.cells.scaled(scale) for name, col in table.columns.items()}
     modulus = {name: (360 * scale if col.longitude else None) for name, col in table.columns.items()}
     floating = {name: col.floating for name, col in table.columns.items()}
     return Frame(names=list(table.columns), written=written, scale=scale, modulus=modulus,

@@ -172,6 +172,8 @@ def _anchor_states(scheme: Scheme, w, src):
             nxt = advance(scheme, states[j - 1], j, src, gaps)
             if nxt is None:
                 break
+            if len(nxt) == 2 and nxt[0] == w[j] and type(nxt[0]) is type(w[j]):
+                nxt = (w[j], nxt[1])    # the written value's object: one int less per line
             states[j] = nxt
             j += 1
         if j >= n:
@@ -200,7 +202,8 @@ def _chain(table, frame, scheme: Scheme, true):
             S = None  # no true chain here: nothing to compute the next line from
             continue
         e_true = t[0]
-        col_true[i] = e_true
+        if e_true != wi or type(e_true) is not type(wi):
+            col_true[i] = e_true    # (an equal value keeps the written one's object: less memory)
         if S is None:
             pred, pred_w = t, None
         else:

@@ -90,7 +90,9 @@ class AuditResult:
             "slips": sum(1 for f in flags if f["kind"] not in ("carried-forward", "lines-missing")),
             "lines_missing": sum(1 for f in flags if f["kind"] == "lines-missing"),
             "carried_forward": sum(1 for f in flags if f["kind"] == "carried-forward"),
-            "damaged": sum(1 for c in self.table.columns.values() for x in c.cells if x.damaged),
+            # a plain cell (not kept whole) always has its value
+            "damaged": sum(1 for c in self.table.columns.values() for _, x in c.cells.kept()
+                           if x.damaged),
             "restored": len({(r.index, r.column) for r in self.restorations}),
         }
 

@@ -20,13 +20,15 @@ pairs that agree), so that a minority of slips does not move them
 from __future__ import annotations
 
 import math
+from array import array
 from collections import Counter
+from itertools import islice
 from dataclasses import dataclass, field
 from fractions import Fraction
 
 from ..reading import exact_text, sexagesimal_text
 
-__all__ = ["Frame", "Scheme", "ConstantScheme", "LinearScheme", "mode", "diffs", "value_text",
+__all__ = ["Frame", "Scheme", "ConstantScheme", "LinearScheme", "mode", "majority", "diffs", "DiffPairs", "value_text",
            "support_chained", "support_row"]
 
 
@@ -64,6 +66,28 @@ def mode(items) -> tuple[object, int]:
     return None, 0  # pragma: no cover
 
 
+def majority(items: list):
+    """The item more than half of *items* are, or None: ``mode`` when its count is a majority.
+
+    In constant memory (Boyer and Moore's vote), where ``mode`` counts every
+    distinct item (a 10^6-line column of distinct values).
+
+    >>> majority([3, 1, 3, 3, 2]), majority([1, 2, 1, 2])
+    (3, None)
+    """
+    candidate, lead = None, 0
+    for item in items:
+        if lead == 0:
+            candidate, lead = item, 1
+        elif item == candidate:
+            lead += 1
+        else:
+            lead -= 1
+    if lead and sum(1 for item in items if item == candidate) * 2 > len(items):
+        return candidate
+    return None
+
+
 def diffs(values: list, modulus=None) -> list[tuple[int, object]]:
     """(row index, difference to the line before) for each pair of known lines."""
     out = []
@@ -77,6 +101,53 @@ def diffs(values: list, modulus=None) -> list[tuple[int, object]]:
             out.append((i, d))
         prev = v
     return out
+
+
+class DiffPairs:
+    """The pairs of :func:`diffs` made on demand, one index per pair kept (a 10^6-line column).
+
+    ``pairs[k]`` is the k-th ``(row index, difference)``; :meth:`differences`
+    walks the differences alone, as often as asked.
+    """
+
+    __slots__ = ("values", "modulus", "index")
+
+    def __init__(self, values: list, modulus=None):
+        self.values = values
+        self.modulus = modulus
+        self.index = array("q", (i for i in range(1, len(values))
+                                 if values[i] is not None and values[i - 1] is not None))
+
+    def __len__(self) -> int:
+        return len(self.index)
+
+    def __getitem__(self, k: int) -> tuple[int, object]:
+        i = self.index[k]
+        d = self.values[i] - self.values[i - 1]
+        if self.modulus:
+            d %= self.modulus
+        return i, d
+
+    def differences(self) -> "_Differences":
+        return _Differences(self)
+
+
+class _Differences:
+    __slots__ = ("pairs",)
+
+    def __init__(self, pairs: DiffPairs):
+        self.pairs = pairs
+
+    def __len__(self) -> int:
+        return len(self.pairs)
+
+    def __iter__(self):
+        values, modulus = self.pairs.values, self.pairs.modulus
+        for i in self.pairs.index:
+            d = values[i] - values[i - 1]
+            if modulus:
+                d %= modulus
+            yield d
 
 
 class Scheme:
@@ -192,8 +263,8 @@ class ConstantScheme(Scheme):
         values = [v for v in frame.written[column] if v is not None]
         if len(values) < 3:
             return None
-        v, n = mode(values)
-        return cls(column, frame, v) if n * 2 > len(values) else None
+        v = majority(values)
+        return cls(column, frame, v) if v is not None else None
 
 
 class LinearScheme(Scheme):
@@ -248,8 +319,8 @@ class LinearScheme(Scheme):
     @classmethod
     def fit(cls, column, frame):
         modulus = frame.modulus.get(column) or _circle(frame, column)
-        pairs = diffs(frame.written[column], modulus)
-        ds = [d for _, d in pairs]
+        pairs = DiffPairs(frame.written[column], modulus)
+        ds = pairs.differences()
         if len(ds) < 2:
             return None
         d, n = mode(ds)
@@ -273,7 +344,7 @@ def _circle(frame, column) -> int | None:
     lies in [0, K).
     """
     values = [v for v in frame.written[column] if v is not None]
-    raw = [d for _, d in diffs(frame.written[column])]
+    raw = DiffPairs(frame.written[column]).differences()
     if len(raw) < 2 or not values or min(values) < 0:
         return None
     d, n = mode(raw)
@@ -296,9 +367,9 @@ def _segments(pairs, d) -> list:
     """Lasting changes of the difference: runs of equal differences other than the current one."""
     out = []
     current = d
-    k = 0
-    while k < len(pairs):
-        i, x = pairs[k]
+    # the differences walked in order; pairs[k] looked up only around a change
+    walk = enumerate(pairs.differences() if isinstance(pairs, DiffPairs) else (x for _, x in pairs))
+    for k, x in walk:
         # a difference that reverses the current one is a turn (a zigzag), not a change
         if x != current and x != -current:
             run = 1
@@ -306,11 +377,9 @@ def _segments(pairs, d) -> list:
                    and pairs[k + run][0] == pairs[k + run - 1][0] + 1):
                 run += 1
             if run >= _SEGMENT_RUN and x:
-                out.append((i, x))
+                out.append((pairs[k][0], x))
                 current = x
-                k += run
-                continue
-        k += 1
+                next(islice(walk, run - 1, run - 1), None)   # past the run: k += run
     return out
 
 

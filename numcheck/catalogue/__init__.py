@@ -14,10 +14,10 @@ The loader gives a pandas DataFrame (:func:`frame`) and typed lookups
 
 from __future__ import annotations
 
+import os
 from dataclasses import dataclass
 from fractions import Fraction
 from functools import lru_cache
-from importlib import resources
 
 from ..errors import NumcheckError, UnknownNameError
 from .statements import Side, parse_number, parse_statement
@@ -106,7 +106,7 @@ def _rows() -> tuple[dict[str, str], ...]:
 
     out = []
     for name in _FILES:
-        with resources.files("numcheck.data").joinpath(name).open("r", encoding="utf-8", newline="") as fh:
+        with open(_data_file(name), encoding="utf-8", newline="") as fh:
             reader = csv.DictReader(line for line in fh if not line.lstrip().startswith("#"))
             missing = [c for c in COLUMNS if c not in (reader.fieldnames or ())]
             if missing:
@@ -131,13 +131,24 @@ def frame():
 
 def source_key() -> str:
     """The cache key of what the catalogue is computed from: its files and this code."""
-    from pathlib import Path
-
     from .. import cache
 
-    files = [resources.files("numcheck.data").joinpath(name).read_bytes() for name in _FILES]
-    code = [Path(__file__).read_bytes(), (Path(__file__).parent / "statements.py").read_bytes()]
-    return cache.make_key(*files, *code)
+    here = os.path.dirname(os.path.abspath(__file__))
+    paths = [_data_file(name) for name in _FILES] + [os.path.join(here, f) for f in ("__init__.py", "statements.py")]
+    contents = []
+    for path in paths:
+        with open(path, "rb") as fh:
+            contents.append(fh.read())
+    return cache.make_key(*contents)
+
+
+def _data_file(name: str) -> str:
+    """The path of a file of the package's data (numcheck/data/NAME).
+
+    A plain path rather than importlib.resources, whose import costs more
+    than reading the catalogue: the wheel installs the data as files.
+    """
+    return os.path.join(os.path.dirname(os.path.dirname(os.path.abspath(__file__))), "data", name)
 
 
 @lru_cache(maxsize=1)

@@ -32,35 +32,26 @@ def args_text(reading) -> str:
 
 
 def _show(reading, result: dict, console) -> None:
-    from rich.markup import escape
-    from rich.panel import Panel
-    from rich.table import Table
+    from ..report.layout import Sheet, fields, note
 
-    head = Table.grid(padding=(0, 2))
-    head.add_column(style="bold")
-    head.add_column()
-    head.add_row("as typed", escape(args_text(reading)))
+    head = [("as typed", args_text(reading))]
     if result["canonical"] != args_text(reading):
-        head.add_row("normalised", escape(result["canonical"]) + "  (the same number in numcheck's "
-                                                                  "canonical form)")
-    head.add_row("notation", result.get("detected") or result["notation"])
+        head.append(("normalised", result["canonical"] + "  (the same number in numcheck's canonical form)"))
+    head.append(("notation", result.get("detected") or result["notation"]))
     if reading.floating:
-        head.add_row("magnitude", "floating: the text does not fix it (shown at integer scale)")
-    head.add_row("sexagesimal", result["sexagesimal"])
-    head.add_row("exact", result["value"])
-    head.add_row("decimal", result["decimal"])
+        head.append(("magnitude", "floating: the text does not fix it (shown at integer scale)"))
+    head += [("sexagesimal", result["sexagesimal"]), ("exact", result["value"]),
+             ("decimal", result["decimal"])]
     if "unit" in result:
-        head.add_row("unit", result["unit"])
+        head.append(("unit", result["unit"]))
     if reading.damaged or reading.ambiguous:
-        head.add_row("range", f"{sexagesimal_text(reading.min, fixed=not reading.floating)} to "
+        head.append(("range", f"{sexagesimal_text(reading.min, fixed=not reading.floating)} to "
                               f"{sexagesimal_text(reading.max, fixed=not reading.floating)}"
-                              f"  ({exact_text(reading.min)} to {exact_text(reading.max)})")
-        head.add_row("readings", f"{reading.count:,} reading{'s' if reading.count != 1 else ''} "
-                                 f"remain{'' if reading.count != 1 else 's'} possible")
-        head.add_row("value shown", "the edition's restorations, lost digits at their lowest"
-                     if reading.damaged else "the lowest of the readings the text allows (see the notes)")
-    from ..report.layout import Sheet
-
+                              f"  ({exact_text(reading.min)} to {exact_text(reading.max)})"))
+        head.append(("readings", f"{reading.count:,} reading{'s' if reading.count != 1 else ''} "
+                                 f"remain{'' if reading.count != 1 else 's'} possible"))
+        head.append(("value shown", "the edition's restorations, lost digits at their lowest"
+                     if reading.damaged else "the lowest of the readings the text allows (see the notes)"))
     places = Sheet(console, [("written", "key"), ("place", "key"), ("status", "key"), ("may be", "text")],
                    title="places")
     style = {"read": None, "doubtful": "yellow", "unread": "magenta", "lost": "red",
@@ -68,11 +59,7 @@ def _show(reading, result: dict, console) -> None:
     for p in result["places"]:
         where = ("60^" + str(p["place"])) if "gap" not in p else f"{p['gap'][0]}-{p['gap'][1]} places"
         places.row(p["text"], where, (p["status"], style[p["status"]]), p["values"])
-    from rich import box
-
-    # Through a pipe the frame is ASCII, so that the text pastes anywhere.
-    console.print(Panel.fit(head, title=f"numcheck read  {escape(reading.text)}",
-                            box=box.ROUNDED if console.is_terminal else box.ASCII))
+    fields(console, f"numcheck read  {reading.text}", head)
     places.print()
     for w in reading.warnings:
-        console.print(f"[yellow]note:[/yellow] {escape(w)}")
+        note(console, f"note: {w}", "yellow")

@@ -118,4 +118,4 @@ def numbering_columns(table) -> set[str]:
     """The columns that only number the lines (1, 2, 3 ... down the table)."""
     want = [str(i) for i in range(1, table.nrows + 1)]
     return {name for name, col in table.columns.items()
-            if [c.text.strip() for c in col.cells] == want}
+            if [t.strip() for t in col.cells.texts()] == want}

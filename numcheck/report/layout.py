@@ -14,6 +14,11 @@ plain text) and :func:`notes` (numbered prose below it).  The rules:
 
 Width follows the terminal (rich reads it, and ``COLUMNS`` when piped; 80 by
 default).
+
+Through a pipe the command line hands these functions a
+:class:`~numcheck.report.plain.PlainConsole`: then each writes its lines
+without rich where :mod:`numcheck.report.plain` can lay them out exactly as
+rich would, so a command piped into a script does not pay for importing rich.
 """
 
 from __future__ import annotations
@@ -21,35 +26,41 @@ from __future__ import annotations
 from contextlib import contextmanager
 from dataclasses import dataclass, field
 
-from rich import box
-from rich.cells import cell_len
-from rich.table import Table
-from rich.text import Text
+from .plain import PlainConsole, fields_lines, notes_lines, sheet_lines, text_width, wrap
 
-__all__ = ["Sheet", "notes", "note", "indented", "busy", "PLAIN", "key_line", "singular_ones"]
-
-#: Through a pipe: a header rule of ASCII hyphens, nothing else.
-PLAIN = box.Box(
-    "    \n"
-    "    \n"
-    " -- \n"
-    "    \n"
-    " -- \n"
-    " -- \n"
-    "    \n"
-    "    \n",
-    ascii=True,
-)
+__all__ = ["Sheet", "notes", "note", "indented", "fields", "busy", "plain_box", "key_line",
+           "singular_ones"]
 
 #: Column kinds: how a column may be laid out.
 KINDS = ("number", "key", "text")
 
 
+def plain_box():
+    """The frame of a table through a pipe: a header rule of ASCII hyphens, nothing else."""
+    from rich import box
+
+    return box.Box(
+        "    \n"
+        "    \n"
+        " -- \n"
+        "    \n"
+        " -- \n"
+        " -- \n"
+        "    \n"
+        "    \n",
+        ascii=True,
+    )
+
+
 def _box(console):
-    return box.SIMPLE_HEAD if console.is_terminal else PLAIN
+    from rich import box
+
+    return box.SIMPLE_HEAD if console.is_terminal else plain_box()
 
 
 def _longest_word(text: str) -> int:
+    from rich.cells import cell_len
+
     return max((cell_len(w) for w in text.split()), default=0)
 
 
@@ -107,7 +118,10 @@ class Sheet:
     def __len__(self) -> int:
         return sum(1 for r, _ in self._rows if r is not None)
 
-    def table(self) -> Table:
+    def table(self):
+        from rich.cells import cell_len
+        from rich.table import Table
+
         color = self.console.is_terminal and not self.console.no_color
         t = Table(title=self.title, box=_box(self.console), show_edge=False, pad_edge=True,
                   header_style="bold" if color else None, title_style="bold" if color else None,
@@ -149,12 +163,21 @@ class Sheet:
         return t
 
     def print(self) -> None:
+        if isinstance(self.console, PlainConsole):
+            lines = sheet_lines(self.title, [(c.name, c.kind == "text", c.justify) for c in self._cols],
+                                [None if r is None else [text for text, _ in r] for r, _ in self._rows],
+                                self.console.width)
+            if lines is not None:
+                self.console.lines(lines)
+                return
         self.console.print(self.table())
 
 
 def _cell(text: str, style: str, wraps: bool):
     """A cell: its lines; in a wrapping column a line that starts with spaces keeps
     that indent on every line it wraps to."""
+    from rich.text import Text
+
     if not wraps or "\n" not in text:
         return Text(text, style=style)
     from rich.console import Group
@@ -173,6 +196,18 @@ def notes(console, items, *, first: int = 1, marker: str = "{}.") -> None:
     items = list(items)
     if not items:
         return
+    if isinstance(console, PlainConsole):
+        pairs = [(marker.format(first + k), item) if isinstance(item, str) else item
+                 for k, item in enumerate(items)]
+        widths = [text_width(marker.format(first + k)) for k in range(len(items))]
+        lines = None if None in widths else notes_lines(pairs, max(widths), console.width)
+        if lines is not None:
+            console.lines(lines)
+            return
+    from rich.cells import cell_len
+    from rich.table import Table
+    from rich.text import Text
+
     grid = Table.grid(padding=(0, 1))
     width = max(cell_len(marker.format(first + k)) for k in range(len(items)))
     grid.add_column(justify="right", no_wrap=True, min_width=width)
@@ -185,16 +220,56 @@ def notes(console, items, *, first: int = 1, marker: str = "{}.") -> None:
 
 def note(console, text: str, style: str | None = None) -> None:
     """One paragraph of prose, wrapped between words (no markup read in *text*)."""
+    if isinstance(console, PlainConsole):
+        lines = wrap(text, console.width)
+        if lines is not None:
+            console.lines(lines)
+            return
+    from rich.text import Text
+
     color = console.is_terminal and not console.no_color
     console.print(Text(text, style=(style if color else None) or ""))
 
 
 def indented(console, text: str, indent: int = 2, style: str | None = None) -> None:
     """A paragraph indented as a whole (every wrapped line too), wrapped between words."""
+    if isinstance(console, PlainConsole):
+        lines = wrap(text, console.width - indent)
+        if lines is not None:
+            console.lines((" " * indent + line).rstrip() for line in lines)
+            return
     from rich.padding import Padding
+    from rich.text import Text
 
     color = console.is_terminal and not console.no_color
     console.print(Padding(Text(text, style=(style if color else None) or ""), (0, 0, 0, indent)))
+
+
+def fields(console, title: str, rows) -> None:
+    """A framed block of labelled values under a title (labels bold on a terminal).
+
+    *rows* are (label, value) pairs of plain text (no markup read); a value
+    wraps between words.  Through a pipe the frame is ASCII, so that the text
+    pastes anywhere.
+    """
+    rows = list(rows)
+    if isinstance(console, PlainConsole):
+        lines = fields_lines(title, rows, console.width)
+        if lines is not None:
+            console.lines(lines)
+            return
+    from rich import box
+    from rich.markup import escape
+    from rich.panel import Panel
+    from rich.table import Table
+
+    grid = Table.grid(padding=(0, 2))
+    grid.add_column(style="bold")
+    grid.add_column()
+    for label, value in rows:
+        grid.add_row(escape(label), escape(value))
+    console.print(Panel.fit(grid, title=escape(title),
+                            box=box.ROUNDED if console.is_terminal else box.ASCII))
 
 
 def key_line(pairs) -> str:

@@ -14,8 +14,8 @@ from ..errors import NumcheckError
 from ..files import display_name
 from .cells import ZODIAC, Cell, Column, ColumnReading, Table, build_table, read_column, sign_index
 from .frame import frame_rows, is_dataframe
-from .join import join_columns
-from .text import read_text_file, split_text
+from .join import join_columns, needs_join
+from .text import read_text_file, split_columns, split_text
 
 __all__ = ["read_table", "read_column", "ColumnReading", "Table", "Column", "Cell", "split_text",
            "sign_index", "ZODIAC",
@@ -58,9 +58,12 @@ def read_table(table, *, notation: str | None = None, columns=None, join=None) -
             notation = notation or frame.attrs.get("notation")
             header, rows = frame_rows(frame)
         else:
-            header, rows = split_text(read_text_file(path), suffix=path.suffix.lower())
+            header, rows = split_columns(read_text_file(path), suffix=path.suffix.lower())
+            if needs_join(header, join) and not isinstance(rows, list):
+                rows = rows.rows()
     else:
         raise NumcheckError(f"Expected a path to a table or a pandas DataFrame, got "
                             f"{type(table).__name__}.")
-    header, rows = join_columns(header, rows, join, source=source)
+    if isinstance(rows, list):
+        header, rows = join_columns(header, rows, join, source=source)
     return build_table(header, rows, notation=notation, columns=columns, source=source)

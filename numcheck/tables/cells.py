@@ -17,7 +17,9 @@ from __future__ import annotations
 import functools
 import re
 import unicodedata
+from array import array
 from collections import Counter
+from itertools import accumulate
 from dataclasses import dataclass, field
 from fractions import Fraction
 
@@ -28,7 +30,7 @@ from ..reading import Reading
 from ..units import ZODIAC, zodiac_index
 from .settle import settle_column
 
-__all__ = ["Cell", "Column", "Table", "build_table", "check_cells", "ZODIAC", "sign_index",
+__all__ = ["Cell", "Cells", "Column", "Table", "build_table", "check_cells", "ZODIAC", "sign_index",
            "ColumnReading", "read_column"]
 
 
@@ -88,12 +90,254 @@ class Cell:
         return self.num is None and self.exact is None
 
 
+#: The bit of ``Cells._flags`` for a cuneiform cell written without ';' (its magnitude free).
+_FLOATING = 1
+#: The bit of a cell kept whole, as a Cell object (read by a notation, unreadable, or too large).
+_WHOLE = 2
+
+
+class Cells:
+    """The cells of one column, stored by column so that a 10^6-line table fits in memory.
+
+    A plain sexagesimal cell (the fast path of the reader) is kept as a few
+    numbers in arrays: its value as an integer count of its last place, its
+    places, its whole places, its sign; every text of the column is kept in
+    one string.  A cell read by a notation, an unreadable one, or one too
+    large for the arrays is kept whole, as a :class:`Cell`.  Indexing gives a
+    :class:`Cell` either way, made on demand for a plain one (equal to the one
+    the reader would have kept), so code that reads cells one by one needs no
+    change; code that walks a whole column uses the column-wide methods.
+    """
+
+    __slots__ = ("column", "notation", "_num", "_places", "_whole_places", "_flags", "_signs",
+                 "_sign_names", "_text", "_ends", "_kept", "_n")
+
+    def __init__(self, column: str, notation: str):
+        self.column = column
+        self.notation = notation            # the notation of every plain cell
+        self._num = array("q")
+        self._places = bytearray()
+        self._whole_places = bytearray()
+        self._flags = bytearray()
+        self._signs = bytearray()           # 0: no sign; k: self._sign_names[k - 1]
+        self._sign_names: list[str] = []
+        self._text = ""
+        self._ends = array("q")
+        self._kept: dict[int, Cell] = {}
+        self._n = 0
+
+    @classmethod
+    def of(cls, column: str, cells, notation: str = "sexagesimal") -> "Cells":
+        """A store holding the Cell objects *cells* as they are."""
+        out = cls(column, notation)
+        texts = []
+        for c in cells:
+            out.keep(c)
+            texts.append(c.text)
+        out.set_texts(texts)
+        return out
+
+    # -- building --------------------------------------------------------
+    def add_plain(self, num: int, places: int, whole_places: int, floating: bool,
+                  sign_name: str | None) -> bool:
+        """Append a plain cell; False (nothing appended) when it does not fit the arrays."""
+        if not (-(1 << 63) <= num < (1 << 63)) or places > 255 or whole_places > 255:
+            return False
+        self._num.append(num)
+        self._places.append(places)
+        self._whole_places.append(whole_places)
+        self._flags.append(_FLOATING if floating else 0)
+        if sign_name is None:
+            self._signs.append(0)
+        else:
+            try:
+                k = self._sign_names.index(sign_name) + 1
+            except ValueError:
+                self._sign_names.append(sign_name)
+                k = len(self._sign_names)
+            if k > 255:
+                self._pop()
+                return False
+            self._signs.append(k)
+        self._n += 1
+        return True
+
+    def _pop(self) -> None:
+        self._num.pop()
+        self._places.pop()
+        self._whole_places.pop()
+        self._flags.pop()
+
+    def keep(self, cell: "Cell") -> None:
+        """Append a cell kept whole."""
+        self._kept[self._n] = cell
+        self._num.append(0)
+        self._places.append(0)
+        self._whole_places.append(0)
+        self._flags.append(_WHOLE)
+        self._signs.append(0)
+        self._n += 1
+
+    def set_texts(self, texts) -> None:
+        """The texts of the cells, top to bottom (kept as one string)."""
+        self._text = "".join(texts)
+        # 4 bytes an end where the text allows (any table under MAX_TABLE_BYTES)
+        self._ends = array("I" if len(self._text) < 1 << 32 else "q", accumulate(map(len, texts)))
+
+    # -- reading ---------------------------------------------------------
+    def __len__(self) -> int:
+        return self._n
+
+    def text(self, i: int) -> str:
+        return self._text[self._ends[i - 1] if i else 0:self._ends[i]]
+
+    def texts(self):
+        """The text of every cell, top to bottom."""
+        start = 0
+        for end in self._ends:
+            yield self._text[start:end]
+            start = end
+
+    def __getitem__(self, i):
+        if isinstance(i, slice):
+            return [self[k] for k in range(*i.indices(self._n))]
+        if i < 0:
+            i += self._n
+        if not 0 <= i < self._n:
+            raise IndexError("cell index out of range")
+        if self._flags[i] & _WHOLE:
+            return self._kept[i]
+        k = self._signs[i]
+        return Cell(row=i + 1, column=self.column, text=self.text(i), notation=self.notation,
+                    num=self._num[i], floating=bool(self._flags[i] & _FLOATING),
+                    places=self._places[i], whole_places=self._whole_places[i],
+                    sign_name=self._sign_names[k - 1] if k else None)
+
+    def __setitem__(self, i: int, cell: "Cell") -> None:
+        if i < 0:
+            i += self._n
+        self._kept[i] = cell
+        self._flags[i] = _WHOLE
+
+    def __iter__(self):
+        for i in range(self._n):
+            yield self[i]
+
+    def kept(self) -> list[tuple[int, "Cell"]]:
+        """(index, cell) of every cell kept whole, top to bottom."""
+        return sorted(self._kept.items())
+
+    def plain_places(self) -> set[int]:
+        """The numbers of places the plain cells write."""
+        return {p for p, f in zip(self._places, self._flags) if not f & _WHOLE}
+
+    def plain(self):
+        """(index, num, places, whole places) of every plain cell, top to bottom."""
+        for i, (num, places, whole, flag) in enumerate(zip(self._num, self._places,
+                                                            self._whole_places, self._flags)):
+            if not flag & _WHOLE:
+                yield i, num, places, whole
+
+    def scaled(self, scale: int) -> list:
+        """Every value times *scale* (an integer, or a Fraction off the scale), None where damaged.
+
+        The same numbers as ``cell.value * scale`` cell by cell (make_frame).
+        """
+        # 60**places divides the scale for every plain cell (make_frame takes them all in)
+        factor = {p: scale // 60 ** p for p in set(self._places)}
+        out = [num * factor[p] for num, p in zip(self._num, self._places)]
+        per_place = {p: scale // 60 ** p for p in range(13) if scale % 60 ** p == 0}
+        for i, c in self._kept.items():
+            out[i] = (c.num * per_place[c.places] if c.num is not None and c.places in per_place else
+                      None if c.value is None else c.value.numerator * (scale // c.value.denominator))
+        return out
+
+    def values(self) -> list:
+        """The exact value of every cell (None where damaged)."""
+        out = [Fraction(num, 60 ** p) for num, p in zip(self._num, self._places)]
+        for i, c in self._kept.items():
+            out[i] = c.value
+        return out
+
+    def known_places(self):
+        """The places of every cell with a value, top to bottom."""
+        kept = self._kept
+        for i, (p, f) in enumerate(zip(self._places, self._flags)):
+            if not f & _WHOLE:
+                yield p
+            elif kept[i].value is not None:
+                yield kept[i].places
+
+    def whole_in_one_place(self) -> bool:
+        """Every cell with a value writes its whole part as one number, and one is 60 or more."""
+        large = False
+        kept = self._kept
+        for i, (num, p, whole, f) in enumerate(zip(self._num, self._places, self._whole_places,
+                                                    self._flags)):
+            if f & _WHOLE:
+                c = kept[i]
+                if c.value is None:
+                    continue
+                whole, text, large_here = c.whole_places, c.text, abs(c.value) >= 60
+            else:
+                text, large_here = self.text(i), abs(num) >= 60 * 60 ** p
+            if whole != 1 or "," in text.split(";")[0]:
+                return False
+            large = large or large_here
+        return large
+
+    def holds(self, char: str) -> bool:
+        """Some cell's text holds *char* (one character)."""
+        return char in self._text
+
+    def all_unreadable(self) -> bool:
+        return len(self._kept) == self._n and all(c.unreadable for c in self._kept.values())
+
+    def notations(self) -> dict[str, int]:
+        """How many readable cells each notation has, in the order they first appear."""
+        first: dict[str, list[int]] = {}    # notation -> [first index, count]
+        plain = self._n - sum(1 for f in self._flags if f & _WHOLE)
+        if plain:
+            start = next(i for i, f in enumerate(self._flags) if not f & _WHOLE)
+            first[self.notation] = [start, plain]
+        for i, c in sorted(self._kept.items()):
+            if c.unreadable:
+                continue
+            entry = first.setdefault(c.notation, [i, 0])
+            entry[0] = min(entry[0], i)
+            entry[1] += 1
+        return {k: v[1] for k, v in sorted(first.items(), key=lambda kv: kv[1][0])}
+
+    def signs_read(self) -> tuple[int, int]:
+        """(readable cells that name a sign, readable cells)."""
+        readable = [c for c in self._kept.values() if not c.unreadable]
+        plain = sum(1 for f in self._flags if not f & _WHOLE)
+        signs = sum(1 for s, f in zip(self._signs, self._flags) if s and not f & _WHOLE)
+        return (signs + sum(1 for c in readable if c.sign_name is not None),
+                plain + len(readable))
+
+    def final_zeros(self) -> bool:
+        """Some cell writes a final empty place (29;30,0)."""
+        if any(p and not f & _WHOLE and num % 60 == 0
+               for num, p, f in zip(self._num, self._places, self._flags)):
+            return True
+        return any(c.places and (c.num % 60 == 0 if c.num is not None else
+                                 bool(c.digits) and c.digits[-1] == 0) for c in self._kept.values())
+
+    def any_floating(self) -> bool:
+        return any(f & _FLOATING for f in self._flags) or any(c.floating for c in self._kept.values())
+
+    def any_sign(self) -> bool:
+        return any(self._signs)
+
+
+
 @dataclass
 class Column:
     """The cells of one column, top to bottom."""
 
     name: str
-    cells: list[Cell]
+    cells: Cells
     notation: str = "sexagesimal"
     longitude: bool = False       # written as degrees within a named sign
     floating: bool = False
@@ -101,21 +345,19 @@ class Column:
 
     @property
     def values(self) -> list[Fraction | None]:
-        return [c.value for c in self.cells]
+        return self.cells.values()
 
     @functools.cached_property
     def usual_places(self) -> int:
         """The number of fractional places most cells of the column write."""
-        usual = Counter(c.places for c in self.cells if c.value is not None).most_common(1)
+        usual = Counter(self.cells.known_places()).most_common(1)
         return usual[0][0] if usual else 0
 
     @functools.cached_property
     def whole_in_one_place(self) -> bool:
         """The whole part is written as one number, even above 59 (Ptolemy's 115;2,44, Indian 3438)."""
-        plain = [c for c in self.cells if c.value is not None]
-        return bool(plain) and self.notation == "sexagesimal" and not self.longitude and all(
-            c.whole_places == 1 and "," not in c.text.split(";")[0] for c in plain) and any(
-            abs(c.value) >= 60 for c in plain)
+        return self.notation == "sexagesimal" and not self.longitude and \
+            self.cells.whole_in_one_place()
 
     def write(self, index: int, value: Fraction) -> str:
         """*value* as the scribe of this column would write it in row *index* (0-based).
@@ -150,10 +392,7 @@ class Column:
     @functools.cached_property
     def zero_sign(self) -> str:
         """The Greek zero sign the column's cells write (𐆊 or ō)."""
-        for c in self.cells:
-            if "𐆊" in c.text:
-                return "𐆊"
-        return "ō"
+        return "𐆊" if self.cells.holds("𐆊") else "ō"
 
 
 @dataclass
@@ -178,7 +417,7 @@ class Table:
     def unreadable(self) -> list[dict]:
         """Every cell that cannot be read: row, column, text and the reason."""
         return [{"row": c.row, "column": c.column, "text": c.text, "message": c.unreadable}
-                for col in self.columns.values() for c in col.cells if c.unreadable]
+                for col in self.columns.values() for _, c in col.cells.kept() if c.unreadable]
 
 
 def _nfc(text: str) -> str:
@@ -196,12 +435,17 @@ def build_table(header, rows, *, notation, columns, source) -> Table:
     # One normal form (NFC) for every text, as numcheck.read uses: the same
     # table typed with decomposed accents gives the same audit, word for word.
     header = [_nfc(h) for h in header]
-    # In place: a copy of every row doubled the memory of a 10^6-line table.
-    if not isinstance(rows, list):
-        rows = list(rows)
-    for r in rows:
-        if not all(c.isascii() for c in r):
-            r[:] = [_nfc(c) for c in r]
+    # A text table comes column by column (tables.text.TextColumns, its texts
+    # already in NFC): a list per row cost more than the cells of a 10^6-line table.
+    by_columns = None if isinstance(rows, list) or not hasattr(rows, "columns") else rows
+    if by_columns is None:
+        # In place: a copy of every row doubled the memory of a 10^6-line table.
+        if not isinstance(rows, list):
+            rows = list(rows)
+        for r in rows:
+            if not all(c.isascii() for c in r):
+                r[:] = [_nfc(c) for c in r]
+    nrows = len(rows) if by_columns is None else by_columns.nrows
     if columns is not None:
         try:
             columns = _nfc(columns) if isinstance(columns, str) else [_nfc(str(c)) for c in columns]
@@ -210,10 +454,10 @@ def build_table(header, rows, *, notation, columns, source) -> Table:
                                 f"{type(columns).__name__}.") from None
     if not header or all(not h for h in header):
         raise NumcheckError(f"The table {source} has no header row.")
-    if not rows:
+    if not nrows:
         raise NumcheckError(f"The table {source} is empty: it has a header ({', '.join(header)}) "
                             "but no data rows.")
-    check_cells(len(rows) * len(header))
+    check_cells(nrows * len(header))
     for j, name in enumerate(header):
         if not name:
             raise NumcheckError(f"The header of {source} has no name for column {j + 1}.")
@@ -224,7 +468,8 @@ def build_table(header, rows, *, notation, columns, source) -> Table:
     if len(set(header)) != len(header):
         dup = next(h for h in header if header.count(h) > 1)
         raise NumcheckError(f"The header of {source} names column {dup!r} twice.")
-    for i, r in enumerate(rows, start=1):
+    # (a ragged text table comes as rows: tables.text.split_columns)
+    for i, r in (enumerate(rows, start=1) if by_columns is None else ()):
         if len(r) != len(header):
             hint = (" In CSV, quote the cells that hold commas (\"29;31,20\"), or use tabs."
                     if source.lower().endswith(".csv") else "")
@@ -238,19 +483,22 @@ def build_table(header, rows, *, notation, columns, source) -> Table:
             if name not in header:
                 raise UnknownNameError("column", name, header)
         wanted = [h for h in header if h in columns]
-    nrows = len(rows)
     # Column by column, each row list given up once read: the texts stay (the
     # cells keep them), the row lists do not.
-    by_column = {name: [r[header.index(name)] for r in rows] for name in wanted}
-    rows.clear()
+    if by_columns is None:
+        by_column = {name: [r[header.index(name)] for r in rows] for name in wanted}
+        rows.clear()
+    else:
+        by_column = {name: by_columns.columns[header.index(name)] for name in wanted}
+        by_columns.columns = []
     cols: dict[str, Column] = {}
     left_out: dict[str, str] = {}
     notes: list[str] = []
     for name in wanted:
         texts = by_column.pop(name)
-        cells = [_cell(i, name, text, notation, source) for i, text in enumerate(texts, start=1)]
+        cells = read_cells(name, texts, notation, source)
         del texts
-        if all(c.unreadable for c in cells):
+        if cells.all_unreadable():
             # A column of names or notes, not numbers: the audit goes on without it.
             left_out[name] = (f"no cell of column {name!r} reads as a number (row 1: "
                               f"{cells[0].unreadable}); the column was left out")
@@ -294,7 +542,8 @@ def read_column(name: str, texts, *, notation: str | None = None, source: str = 
             cells.append(_read_cell(row, name, text, notation, source))
         except NumcheckError as err:
             errors[row] = str(err)
-    column = Column(name=name, cells=cells, notation=notation or (cells[0].notation if cells else "sexagesimal"))
+    column = Column(name=name, cells=Cells.of(name, cells),
+                    notation=notation or (cells[0].notation if cells else "sexagesimal"))
     notes = settle_column(column, source, _settled_cell)
     return ColumnReading(column, errors, notes)
 
@@ -362,7 +611,51 @@ def _read_cell(row: int, column: str, text: str, notation, source) -> Cell:
     return cell
 
 
+def read_cells(name: str, texts: list[str], notation, source) -> Cells:
+    """The cells of column *name* from their *texts*: plain ones into the arrays, the rest whole."""
+    cells = Cells(name, notation or "sexagesimal")
+    plain_kind = notation in (None, "sexagesimal", "cuneiform")
+    for i, text in enumerate(texts):
+        got = _plain(text, notation) if plain_kind else None
+        if got is None or not cells.add_plain(*got):
+            cells.keep(_cell(i + 1, name, text, notation, source))
+    cells.set_texts(texts)
+    return cells
+
+
+def _plain(text: str, notation):
+    """(num, places, whole places, floating, sign) of a plain cell, as _read_cell reads it; None otherwise."""
+    if not text or len(text) > limits.MAX_TEXT_LENGTH:
+        return None
+    sign_name = None
+    number = text
+    m = _LONGITUDE.fullmatch(text)
+    if m and sign_index(m["sign"]) is not None:
+        number, sign_name = m["number"], m["sign"]
+    if not _PLAIN.fullmatch(number):
+        return None
+    got = _fast_parts(number, notation or "sexagesimal")
+    if got is None:
+        return None
+    num, places, whole_places, floating = got
+    if sign_name is not None:
+        unit = 60 ** places
+        if not 0 <= num < 30 * unit:
+            return None     # _read_cell gives the error
+        num += 30 * sign_index(sign_name) * unit
+    return num, places, whole_places, floating, sign_name
+
+
 def _fast(row, column, number, notation, text) -> Cell | None:
+    got = _fast_parts(number, notation)
+    if got is None:
+        return None
+    num, places, whole_places, floating = got
+    return Cell(row=row, column=column, text=text, notation=notation, num=num,
+                floating=floating, places=places, whole_places=whole_places)
+
+
+def _fast_parts(number, notation) -> tuple[int, int, int, bool] | None:
     # Too many places, or a place of more digits than the reader accepts:
     # let the reader give its own error (the same limits as numcheck.read).
     if number.count(",") + number.count(";") >= limits.MAX_PLACES or \
@@ -387,8 +680,7 @@ def _fast(row, column, number, notation, text) -> Cell | None:
             total = total * 60 + d
             places += 1
     floating = notation == "cuneiform" and not frac
-    return Cell(row=row, column=column, text=text, notation=notation, num=-total if neg else total,
-                floating=floating, places=places, whole_places=whole.count(",") + 1)
+    return -total if neg else total, places, whole.count(",") + 1, floating
 
 
 def _from_reading(row, column, text, reading: Reading) -> Cell:
@@ -404,28 +696,24 @@ def _from_reading(row, column, text, reading: Reading) -> Cell:
                 whole_places=whole_places, reading=reading)
 
 
-def _column(name: str, cells: list[Cell], source: str) -> Column:
-    kinds: dict[str, int] = {}
-    read = [c for c in cells if not c.unreadable]
-    for c in read:
-        kinds[c.notation] = kinds.get(c.notation, 0) + 1
+def _column(name: str, cells: Cells, source: str) -> Column:
+    kinds = cells.notations()
     main = max(kinds, key=kinds.get)
-    for c in cells:
-        if c.unreadable:
-            c.notation = main
     if len(kinds) > 1:
+        read = [c for c in cells if not c.unreadable]
         odd = next(c for c in read if c.notation != main)
         raise NumcheckError(
             f"Column {name!r} of {source} mixes notations: row {odd.row} ({odd.text!r}) is "
             f"{odd.notation}, the rest of the column is {main}. Give --notation, or write the "
             "column in one notation.")
-    signs = sum(1 for c in read if c.sign_name is not None)
-    if signs and signs != len(read):
-        odd = next(c for c in read if c.sign_name is None)
+    for _, c in cells.kept():
+        if c.unreadable:
+            c.notation = main
+    signs, readable = cells.signs_read()
+    if signs and signs != readable:
+        odd = next(c for c in cells if not c.unreadable and c.sign_name is None)
         raise NumcheckError(
             f"Column {name!r} of {source} writes longitudes within named signs, but row "
             f"{odd.row} ({odd.text!r}) names no sign.")
-    final_zeros = any(c.places and (c.num % 60 == 0 if c.num is not None else
-                                    bool(c.digits) and c.digits[-1] == 0) for c in cells)
     return Column(name=name, cells=cells, notation=main, longitude=bool(signs),
-                  floating=any(c.floating for c in cells), final_zeros=final_zeros)
+                  floating=cells.any_floating(), final_zeros=cells.final_zeros())

@@ -23,7 +23,7 @@ import re
 
 from ..errors import NumcheckError, UnknownNameError
 
-__all__ = ["join_columns", "parse_join", "header_joins"]
+__all__ = ["join_columns", "needs_join", "parse_join", "header_joins"]
 
 _DIGITS = re.compile(r"-?[0-9\[\]x.…]*[0-9\]][0-9\[\]x.…]*")
 _FAMILIES = (("°", "′", "″", "‴"), ("°", "'", '"'), ("deg", "min", "sec"), ("d", "m", "s"))
@@ -90,6 +90,11 @@ def _joined(parts: list[str]) -> str:
     if all(_DIGITS.fullmatch(p) for p in parts):
         return parts[0] + ";" + ",".join(parts[1:])
     return " ".join(parts)
+
+
+def needs_join(header: list[str], join=None) -> bool:
+    """Whether :func:`join_columns` would join any columns of *header* (a join asked, or named by the headers)."""
+    return bool(parse_join(join)) or bool(header_joins(header))
 
 
 def join_columns(header: list[str], rows: list[list[str]], join=None, *, source: str = "<table>"):

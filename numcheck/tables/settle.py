@@ -43,12 +43,13 @@ def settle_column(column, source: str, make_cell) -> list[str]:
     table reader's own constructor, so the cell keeps every other field).
     """
     cells = column.cells
-    open_cells = [k for k, c in enumerate(cells)
+    # only a cell kept whole has a Reading (numcheck.tables.cells.Cells)
+    open_cells = [k for k, c in cells.kept()
                   if c.value is None and c.reading is not None and c.reading.ambiguous
                   and not c.reading.damaged and c.reading.count <= limits.SETTLE_MAX_READINGS]
     if not open_cells:
         return []
-    known = [(k, c.value) for k, c in enumerate(cells) if c.value is not None]
+    known = [(k, v) for k, v in enumerate(cells.values()) if v is not None]
     if not known:
         return []
     values = [v for _, v in known]

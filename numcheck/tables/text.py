@@ -5,6 +5,7 @@ from __future__ import annotations
 import csv
 import io
 import re
+from itertools import chain
 from pathlib import Path
 
 from ..errors import LimitError, NumcheckError
@@ -12,7 +13,7 @@ from .. import limits
 from ..files import check_input_file, short
 from .cells import sign_index
 
-__all__ = ["split_text", "read_text_file"]
+__all__ = ["split_text", "split_columns", "TextColumns", "read_text_file"]
 
 
 def read_text_file(path: Path) -> str:
@@ -52,15 +53,103 @@ def split_text(text: str, *, suffix: str = "") -> tuple[list[str], list[list[str
     Blank lines and lines starting with ``#`` (notes) are skipped; rows are
     counted from the first data row, as in the audit's output.
     """
-    lines = [ln for ln in text.splitlines() if ln.strip() and not ln.lstrip().startswith("#")]
-    if not lines:
+    records = _records(text, suffix)
+    header = next(records)
+    return header, list(records)
+
+
+class TextColumns:
+    """The data rows of a text table kept column by column (no list per row).
+
+    *columns* holds one list of cell texts per header name, NFC-normalised
+    as :func:`numcheck.tables.cells.build_table` normalises rows.
+    """
+
+    def __init__(self, width: int):
+        self.columns: list[list[str]] = [[] for _ in range(width)]
+        self.nrows = 0
+
+    def rows(self) -> list[list[str]]:
+        """The rows again (for a join of columns)."""
+        return [list(r) for r in zip(*self.columns)]
+
+
+def split_columns(text: str, *, suffix: str = "") -> tuple[list[str], "TextColumns | list[list[str]]"]:
+    """The header and the data of a table as :func:`split_text` reads them, column by column.
+
+    A 10^6-line table then costs one string per cell, not a list per row.
+    A ragged table gives its rows as :func:`split_text` does (build_table
+    names the first ragged row).
+    """
+    records = _records(text, suffix)
+    header = next(records)
+    width = len(header)
+    data = TextColumns(width)
+    columns = data.columns
+    nfc = _nfc
+    try:
+        for r in records:
+            if len(r) != width:
+                rest = [r, *records]
+                rows = data.rows() + rest
+                return header, rows
+            data.nrows += 1
+            for column, c in zip(columns, r):
+                column.append(c if c.isascii() else nfc(c))
+    finally:
+        records.close()
+    return header, data
+
+
+def _nfc(text: str) -> str:
+    import unicodedata
+    return unicodedata.normalize("NFC", text)
+
+
+#: Characters of a text table handled at a time (str.splitlines on each piece).
+_CHUNK = 1 << 20
+
+
+def _lines(text: str):
+    """The lines of *text* that are neither blank nor notes (``#``), as ``str.splitlines`` splits.
+
+    The text is split a piece at a time, each piece ending after a ``\n``
+    (never inside a line break: only ``\r\n`` is a break of two characters).
+    """
+    start = 0
+    end = len(text)
+    while start < end:
+        cut = text.find("\n", min(start + _CHUNK, end) - 1)
+        stop = end if cut < 0 else cut + 1
+        for ln in text[start:stop].splitlines():
+            if ln.strip() and not ln.lstrip().startswith("#"):
+                yield ln
+        start = stop
+
+
+def _joined_lines(lines, first: str):
+    """The lines as ``io.StringIO("\\n".join(lines))`` gives them: each but the last with its "\\n"."""
+    prev = first
+    for ln in lines:
+        yield prev + "\n"
+        prev = ln
+    yield prev
+
+
+def _records(text: str, suffix: str):
+    """The header, then each row, as lists of stripped cell texts."""
+    lines = _lines(text)
+    first = next(lines, None)
+    if first is None:
         raise NumcheckError("The table is empty: no header row and no data rows were found.")
-    first = lines[0]
     if "\t" in first:
-        records = [ln.split("\t") for ln in lines]
+        yield [c.strip() for c in first.split("\t")]
+        for ln in lines:
+            yield [c.strip() for c in ln.split("\t")]
     elif suffix == ".csv" or ("," in first and "  " not in first.strip() and suffix != ".tsv"):
         try:
-            records = list(csv.reader(io.StringIO("\n".join(lines)), skipinitialspace=True))
+            for r in csv.reader(_joined_lines(lines, first), skipinitialspace=True):
+                yield [c.strip() for c in r]
         except csv.Error as err:
             # The csv module stops at a field over 131,072 characters; a cell
             # that long is over MAX_TEXT_LENGTH anyway.
@@ -69,11 +158,12 @@ def split_text(text: str, *, suffix: str = "") -> tuple[list[str], list[list[str
                                 "characters long). Check the quotes of the file.") from None
     else:
         splitter = re.compile(r"\s{2,}") if re.search(r"\S\s{2,}\S", first) else re.compile(r"\s+")
-        records = [splitter.split(ln.strip()) for ln in lines]
-        if splitter.pattern == r"\s+":
-            records = [_rejoin_signs(r) for r in records]
-    records = [[c.strip() for c in r] for r in records]
-    return records[0], records[1:]
+        rejoin = splitter.pattern == r"\s+"
+        for ln in chain((first,), lines):
+            r = splitter.split(ln.strip())
+            if rejoin:
+                r = _rejoin_signs(r)
+            yield [c.strip() for c in r]
 
 
 def _rejoin_signs(cells: list[str]) -> list[str]:

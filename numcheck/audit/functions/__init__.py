@@ -55,8 +55,9 @@ def _arguments(frame: Frame, chosen: dict[str, Scheme], forced: bool) -> list[st
     out = []
     for name, s in chosen.items():
         if s.kind == "linear" and s.support >= 0.5:
-            vals = [frame.fraction(v) for v in frame.written[name] if v is not None]
-            if vals and -360 <= min(vals) and max(vals) <= 720:
+            # on the frame's integer scale: no Fraction per line
+            vals = [v for v in frame.written[name] if v is not None]
+            if vals and -360 * frame.scale <= min(vals) and max(vals) <= 720 * frame.scale:
                 out.append(name)
     if not out and forced and frame.names:
         out.append(frame.names[0])

@@ -48,14 +48,12 @@ import warnings as _warnings
 from dataclasses import replace
 from fractions import Fraction
 
-from lark import Token, Tree
-from lark.exceptions import UnexpectedCharacters, UnexpectedInput
-
 from ...errors import LimitError, NumcheckSyntaxError, NumcheckWarning
 from ..grammars import parser_for
 from ... import limits
 from ...reading import Reading, Slot, Status
 from .build import group_slots, unread_mark_slot
+from .quick import plain_letters_reading
 from .writing import format, render
 from .letters import BARRED, letter_value
 from .conventions import CONVENTIONS, GENERIC
@@ -127,7 +125,9 @@ def _classify(ch: str) -> tuple[str, str]:
             "or damage marks ([.] [...] . < > { } and an underdot)")
 
 
-def _raise_from_lark(text: str, err: UnexpectedInput):
+def _raise_from_lark(text: str, err):
+    from lark.exceptions import UnexpectedCharacters
+
     if isinstance(err, UnexpectedCharacters):
         label, expected = _classify(text[err.pos_in_stream])
         fail(text, label, err.pos_in_stream, expected)
@@ -160,9 +160,16 @@ def parse(text: str, *, ascending: bool = False, notation: str = NAME, conventio
     if convention not in CONVENTIONS:
         raise ValueError(f"unknown Greek convention {convention!r}; expected one of {sorted(CONVENTIONS)}")
     text, cleaned = clean(text)
+    if not cleaned and not ascending:
+        quick = plain_letters_reading(text, notation, limits.MAX_PLACES)
+        if quick is not None:
+            return quick
     notes: list = []
     for note in cleaned:
         notes += [True, note]
+    from lark import Tree
+    from lark.exceptions import UnexpectedInput
+
     tree = _plain_tree(text)
     if tree is None:
         try:
@@ -247,6 +254,8 @@ def _plain_tree(text: str) -> Tree | None:
     tokens and positions).  Anything else (brackets, dots, '?', an odd
     character) returns None and goes to the parser.
     """
+    from lark import Token, Tree
+
     lexer = _plain_lexer()
     children: list = []
     group: list = []
@@ -305,6 +314,8 @@ def _split_runs(group: Tree) -> list[Tree]:
     Ptolemy writes 25 5/6); otherwise the group stays whole and the reader
     says that a letter follows the numeral sign.
     """
+    from lark import Tree
+
     children = group.children
     cuts = [k + 1 for k, tok in enumerate(children)
             if tok.type == "KERAIA" and k > 0 and k + 1 < len(children)

@@ -14,7 +14,6 @@ from __future__ import annotations
 import itertools
 from fractions import Fraction
 
-from lark import Tree
 
 from ...errors import NumcheckRangeError
 from ... import limits
