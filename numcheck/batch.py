@@ -282,11 +282,14 @@ def _raise_exit(signum, frame):
 
 
 def _run(jobs: list[tuple], worker, progress: Progress | None, workers: int | None,
-         journal: _Journal, stamps: list) -> list[dict]:
+         journal: _Journal, stamps: list, prepare: Callable[[], None] | None = None) -> list[dict]:
     """Run *worker* over *jobs* (in a bounded pool when there are many); entries in job order.
 
     ``jobs[i][0]`` is the file's relative name (the key of the journal).
     Files the journal already holds with the same stamp are not run again.
+    *prepare* runs before a pool is made: what it imports, workers forked
+    from this process need not import each (each importing numcheck at
+    once cost a run of a few files more than the files).
     """
     total = len(jobs)
     results: list[dict | None] = [None] * total
@@ -306,6 +309,8 @@ def _run(jobs: list[tuple], worker, progress: Progress | None, workers: int | No
     n_workers = min(n_workers, len(todo) or 1, machine_workers())
     try:
         if len(todo) >= POOL_MIN_FILES and n_workers > 1:
+            if prepare is not None and _forks():
+                prepare()
             done = _run_pool(jobs, todo, worker, n_workers, results, journal, stamps,
                              progress, done, total)
         else:
@@ -318,6 +323,19 @@ def _run(jobs: list[tuple], worker, progress: Progress | None, workers: int | No
     finally:
         journal.flush()
     return results  # type: ignore[return-value]
+
+
+def _forks() -> bool:
+    """Whether the pool's workers are forked from this process (they inherit its modules)."""
+    import multiprocessing
+
+    # allow_none: asking must not fix the start method for the caller's program.
+    method = multiprocessing.get_start_method(allow_none=True)
+    return (method or multiprocessing.get_all_start_methods()[0]) == "fork"
+
+
+def _import_annotation() -> None:
+    from .tei import annotation  # noqa: F401
 
 
 def _run_pool(jobs, todo, worker, n_workers, results, journal, stamps, progress, done, total):
@@ -470,7 +488,8 @@ def annotate_folder(in_dir: str | os.PathLike, out_dir: str | os.PathLike, *,
                          summary_dir=display_name(str(sdir)))
     already = sum(1 for i, j in enumerate(jobs)
                   if journal.done.get(j[0], {}).get("stamp") == stamps[i])
-    result.files = _run(jobs, _annotate_one, progress, workers, journal, stamps)
+    result.files = _run(jobs, _annotate_one, progress, workers, journal, stamps,
+                        prepare=_import_annotation)
     result.resumed = already
     _write_summary(result, sdir)
     return result
