@@ -55,6 +55,8 @@ def survey(root) -> Survey:
     seen: dict[tuple, int] = {}         # (id(parent), tag) -> children with that tag so far
     last_lb = None                      # (n, id of the innermost <div> around it, or None)
     count = 0
+    holders = root.xpath("//*[@xml:lang]")         # kept alive: their ids stay theirs
+    with_lang = {id(e) for e in holders}
     for el in root.iter():
         tag = el.tag
         if tag.__class__ is not str:
@@ -68,17 +70,21 @@ def survey(root) -> Survey:
             kind = kinds[tag] = (("tei:" if tag.startswith(f"{{{TEI_NS}}}") else "") + local,
                                  local == "div")
         parent = el.getparent()
-        lang = el.get(XML_LANG)
         if parent is None:
-            path, divs, label = "/" + kind[0], (), None
+            position = 0
+            path, divs, label, lang = "", (), None, None
         else:
             up = id(parent)
             key = (up, tag)
-            position = seen[key] = seen.get(key, 0) + 1
-            path, divs, label, up_lang = state[up]
-            path = f"{path}/{kind[0]}[{position}]"
-            if lang is None:
-                lang = up_lang
+            position = seen[key] = seen.get(key, 0) + 1     # every element counts for its siblings
+            path, divs, label, lang = state[up]
+        if tag == _LB:
+            last_lb = (el.get("n"), id(divs[-1]) if divs else None)
+        if tag != _NUM and not len(el):
+            continue                    # a leaf: no number is in it, nor needs its path
+        path = f"{path}/{kind[0]}[{position}]" if position else "/" + kind[0]
+        if me in with_lang:
+            lang = el.get(XML_LANG)
         if tag == _NUM:
             count += 1
             line = None
@@ -90,8 +96,6 @@ def survey(root) -> Survey:
             places[me] = Place(count, path, line, label)
             langs[me] = lang
             nums.append(el)
-        elif tag == _LB:
-            last_lb = (el.get("n"), id(divs[-1]) if divs else None)
         elif kind[1]:
             divs = divs + (el,)
             label = " > ".join(div_label(d) for d in divs)
