@@ -173,6 +173,14 @@ CASES = [
     ("write-back", 50_000,
      "annotate: 60,000 <num> took 80 s, 199,999 ran past 300 s: each edit was spliced into "
      "the whole text (quadratic); here 50,000 edits spliced into one text"),
+    ("audit-file", (".txt", ("A  B\n0,20,29  42;2\n0,19,54  45;16\n0,19,19  48;30\n0,18,44  51;44\n"
+                             "0,18,9  54;58\n0,17,34  58;12\n0,16,59  1;6\n0,16,24  4;40\n0,15,49  7;54\n"
+                             "0,15,14  11;8δ\n0,14,39  14;22\n0,14,4  17;36\n0,13,29  20;50\n"
+                             "0,12,54  2424;4\n0,12,19  27;18\n0,11,44  30;32\n0,11,9  33;46\n"
+                             "0,10,34  37;0\n0,9,59  40;14\n0,9,24  43;28\n0,8,49  46;42\n"
+                             "0,8,14  49;56\n0,7,39  53;10\n0,7,4  56;24").encode()),
+     "audit: a slip of one in a place the expected value does not have (2424;4 for 24;4) raised "
+     "KeyError in slips.classify (long fuzz run, seed 2026120)"),
 ]
 
 # Cases that still fail in code owned by another helper at the time of writing

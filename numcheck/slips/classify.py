@@ -229,15 +229,15 @@ def classify(written: Fraction, expected: Fraction, *, places: int = 0, floating
             if abs(dw) in (1, 10) and notation.startswith(_LETTER_SCRIPTS):
                 # In a script of letters a slip of one or ten is first a letter
                 # confusion when the table of look-alikes knows it.
-                alt = _letter(notation, w[k], e[k])
+                alt = _letter(notation, w.get(k, 0), e.get(k, 0))
                 if alt is not None:
                     return alt
             if abs(dw) == 1:
-                return Diagnosis("unit-slip", _digit_reason(notation, 1, dw, what, w[k], e[k]))
+                return Diagnosis("unit-slip", _digit_reason(notation, 1, dw, what, w.get(k, 0), e.get(k, 0)))
             if abs(dw) == 10:
-                return Diagnosis("ten-slip", _digit_reason(notation, 10, dw, what, w[k], e[k]))
+                return Diagnosis("ten-slip", _digit_reason(notation, 10, dw, what, w.get(k, 0), e.get(k, 0)))
             if notation not in ("sexagesimal", "cuneiform"):
-                alt = _letter(notation, w[k], e[k])
+                alt = _letter(notation, w.get(k, 0), e.get(k, 0))
                 if alt is not None:
                     return alt
         else:
