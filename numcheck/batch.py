@@ -43,7 +43,8 @@ from pathlib import Path
 
 from . import limits
 from .errors import LimitError, NumcheckError
-from .files import OutputError, check_distinct, display_name, same_file, short, write_atomic
+from .files import (OutputError, check_distinct, display_name, same_file, short,
+                    sweep_stale_temporaries, write_atomic)
 
 __all__ = ["BatchResult", "annotate_folder", "audit_folder", "find_files", "POOL_MIN_FILES",
            "TABLE_SUFFIXES", "write_index", "display_name", "machine_workers",
@@ -281,11 +282,14 @@ def _raise_exit(signum, frame):
 
 
 def _run(jobs: list[tuple], worker, progress: Progress | None, workers: int | None,
-         journal: _Journal, stamps: list) -> list[dict]:
+         journal: _Journal, stamps: list, prepare: Callable[[], None] | None = None) -> list[dict]:
     """Run *worker* over *jobs* (in a bounded pool when there are many); entries in job order.
 
     ``jobs[i][0]`` is the file's relative name (the key of the journal).
     Files the journal already holds with the same stamp are not run again.
+    *prepare* runs before a pool is made: what it imports, workers forked
+    from this process need not import each (each importing numcheck at
+    once cost a run of a few files more than the files).
     """
     total = len(jobs)
     results: list[dict | None] = [None] * total
@@ -305,6 +309,8 @@ def _run(jobs: list[tuple], worker, progress: Progress | None, workers: int | No
     n_workers = min(n_workers, len(todo) or 1, machine_workers())
     try:
         if len(todo) >= POOL_MIN_FILES and n_workers > 1:
+            if prepare is not None and _forks():
+                prepare()
             done = _run_pool(jobs, todo, worker, n_workers, results, journal, stamps,
                              progress, done, total)
         else:
@@ -317,6 +323,19 @@ def _run(jobs: list[tuple], worker, progress: Progress | None, workers: int | No
     finally:
         journal.flush()
     return results  # type: ignore[return-value]
+
+
+def _forks() -> bool:
+    """Whether the pool's workers are forked from this process (they inherit its modules)."""
+    import multiprocessing
+
+    # allow_none: asking must not fix the start method for the caller's program.
+    method = multiprocessing.get_start_method(allow_none=True)
+    return (method or multiprocessing.get_all_start_methods()[0]) == "fork"
+
+
+def _import_annotation() -> None:
+    from .tei import annotation  # noqa: F401
 
 
 def _run_pool(jobs, todo, worker, n_workers, results, journal, stamps, progress, done, total):
@@ -395,23 +414,29 @@ def _prepare(src_root: Path, out: Path | None, what: str) -> None:
 
 def _annotate_one(job: tuple) -> dict:
     rel, src, dst, alternatives, fix, notation = job
-    from .tei import annotate
+    from .tei.annotation import annotate_path
 
     entry = {"file": display_name(rel), "output": display_name(str(dst))}
     try:
         Path(dst).parent.mkdir(parents=True, exist_ok=True)
-        result = annotate(src, dst, alternatives=alternatives, fix=fix, notation=notation)
+        # annotate_folder swept the output folders of stale temporaries once;
+        # a folder made since holds none a killed run left.
+        result = annotate_path(src, dst, alternatives=alternatives, fix=fix, notation=notation,
+                               sweep=False)
     except NumcheckError as err:
         entry["error"] = short(str(err), limits.MAX_ECHO * 4)
         return entry
-    d = result.to_dict()
+    # The file's counts, and the JSON of only the numbers listed (result.to_dict()
+    # would build every number's; tests/test_batch.py compares the two).
+    d = result.counts()
     entry.update({k: d[k] for k in ("numbers", "damaged", "flagged", "restored", "unreadable",
                                     "statuses")})
-    entry["contradictions"] = [n for n in d["nums"] if n["status"] in ("contradiction", "fixed")]
+    entry["contradictions"] = [n.to_dict() for n in result.nums
+                               if n.status in ("contradiction", "fixed")]
     # A number that cannot be read is listed with its place; the file was still annotated.
-    entry["unreadable_nums"] = [n for n in d["nums"] if n["status"] == "unreadable"]
-    if d["notes"]:
-        entry["notes"] = d["notes"]
+    entry["unreadable_nums"] = [n.to_dict() for n in result.nums if n.status == "unreadable"]
+    if result.notes:
+        entry["notes"] = list(result.notes)
     return entry
 
 
@@ -456,11 +481,15 @@ def annotate_folder(in_dir: str | os.PathLike, out_dir: str | os.PathLike, *,
     else:
         journal.clear()
     journal.start()
+    for folder in sorted({Path(job[2]).parent for job in jobs}):
+        if folder.is_dir():         # once per folder, not once per file written (quadratic)
+            sweep_stale_temporaries(folder)
     result = BatchResult("annotate", display_name(str(src_root)), display_name(str(dst_root)),
                          summary_dir=display_name(str(sdir)))
     already = sum(1 for i, j in enumerate(jobs)
                   if journal.done.get(j[0], {}).get("stamp") == stamps[i])
-    result.files = _run(jobs, _annotate_one, progress, workers, journal, stamps)
+    result.files = _run(jobs, _annotate_one, progress, workers, journal, stamps,
+                        prepare=_import_annotation)
     result.resumed = already
     _write_summary(result, sdir)
     return result

@@ -209,12 +209,15 @@ def _encode(text: str, encoding: str) -> bytes:
         return text.encode(encoding, "replace")
 
 
-def write_atomic(path: str | os.PathLike, data: bytes | str, *, encoding: str = "utf-8") -> Path:
+def write_atomic(path: str | os.PathLike, data: bytes | str, *, encoding: str = "utf-8",
+                 sweep: bool = True) -> Path:
     """Write *data* to *path* through a temporary file in the same folder and a rename.
 
     Text is encoded with *encoding* (UTF-8 by default).  The folder must exist.
     Stale temporaries of an earlier, killed write of the same target are
-    swept first.  The temporary file is removed on any exception, including
+    swept first, unless *sweep* is False: a batch sweeps each of its output
+    folders once before it starts (listing a folder of 10^4 outputs for
+    each one written made the writes quadratic).  The temporary file is removed on any exception, including
     ``KeyboardInterrupt`` and the ``SystemExit`` the command line raises on
     SIGTERM.  Returns the path written.
     """
@@ -228,7 +231,8 @@ def write_atomic(path: str | os.PathLike, data: bytes | str, *, encoding: str = 
         raise OutputError(f"Cannot write {str(target)!r}: it is not a regular file (a device or "
                           "a pipe); give a file path.")
     payload = _encode(data, encoding) if isinstance(data, str) else bytes(data)
-    sweep_stale_temporaries(folder, target.name)
+    if sweep:
+        sweep_stale_temporaries(folder, target.name)
     fd, tmp = tempfile.mkstemp(prefix=f".{target.name}{TEMP_MARK}{os.getpid()}-", suffix=".tmp",
                                dir=folder)
     try:

@@ -310,3 +310,11 @@ def test_a_long_error_is_quoted_as_an_excerpt(tmp_path):
     entry = result.files[0]
     messages = [entry.get("error", "")] + [n.get("message", "") for n in entry.get("unreadable_nums", [])]
     assert max(len(m) for m in messages) < 2500
+
+
+def test_asking_how_the_pool_starts_leaves_the_choice_to_the_program():
+    import multiprocessing
+
+    before = multiprocessing.get_start_method(allow_none=True)
+    batch._forks()
+    assert multiprocessing.get_start_method(allow_none=True) == before

@@ -144,3 +144,25 @@ def test_sigterm_during_a_write_leaves_no_temporary_file(tmp_path):
     done = subprocess.run([sys.executable, "-c", code], capture_output=True, timeout=60)
     assert done.returncode == 128 + signal.SIGTERM
     assert list(tmp_path.iterdir()) == []
+
+
+def test_a_batch_sweeps_each_output_folder_once(tmp_path):
+    """annotate_folder sweeps its output folders before it starts, not at each file it writes."""
+    from numcheck.batch import annotate_folder
+    from numcheck.files import TEMP_MARK
+
+    src, out = tmp_path / "in", tmp_path / "out"
+    (src / "sub").mkdir(parents=True)
+    (out / "sub").mkdir(parents=True)
+    page = ('<TEI xmlns="http://www.tei-c.org/ns/1.0"><text><body><ab><num>ιβ</num></ab>'
+            '</body></text></TEI>')
+    for name in ("a.xml", "sub/b.xml"):
+        (src / name).write_text(page, encoding="utf-8")
+    dead = [out / f".a.xml{TEMP_MARK}{2**22 + 1}-x1.tmp", out / "sub" / f".b.xml{TEMP_MARK}{2**22 + 1}-x2.tmp"]
+    live = out / f".a.xml{TEMP_MARK}{os.getppid()}-x3.tmp"
+    for p in dead + [live]:
+        p.write_bytes(b"half a file")
+    annotate_folder(src, out, workers=1)
+    assert not any(p.exists() for p in dead)
+    assert live.exists()
+    assert "12" in (out / "sub" / "b.xml").read_text(encoding="utf-8")

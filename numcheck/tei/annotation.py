@@ -38,16 +38,18 @@ from ..files import check_distinct, write_atomic
 from ..reader import read
 from ..reading import Reading, exact_text
 from .expansions import empty_result, expansion_result, sign_result, words_result
-from .markup import (TEI_NS, TeiError, has_expansion, leiden_text, local_name, notation_hint,
+from .markup import (TEI_NS, TeiError, has_expansion, lang_hint, leiden_text, local_name,
                      num_pieces, parse_tei, plain_text, read_bytes)
 from ..tables.tei import table_to_dataframe
 from .table_context import table_restorations
 from ..notations import NOTATIONS
-from .places import num_places
+from .survey import survey
+from . import outcomes
 from .values import (CERTAINTY_MATCHES, certainty_match, decide, is_unit_fraction,
                      positive_range, unresolved)
 from .words import is_word, looks_like_words, read_words
-from .write import Edit, apply_edits, apply_edits_tree, decode_source, scan_elements
+from .write import (Edit, ElementSpan, apply_edits, apply_edits_tree, decode_source,
+                    scan_elements, start_tags)
 
 __all__ = ["annotate", "annotate_bytes", "AnnotateResult", "NumResult", "TeiError",
            "table_to_dataframe", "TEI_NS"]
@@ -158,23 +160,31 @@ class AnnotateResult:
     def words(self) -> int:
         return sum(1 for n in self.nums if n.status == "word")
 
-    def to_dict(self) -> dict:
+    def counts(self) -> dict:
+        """The head of :meth:`to_dict`: the input, the output and the counts, without the numbers."""
         counts: dict[str, int] = {}
+        damaged = restored = 0
         for n in self.nums:
             counts[n.status] = counts.get(n.status, 0) + 1
+            damaged += bool(n.damaged)
+            restored += bool(n.alternatives)
         return {
             "input": self.input,
             "output": self.output,
             "numbers": len(self.nums),
-            "damaged": self.damaged,
-            "flagged": len(self.contradictions),
-            "restored": self.restored,
-            "unreadable": len(self.unreadable),
-            "words": self.words,
+            "damaged": damaged,
+            "flagged": counts.get("contradiction", 0) + counts.get("fixed", 0),
+            "restored": restored,
+            "unreadable": counts.get("unreadable", 0),
+            "words": counts.get("word", 0),
             "statuses": counts,
-            "nums": [n.to_dict() for n in self.nums],
-            "notes": list(self.notes),
         }
+
+    def to_dict(self) -> dict:
+        out = self.counts()
+        out["nums"] = [n.to_dict() for n in self.nums]
+        out["notes"] = list(self.notes)
+        return out
 
 
 def annotate(in_path: str | os.PathLike, out_path: str | os.PathLike | None, *,
@@ -187,13 +197,20 @@ def annotate(in_path: str | os.PathLike, out_path: str | os.PathLike | None, *,
     malformed XML, a file that is not TEI, and an output path equal to the
     input; a ``<num>`` that cannot be read is no error (status ``unreadable``).
     """
+    return annotate_path(in_path, out_path, alternatives=alternatives, fix=fix, notation=notation)
+
+
+def annotate_path(in_path, out_path, *, alternatives: int = 0, fix: bool = False,
+                  notation: str | None = None, sweep: bool = True) -> AnnotateResult:
+    """:func:`annotate`; with ``sweep=False`` the output folder is not swept of stale
+    temporaries first (a batch sweeps each of its folders once: :func:`~numcheck.files.write_atomic`)."""
     if out_path is not None:
         check_distinct([in_path], out_path)
     data = read_bytes(in_path)
     out_bytes, result = annotate_bytes(data, in_path, alternatives=alternatives, fix=fix,
                                        notation=notation)
     if out_path is not None:
-        write_atomic(out_path, out_bytes)
+        write_atomic(out_path, out_bytes, sweep=sweep)
         result.output = str(out_path)
     return result
 
@@ -215,9 +232,8 @@ def annotate_bytes(data: bytes, name: str | os.PathLike = "<input>", *, alternat
     if not isinstance(data, (bytes, bytearray, memoryview)):
         raise NumcheckError(f"Expected the bytes of a TEI document, got {type(data).__name__}.")
     root = parse_tei(name, data)
-    elements = [e for e in root.iter() if isinstance(e.tag, str)]
-    index_of = {id(e): i for i, e in enumerate(elements)}
-    nums = [e for e in elements if e.tag == f"{{{TEI_NS}}}num"]
+    found = survey(root)
+    elements, index_of, nums = found.elements, found.index_of, found.nums
     if len(nums) > limits.MAX_XML_NUMS:
         raise LimitError(f"number of <num> elements in {str(name)!r}", len(nums),
                          limits.MAX_XML_NUMS, "Set numcheck.limits.MAX_XML_NUMS higher to annotate it.")
@@ -230,12 +246,25 @@ def annotate_bytes(data: bytes, name: str | os.PathLike = "<input>", *, alternat
         if damaged:
             in_tables = table_restorations(root, damaged, notation=notation, top=alternatives,
                                            notes=notes)
-    places = num_places(root)
+    places, langs = found.places, found.langs
+    settings = _settings()
+    # Without restorations a number's outcome is a function of its own markup
+    # (and the language in force): the same markup is annotated once (.outcomes).
+    remember = restore_fn is None and outcomes.ENABLED
     edits: dict[int, Edit] = {}
     results: list[NumResult] = []
     for el in nums:
-        res, edit = _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of,
-                                  in_tables.get(id(el)), places[id(el)])
+        place, hint = places[id(el)], lang_hint(langs[id(el)])
+        key = outcomes.key(el, hint, notation, fix, settings) if remember else None
+        known = outcomes.recall(key, el.sourceline, place) if remember else None
+        if known is not None:
+            res, edit = known
+        else:
+            res, edit, own = _annotate_num(el, name, notation, fix, alternatives, restore_fn,
+                                           index_of, in_tables.get(id(el)), place, hint,
+                                           settings)
+            if remember and own:
+                outcomes.keep(key, res, edit)
         results.append(res)
         if edit is not None:
             edits[index_of[id(el)]] = edit
@@ -264,8 +293,22 @@ def _line(el) -> int | None:
 
 
 def _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of, from_table,
-                  place):
-    """One ``<num>``: its result, and the edit to make (or None).  Never raises for the number."""
+                  place, hint, settings):
+    """One ``<num>``: its result, the edit to make (or None), and whether they are its own.
+
+    They are its own (the third item) when they follow from the element's
+    markup, *hint* and the options alone, not from the text around it nor
+    from the file's name or line (see :mod:`.outcomes`).  Never raises for
+    the number.
+    """
+    res, edit = _annotate_markup(el, name, notation, fix, alternatives, restore_fn, index_of,
+                                 from_table, place, hint, settings)
+    own = res.status != "unreadable" and res.read_from not in (None, "words before")
+    return res, edit, own
+
+
+def _annotate_markup(el, name, notation, fix, alternatives, restore_fn, index_of, from_table,
+                     place, hint, settings):
     existing = {k: el.get(k) for k in ("value", "atLeast", "atMost") if el.get(k) is not None}
     res = NumResult(_line(el), "", "", "agrees", existing=existing, index=place.index,
                     xpath=place.xpath, text_line=place.text_line, div=place.div)
@@ -287,7 +330,7 @@ def _annotate_num(el, name, notation, fix, alternatives, restore_fn, index_of, f
         words_result(res, plain)
         return res, None
     try:
-        reading, text = _read_num(el, name, res.line, pieces, plain, notation)
+        reading, text = _read_num(name, res.line, pieces, plain, notation, hint, settings)
     except NumcheckError as err:
         if has_expansion(pieces):
             expansion_result(res, pieces, plain, letters_failed=True)
@@ -387,18 +430,21 @@ def _annotate_reading(el, res, reading, text, fix, alternatives, restore_fn, ind
 DOCUMENTARY_GREEK = "greek-documentary"
 
 
-def _read_once(text: str, notation: str) -> Reading:
+def _read_once(text: str, notation: str, settings: tuple | None = None) -> Reading:
     """``read(text, notation=notation)``, remembered: a corpus writes the same numbers again and again.
 
     A Reading is immutable and read() a function of its text, its notation
-    and the limits in force (part of the key), so a remembered Reading is the
-    Reading read() would give; errors are not remembered.
+    and the limits in force (*settings*, part of the key), so a remembered
+    Reading is the Reading read() would give; errors are not remembered.
     """
-    from .. import limits
+    return _remembered(text, notation, _settings() if settings is None else settings)
 
+
+def _settings() -> tuple:
+    """The limits in force (a document is read under one setting of them)."""
     if not _LIMIT_NAMES:
         _LIMIT_NAMES.extend(sorted(k for k in vars(limits) if k.isupper()))
-    return _remembered(text, notation, tuple(getattr(limits, k) for k in _LIMIT_NAMES))
+    return tuple(getattr(limits, k) for k in _LIMIT_NAMES)
 
 
 _LIMIT_NAMES: list[str] = []
@@ -409,12 +455,13 @@ def _remembered(text: str, notation: str, settings: tuple) -> Reading:
     return read(text, notation=notation)
 
 
-def _read_num(el, name, line, pieces, plain: str, notation: str | None):
+def _read_num(name, line, pieces, plain: str, notation: str | None, hint: str | None,
+              settings: tuple | None = None):
     """Read a ``<num>``: in the notation given, else the one its letters suggest.
 
     Without a notation, the letters choose it (:func:`detect_notation`); when
-    they cannot be read that way, the ``xml:lang`` in force (``grc`` ->
-    greek, ``la`` -> roman ...) is tried before giving up.
+    they cannot be read that way, the notation *hint* of the ``xml:lang`` in
+    force (``grc`` -> greek, ``la`` -> roman ...) is tried before giving up.
     """
     if notation is not None:
         candidates = [notation]
@@ -423,7 +470,6 @@ def _read_num(el, name, line, pieces, plain: str, notation: str | None):
         if plain:
             from ..notations.detect import detect_notation
             candidates.append(detect_notation(plain)[0])
-        hint = notation_hint(el)
         if hint is not None and hint not in candidates:
             candidates.append(hint)
         if not candidates:
@@ -443,7 +489,7 @@ def _read_num(el, name, line, pieces, plain: str, notation: str | None):
                 # How odd letters were read is kept in reading.warnings, one
                 # per number, not raised once per <num> of a long file.
                 warnings.simplefilter("ignore", NumcheckWarning)
-                return _read_once(text, chosen), text
+                return _read_once(text, chosen, settings), text
         except NumcheckError as err:
             if first_error is None:
                 first_error = (chosen, text, err)
@@ -500,14 +546,24 @@ def _write(data: bytes, root, elements: list, edits: dict[int, Edit], notes: lis
     decoded = decode_source(data, docinfo.encoding)
     if decoded is not None:
         text, codec = decoded
+        prefixes = {i: elements[i].prefix for i in edits}
+        local = [e.tag.rpartition("}")[2] for e in elements]
+        if not any(e.add_children or e.drop_children for e in edits.values()):
+            # Attributes alone: the start tags are enough (write.start_tags).
+            tags = start_tags(text)
+            if tags is not None and len(tags[0]) == len(elements) and \
+                    [n.rpartition(":")[2] for n in tags[0]] == local:
+                names, starts, ends = tags
+                spans = {i: ElementSpan(names[i], starts[i], ends[i], text[ends[i] - 2] == "/")
+                         for i in edits}
+                return apply_edits(text, spans, edits, prefixes).encode(codec)
         try:
             spans = scan_elements(text)
         except (ValueError, AttributeError):
             spans = []
-        names_agree = len(spans) == len(elements) and all(
-            s.name.rsplit(":", 1)[-1] == etree.QName(e).localname for s, e in zip(spans, elements))
+        names_agree = len(spans) == len(elements) and (
+            [s.name.rpartition(":")[2] for s in spans] == local)
         if names_agree:
-            prefixes = {i: elements[i].prefix for i in edits}
             return apply_edits(text, spans, edits, prefixes).encode(codec)
     note = ("the file could not be edited in place (its text and tree did not match); "
             "it was re-serialised by lxml, so quoting and character references may differ")

@@ -14,6 +14,7 @@ default size guards; the limits of :mod:`numcheck.limits` bound the rest.
 
 from __future__ import annotations
 
+import functools
 import os
 import re
 from dataclasses import dataclass
@@ -37,6 +38,7 @@ __all__ = [
     "text_before",
     "has_expansion",
     "notation_hint",
+    "lang_hint",
     "choose_notation",
     "tei_elements",
     "local_name",
@@ -151,6 +153,21 @@ def parse_tei(path: str | os.PathLike, data: bytes | None = None) -> etree._Elem
 
 
 def _check_depth(path, root) -> None:
+    # libxml2 finds whether any element lies deeper than the limit in one
+    # pass; only then is the tree walked here, to name the first one.
+    if _deeper_than(limits.MAX_XML_DEPTH)(root):
+        _walk_depth(path, root)
+
+
+@functools.lru_cache(maxsize=8)
+def _deeper_than(depth: int):
+    """An XPath true of a document with an element deeper than *depth* (the root is 1)."""
+    if depth < 1:
+        return lambda root: True
+    return etree.XPath("boolean(" + "/*" * (int(depth) + 1) + ")")
+
+
+def _walk_depth(path, root) -> None:
     stack = [(root, 1)]
     while stack:
         el, depth = stack.pop()
@@ -360,10 +377,18 @@ def leiden_text(pieces: list[Piece], notation: str) -> str:
 def notation_hint(el) -> str | None:
     """The notation the ``xml:lang`` in force at *el* suggests, if any."""
     lang = el.xpath("ancestor-or-self::*[@xml:lang][1]/@xml:lang")
-    if not lang:
+    return lang_hint(str(lang[0]) if lang else None)
+
+
+def lang_hint(lang: str | None) -> str | None:
+    """The notation an ``xml:lang`` value suggests, if any.
+
+    >>> lang_hint("grc-Latn"), lang_hint("en")
+    ('greek', None)
+    """
+    if lang is None:
         return None
-    base = str(lang[0]).split("-")[0].lower()
-    return _LANG_HINTS.get(base)
+    return _LANG_HINTS.get(lang.split("-")[0].lower())
 
 
 def tei_elements(root, name: str):

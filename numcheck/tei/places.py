@@ -14,7 +14,7 @@ from dataclasses import dataclass
 
 from .markup import TEI_NS, local_name
 
-__all__ = ["Place", "num_places"]
+__all__ = ["Place", "num_places", "div_label"]
 
 
 @dataclass(frozen=True)
@@ -62,7 +62,7 @@ def _xpath(el) -> str:
     return steps[0] + "".join("/" + s for s in steps[1:])
 
 
-def _div_label(div) -> str:
+def div_label(div) -> str:
     bits = [div.get("type") or "div"]
     for attr in ("subtype", "n"):
         if div.get(attr):
@@ -82,7 +82,11 @@ def _divs(el) -> list:
 
 
 def num_places(root) -> dict[int, Place]:
-    """The :class:`Place` of every ``<num>`` under *root*, keyed by ``id(element)``."""
+    """The :class:`Place` of every ``<num>`` under *root*, keyed by ``id(element)``.
+
+    Each number on its own, asking the tree; annotate takes them all from one
+    walk (:func:`numcheck.tei.survey.survey`), which must give these.
+    """
     num_tag, lb_tag = f"{{{TEI_NS}}}num", f"{{{TEI_NS}}}lb"
     places: dict[int, Place] = {}
     last_lb = None          # (n, the innermost <div> around it)
@@ -100,6 +104,6 @@ def num_places(root) -> dict[int, Place]:
             if line is None:        # no <lb>: the verse <l n> or table <row n> that holds it
                 line = next((a.get("n") for a in el.iterancestors()
                              if a.tag in (f"{{{TEI_NS}}}l", f"{{{TEI_NS}}}row") and a.get("n")), None)
-            label = " > ".join(_div_label(d) for d in divs) or None
+            label = " > ".join(div_label(d) for d in divs) or None
             places[id(el)] = Place(count, _xpath(el), line, label)
     return places

@@ -14,13 +14,15 @@ elements), it falls back to lxml's serialisation and says so.
 from __future__ import annotations
 
 import codecs
+import functools
+import itertools
 import re
 from dataclasses import dataclass, field
 
 from lxml import etree
 
-__all__ = ["ElementSpan", "Edit", "scan_elements", "decode_source", "apply_edits",
-           "apply_edits_tree"]
+__all__ = ["ElementSpan", "Edit", "scan_elements", "scan_elements_plainly", "start_tags",
+           "decode_source", "apply_edits", "apply_edits_tree"]
 
 _NAME = re.compile(r"[^\s/>=]+")
 _ATTR = re.compile(r"""(\s+)([^\s=/>]+)(\s*=\s*)(["'])(.*?)\4""", re.S)
@@ -123,12 +125,97 @@ def _doctype_end(text: str, i: int) -> int:
     raise ValueError("unterminated DOCTYPE")
 
 
+#: One piece of markup: a comment, CDATA, a PI, "<!" (a DOCTYPE: left to the
+#: plain scanner), an end tag or a start tag (its name, then its rest; quotes kept whole).
+_MARKUP = re.compile(r"""<(?:
+      !--.*?-->
+    | !\[CDATA\[.*?\]\]>
+    | \?.*?\?>
+    | (?P<bang>!)
+    | (?P<end>/)[^>"']*(?:(?:"[^"]*"|'[^']*')[^>"']*)*>
+    | (?P<name>[^\s/>="'?!][^\s/>="']*|)(?P<rest>[^>"']*(?:(?:"[^"]*"|'[^']*')[^>"']*)*)>
+    )""", re.S | re.X)
+
+
+#: The same pieces of markup as _MARKUP, split out whole (group 1) with a start tag's name (group 2).
+_SPLIT = re.compile(r"""(<(?:
+      !--.*?-->
+    | !\[CDATA\[.*?\]\]>
+    | \?.*?\?>
+    | /[^>"']*(?:(?:"[^"]*"|'[^']*')[^>"']*)*>
+    | ([^\s/>="'?!][^\s/>="']*)[^>"']*(?:(?:"[^"]*"|'[^']*')[^>"']*)*>
+    ))""", re.S | re.X)
+
+
+def start_tags(text: str) -> tuple[list[str], list[int], list[int]] | None:
+    """The name, start and end offset of every start tag of *text*, in document order.
+
+    What :func:`scan_elements` gives of the start tags (``name``, ``start``,
+    ``start_end``), without pairing the end tags: enough to edit the
+    attributes of elements, and found by the regular expression engine in
+    one pass (``re.split``), with no Python step per tag.  None when the
+    text holds markup the expression does not take (a DOCTYPE, a stray
+    ``<``): :func:`scan_elements` reads it.
+    """
+    parts = _SPLIT.split(text)
+    texts, tags, names = parts[0::3], parts[1::3], parts[2::3]
+    if "<" in "".join(texts):
+        return None
+    ends = list(itertools.accumulate(itertools.chain.from_iterable(
+        zip(map(len, texts), map(len, tags)))))
+    index = [k for k, name in enumerate(names) if name is not None]
+    return ([names[k] for k in index], [ends[2 * k] for k in index],
+            [ends[2 * k + 1] for k in index])
+
+
 def scan_elements(text: str) -> list[ElementSpan]:
     """Every element of an XML text, in the order of its start tags.
 
     A small scanner for well-formed XML (lxml has already checked that): it
     skips comments, CDATA, PIs and the DOCTYPE and pairs start and end tags.
+    One regular expression finds each piece of markup; a document it cannot
+    take whole (a DOCTYPE, a quote in a tag name, anything unterminated)
+    goes to :func:`scan_elements_plainly`, the character-by-character
+    scanner, which gives the same spans (``tests/test_tei_outcomes.py``).
     """
+    out: list[ElementSpan] = []
+    stack: list[ElementSpan] = []
+    new = ElementSpan.__new__
+    at = 0
+    for m in _MARKUP.finditer(text):
+        j = m.start()
+        if text.find("<", at, j) >= 0:
+            return scan_elements_plainly(text)      # a "<" the expression could not take
+        at = k = m.end()
+        if m.group("end"):
+            span = stack.pop()
+            span.end_start, span.end = j, k
+            continue
+        name = m.group("name")
+        if name is None:
+            if m.group("bang"):
+                return scan_elements_plainly(text)
+            continue                                 # a comment, CDATA or PI
+        rest = m.group("rest")
+        if rest[:1] in ("'", '"') or not name:
+            return scan_elements_plainly(text)      # the plain scanner's own reading of it
+        span = new(ElementSpan)
+        span.name, span.start, span.start_end = name, j, k
+        if text[k - 2] == "/":
+            span.empty, span.end_start, span.end = True, j, k
+        else:
+            span.empty, span.end_start, span.end = False, -1, -1
+            stack.append(span)
+        out.append(span)
+    if text.find("<", at) >= 0:
+        return scan_elements_plainly(text)
+    if stack:
+        raise ValueError("unclosed element")
+    return out
+
+
+def scan_elements_plainly(text: str) -> list[ElementSpan]:
+    """:func:`scan_elements` one character at a time (any markup; the reference)."""
     out: list[ElementSpan] = []
     stack: list[ElementSpan] = []
     i = 0
@@ -170,6 +257,13 @@ def _attr_text(name: str, value: str, quote: str = '"') -> str:
 
 def _edit_start_tag(tag: str, edit: Edit) -> str:
     """The start tag *tag* with the attributes of *edit* set and dropped."""
+    return _edited_tag(tag, tuple(edit.set_attrs.items()), tuple(edit.drop_attrs))
+
+
+@functools.lru_cache(maxsize=4096)
+def _edited_tag(tag: str, set_attrs: tuple, drop_attrs: tuple) -> str:
+    # A function of its strings alone, remembered: a corpus repeats its tags.
+    edit = Edit(dict(set_attrs), list(drop_attrs))
     for name in edit.drop_attrs:
         tag = re.sub(r"\s+" + re.escape(name) + r"""\s*=\s*(["']).*?\1""", "", tag, count=1, flags=re.S)
     for name, value in edit.set_attrs.items():
@@ -194,9 +288,13 @@ def _child_xml(prefix: str | None, name: str, attrs: dict[str, str]) -> str:
     return "<" + " ".join([qname] + [_attr_text(k, v) for k, v in attrs.items()]) + "/>"
 
 
-def apply_edits(text: str, spans: list[ElementSpan], edits: dict[int, Edit],
+def apply_edits(text: str, spans, edits: dict[int, Edit],
                 prefixes: dict[int, str | None]) -> str:
-    """Splice *edits* (element index -> Edit) into the source *text*."""
+    """Splice *edits* (element index -> Edit) into the source *text*.
+
+    *spans* is indexed by element index: every element's span, or (for edits
+    of attributes alone) those of the edited elements.
+    """
     changes: list[tuple[int, int, str]] = []  # (start, end, replacement)
     for index, edit in edits.items():
         span = spans[index]

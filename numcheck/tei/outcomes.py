@@ -1,0 +1,88 @@
+"""The outcomes of ``<num>`` markup already annotated in this process, kept to be given again.
+
+A corpus writes the same numbers again and again: a thousand accounts hold
+the same few thousand ``<num value="12">ιβ</num>``.  Without restorations,
+what annotate finds for a number (its text, value, status, message and the
+attributes to write) follows from the element's own markup, the language in
+force, the options and the limits alone: only its place differs.  So the
+outcome is kept under that key, and a number with the same markup gets a
+copy of it, with its own place.
+
+What depends on more than the element is never kept: an empty ``<num>``
+(read from the words before it), a number numcheck cannot read (its reason
+names the file and line), a sign without letters, and anything annotated
+with restorations (they may come from the table around the number).
+``tests/test_tei_outcomes.py`` checks that every file annotates the same
+with and without this memory.
+"""
+
+from __future__ import annotations
+
+from lxml import etree
+
+__all__ = ["ENABLED", "MAX_KEPT", "key", "recall", "keep", "forget"]
+
+#: Whether annotate keeps outcomes (the tests turn it off to compare).
+ENABLED = True
+#: At most this many outcomes are kept (about 1.3 kB each); past it the memory starts again empty.
+MAX_KEPT = 20_000
+
+_kept: dict = {}
+
+
+#: The attributes of the ``<num>`` itself that annotate reads (an ``@xml:id`` is no part of the key).
+READ_ATTRIBUTES = frozenset({"value", "atLeast", "atMost", "type"})
+
+
+def key(el, hint: str | None, notation: str | None, fix: bool, settings: tuple):
+    """What a ``<num>``'s outcome depends on: its content, the attributes read, the language
+    hint, the options and the limits."""
+    items = el.items()
+    read = tuple(kv for kv in items if kv[0] in READ_ATTRIBUTES)
+    if not len(el):
+        content = el.text
+    elif len(read) == len(items):
+        content = etree.tostring(el, with_tail=False)      # its attributes and content whole
+    else:   # its text and each child whole (markup, attributes, text, tail)
+        content = (el.text, tuple(etree.tostring(c) for c in el))
+    return content, read, hint, notation, bool(fix), settings
+
+
+def keep(k, res, edit) -> None:
+    """Keep the outcome *res*, *edit* of the markup *k*."""
+    if edit is not None and (edit.add_children or edit.drop_children):
+        return                          # children are found by their index in one file
+    if len(_kept) >= MAX_KEPT:
+        _kept.clear()
+    fields = dict(vars(res))            # the place too, overwritten at each recall
+    fields.update(existing=dict(res.existing), alternatives=list(res.alternatives),
+                  warnings=list(res.warnings))
+    attrs = None if edit is None else (dict(edit.set_attrs), list(edit.drop_attrs))
+    _kept[k] = (type(res), fields, attrs, type(edit))
+
+
+def recall(k, line: int | None, place):
+    """A fresh copy of the outcome kept for *k*, at *line* and *place*; None if none is kept."""
+    found = _kept.get(k)
+    if found is None:
+        return None
+    cls, fields, attrs, edit_cls = found
+    state = fields.copy()
+    # The mutable fields fresh; the others are immutable (str, Fraction, tuple, bool).
+    state["existing"] = fields["existing"].copy()
+    state["alternatives"] = fields["alternatives"].copy()
+    state["warnings"] = fields["warnings"].copy()
+    state["line"] = line
+    state["index"] = place.index
+    state["xpath"] = place.xpath
+    state["text_line"] = place.text_line
+    state["div"] = place.div
+    res = cls.__new__(cls)
+    res.__dict__ = state
+    edit = None if attrs is None else edit_cls(attrs[0].copy(), attrs[1].copy())
+    return res, edit
+
+
+def forget() -> None:
+    """Drop every kept outcome."""
+    _kept.clear()
