@@ -181,6 +181,10 @@ CASES = [
                              "0,8,14  49;56\n0,7,39  53;10\n0,7,4  56;24").encode()),
      "audit: a slip of one in a place the expected value does not have (2424;4 for 24;4) raised "
      "KeyError in slips.classify (long fuzz run, seed 2026120)"),
+    ("restore", ("c[ayagiyiṅu]śuchlṛ", None, "months"),
+     "restore: an Āryabhaṭa number with four restored syllables ran past 120 s (long fuzz run): "
+     "each leaf of the search looked at thousands of catalogue windows, uncounted; now a "
+     "LimitError within RESTORE_MAX_NODES steps (about 10 s)"),
 ]
 
 # Cases that still fail in code owned by another helper at the time of writing

@@ -301,13 +301,16 @@ def _search_grid(grid: Grid, windows: list[Window], budget: list[int], matched: 
         depth, S, prior, path = stack.pop()
         budget[0] += 1
         if budget[0] > limits.RESTORE_MAX_NODES:
-            raise LimitError("restoration search", f"over {limits.RESTORE_MAX_NODES:,} steps",
-                             f"{limits.RESTORE_MAX_NODES:,} steps",
-                             "Give narrower evidence, or set numcheck.limits.RESTORE_MAX_NODES higher.")
+            _over_budget()
         nlo, nhi = S + minrest[depth], S + maxrest[depth]
         if depth == k:
             i0 = bisect_left(w_los, nlo - widest)
             i1 = bisect_right(w_los, nhi)
+            # Each window looked at is a step too: a leaf under thousands of
+            # windows (a long number against the whole catalogue) is no one step.
+            budget[0] += i1 - i0
+            if budget[0] > limits.RESTORE_MAX_NODES:
+                _over_budget()
             for w in by_lo[i0:i1]:
                 if w.hi < nlo:
                     continue
@@ -323,6 +326,7 @@ def _search_grid(grid: Grid, windows: list[Window], budget: list[int], matched: 
         children = set()
         u = bisect_left(uhis, nlo)
         while u < len(ulos) and ulos[u] <= nhi:
+            budget[0] += 1
             c_lo = ulos[u] - S - maxrest[depth + 1]
             c_hi = uhis[u] - S - minrest[depth + 1]
             children.update(range(bisect_left(cs, c_lo), bisect_right(cs, c_hi)))
@@ -332,6 +336,12 @@ def _search_grid(grid: Grid, windows: list[Window], budget: list[int], matched: 
             oi = order[ci]
             stack.append((depth + 1, S + cs[ci], prior * grid.priors[depth][oi], path + (oi,)))
     return suffix, leaves
+
+
+def _over_budget():
+    raise LimitError("restoration search", f"over {limits.RESTORE_MAX_NODES:,} steps",
+                     f"{limits.RESTORE_MAX_NODES:,} steps",
+                     "Give narrower evidence, or set numcheck.limits.RESTORE_MAX_NODES higher.")
 
 
 def _too_many_matches(total: int):
