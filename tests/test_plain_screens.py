@@ -145,42 +145,33 @@ def test_a_framed_block(rows, title, width):
     assert p == r
 
 
-@pytest.mark.parametrize("text", ["1,49,45;20", "κθ λα ν[.] η κ", "29;31,5[x],8,20", "ϛ̣ʹ"])
-def test_read_screens_need_no_rich(text, capsys):
-    """The read screen of everyday numbers is written by the plain writer alone, and is
-    rich's screen (drawn here on a rich console of the same width)."""
-    from numcheck.commands import read as read_command
-
-    class Args:
-        notation = None
-        unit = None
-
-    Args.text = text
+def _screen_needs_no_rich(command, args) -> None:
+    """The command's screen is written by the plain writer alone, and is rich's screen
+    (drawn here on a rich console of the same width)."""
     plain = PlainConsole(io.StringIO(), 80, _rich_console)
-    read_command.run(Args, plain)
+    command.run(args, plain)
     assert plain._rich is None
     rich = _rich_console(io.StringIO(), 80)
-    read_command.run(Args, rich)
+    command.run(args, rich)
     assert _text(plain) == _text(rich)
+
+
+@pytest.mark.parametrize("text", ["1,49,45;20", "κθ λα ν[.] η κ", "29;31,5[x],8,20", "ϛ̣ʹ"])
+def test_read_screens_need_no_rich(text):
+    from types import SimpleNamespace
+
+    from numcheck.commands import read as read_command
+
+    _screen_needs_no_rich(read_command, SimpleNamespace(text=text, notation=None, unit=None))
 
 
 def test_the_demo_identify_screen_needs_no_rich():
+    from types import SimpleNamespace
+
     from numcheck.commands import identify as identify_command
 
-    class Args:
-        text = "1,49,45;20"
-        notation = None
-        unit = "days"
-        top = 10
-        tradition = None
-        full = False
-
-    plain = PlainConsole(io.StringIO(), 80, _rich_console)
-    identify_command.run(Args, plain)
-    assert plain._rich is None
-    rich = _rich_console(io.StringIO(), 80)
-    identify_command.run(Args, rich)
-    assert _text(plain) == _text(rich)
+    _screen_needs_no_rich(identify_command, SimpleNamespace(text="1,49,45;20", notation=None, unit="days",
+                                                            top=10, tradition=None, full=False))
 
 
 def test_wrap_folds_a_word_longer_than_the_line():
