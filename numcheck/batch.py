@@ -414,29 +414,21 @@ def _prepare(src_root: Path, out: Path | None, what: str) -> None:
 
 def _annotate_one(job: tuple) -> dict:
     rel, src, dst, alternatives, fix, notation = job
-    from .tei.annotation import annotate_path
+    from .tei.annotation import annotate_entry
 
     entry = {"file": display_name(rel), "output": display_name(str(dst))}
     try:
         Path(dst).parent.mkdir(parents=True, exist_ok=True)
+        check_distinct([src], dst)
+        out_bytes, fields = annotate_entry(src, alternatives=alternatives, fix=fix,
+                                           notation=notation)
         # annotate_folder swept the output folders of stale temporaries once;
         # a folder made since holds none a killed run left.
-        result = annotate_path(src, dst, alternatives=alternatives, fix=fix, notation=notation,
-                               sweep=False)
+        write_atomic(dst, out_bytes, sweep=False)
     except NumcheckError as err:
         entry["error"] = short(str(err), limits.MAX_ECHO * 4)
         return entry
-    # The file's counts, and the JSON of only the numbers listed (result.to_dict()
-    # would build every number's; tests/test_batch.py compares the two).
-    d = result.counts()
-    entry.update({k: d[k] for k in ("numbers", "damaged", "flagged", "restored", "unreadable",
-                                    "statuses")})
-    entry["contradictions"] = [n.to_dict() for n in result.nums
-                               if n.status in ("contradiction", "fixed")]
-    # A number that cannot be read is listed with its place; the file was still annotated.
-    entry["unreadable_nums"] = [n.to_dict() for n in result.nums if n.status == "unreadable"]
-    if result.notes:
-        entry["notes"] = list(result.notes)
+    entry.update(fields)
     return entry
 
 

@@ -215,6 +215,36 @@ def annotate_path(in_path, out_path, *, alternatives: int = 0, fix: bool = False
     return result
 
 
+def annotate_entry(in_path, *, alternatives: int = 0, fix: bool = False,
+                   notation: str | None = None) -> tuple[bytes, dict]:
+    """The annotated bytes of the file *in_path* and what a batch lists of it.
+
+    The dictionary holds the counts (``numbers``, ``damaged``, ``flagged``,
+    ``restored``, ``unreadable``, ``statuses``), the JSON of only the numbers
+    a batch lists (``contradictions``: contradicted or fixed values;
+    ``unreadable_nums``) and ``notes`` when there are any.  Nothing is
+    written: the caller writes the bytes.
+    """
+    data = read_bytes(in_path)
+    out_bytes, result = annotate_bytes(data, in_path, alternatives=alternatives, fix=fix,
+                                       notation=notation)
+    return out_bytes, batch_fields(result)
+
+
+def batch_fields(result: AnnotateResult) -> dict:
+    """The counts of *result* and the JSON of the numbers a batch lists (see :func:`annotate_entry`)."""
+    # result.to_dict() would build every number's JSON; tests/test_batch.py compares the two.
+    d = result.counts()
+    out = {k: d[k] for k in ("numbers", "damaged", "flagged", "restored", "unreadable", "statuses")}
+    out["contradictions"] = [n.to_dict() for n in result.nums
+                             if n.status in ("contradiction", "fixed")]
+    # A number that cannot be read is listed with its place; the file was still annotated.
+    out["unreadable_nums"] = [n.to_dict() for n in result.nums if n.status == "unreadable"]
+    if result.notes:
+        out["notes"] = list(result.notes)
+    return out
+
+
 def annotate_bytes(data: bytes, name: str | os.PathLike = "<input>", *, alternatives: int = 0,
                    fix: bool = False, notation: str | None = None) -> tuple[bytes, AnnotateResult]:
     """Annotate the TEI document *data*; return the new bytes and the result."""
