@@ -97,16 +97,17 @@ def recall(k, line: int | None, place):
     return revive(found, line, place)
 
 
-def by_source(context: tuple) -> dict:
-    """The outcomes kept by their source text (:mod:`.quick`) under *context* (options, limits)."""
-    table = _by_source.get(context)
-    if table is None:
+def by_source(context: tuple) -> dict[str | None, dict]:
+    """The outcomes kept by their source text (:mod:`.quick`) under *context* (options,
+    limits): a table for each language hint, of source text -> outcome."""
+    tables = _by_source.get(context)
+    if tables is None:
         if len(_by_source) >= 8:
             _by_source.clear()
-        table = _by_source[context] = {}
-    elif len(table) >= MAX_KEPT:
-        table.clear()
-    return table
+        tables = _by_source[context] = {}
+    elif sum(map(len, tables.values())) >= MAX_KEPT:
+        tables.clear()
+    return tables
 
 
 _by_source: dict[tuple, dict] = {}

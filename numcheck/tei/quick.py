@@ -35,6 +35,8 @@ from __future__ import annotations
 import re
 from dataclasses import dataclass
 
+from lxml import etree
+
 from . import outcomes
 from .markup import TEI_NS, lang_hint
 from .places import Place
@@ -49,7 +51,6 @@ _NUM = f"{{{TEI_NS}}}num"
 _MARKUP = re.compile(r"""<(?:!--.*?-->|!\[CDATA\[.*?\]\]>|\?.*?\?>|(!)
     |num(?=[\s/>])[^>"']*(?:(?:"[^"]*"|'[^']*')[^>"']*)*>)""", re.S | re.X)
 _END = re.compile(r"</num\s*>")
-
 #: A place for an outcome being learnt: it is overwritten whenever the outcome is given.
 _NOWHERE = Place(0, "", None, None)
 
@@ -122,12 +123,15 @@ def _spans(text: str) -> list[tuple[int, int, int]] | None:
     return spans
 
 
+_HOLDERS = etree.XPath("//*[@xml:lang]")
+
+
 def _langs(root, nums: list) -> list[str | None]:
     """The ``xml:lang`` in force at each of *nums* (None: none)."""
     langs: list[str | None] = [None] * len(nums)
     at = {id(el): i for i, el in enumerate(nums)}
     # In document order, so that an inner holder's language comes last.
-    for holder in root.xpath("//*[@xml:lang]"):
+    for holder in _HOLDERS(root):
         lang = holder.get(XML_LANG)
         for el in holder.iter(_NUM):
             langs[at[id(el)]] = lang
@@ -154,20 +158,23 @@ def attempt(data: bytes, root, context: tuple, annotate_one, max_nums: int) -> Q
     if spans is None or len(spans) != len(nums):
         return None
     prefixed = "xmlns:" in text
-    table = outcomes.by_source(context)
-    hints: dict[str | None, str | None] = {}
+    tables = outcomes.by_source(context)
     known: list[_Known] = []
+    hint_of: dict[str | None, dict] = {}
     for el, (start, tag_end, end), lang in zip(nums, spans, _langs(root, nums)):
         source = text[start:end]
         if prefixed and ":" in source.replace("xml:", ""):
             return None
-        hint = hints[lang] if lang in hints else hints.setdefault(lang, lang_hint(lang))
-        found = table.get((hint, source))
+        table = hint_of.get(lang)
+        if table is None:
+            hint = lang_hint(lang)
+            table = hint_of[lang] = tables.setdefault(hint, {})
+        found = table.get(source)
         if found is None:
-            found = _learn(el, hint, source[:tag_end - start], annotate_one)
+            found = _learn(el, lang_hint(lang), source[:tag_end - start], annotate_one)
             if found is None:
                 return None
-            table[(hint, source)] = found
+            table[source] = found
         known.append(found)
     pieces: list[str] = []
     at = 0
