@@ -21,7 +21,7 @@ from __future__ import annotations
 from lxml import etree
 
 __all__ = ["ENABLED", "MAX_KEPT", "key", "recall", "keep", "forget", "snapshot", "revive",
-           "by_source"]
+           "by_source", "NOTING", "note", "take_new", "adopt"]
 
 #: Whether annotate keeps outcomes (the tests turn it off to compare).
 ENABLED = True
@@ -113,7 +113,33 @@ def by_source(context: tuple) -> dict[str | None, dict]:
 _by_source: dict[tuple, dict] = {}
 
 
+#: Whether the outcomes learnt by source text are noted to be given to other processes
+#: (a batch's workers: :mod:`.sharing`); off, nothing is noted.
+NOTING = False
+_new: list[tuple] = []
+
+
+def note(context: tuple, hint: str | None, source: str, outcome) -> None:
+    """Note an outcome learnt by source text, for :func:`take_new` (when :data:`NOTING`)."""
+    if NOTING:
+        _new.append((context, hint, source, outcome))
+
+
+def take_new() -> list[tuple]:
+    """The outcomes noted since the last call, as ``(context, hint, source, outcome)``."""
+    out = _new[:]
+    _new.clear()
+    return out
+
+
+def adopt(records) -> None:
+    """Keep outcomes another process learnt (what its :func:`take_new` gave)."""
+    for context, hint, source, outcome in records:
+        by_source(context).setdefault(hint, {}).setdefault(source, outcome)
+
+
 def forget() -> None:
     """Drop every kept outcome."""
     _kept.clear()
     _by_source.clear()
+    _new.clear()

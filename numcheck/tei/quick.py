@@ -171,10 +171,12 @@ def attempt(data: bytes, root, context: tuple, annotate_one, max_nums: int) -> Q
             table = hint_of[lang] = tables.setdefault(hint, {})
         found = table.get(source)
         if found is None:
-            found = _learn(el, lang_hint(lang), source[:tag_end - start], annotate_one)
+            hint = lang_hint(lang)
+            found = _learn(el, hint, source[:tag_end - start], annotate_one)
             if found is None:
                 return None
             table[source] = found
+            outcomes.note(context, hint, source, found)
         known.append(found)
     pieces: list[str] = []
     at = 0
