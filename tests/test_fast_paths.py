@@ -315,6 +315,8 @@ def _small_letter_numbers(draw):
             groups.append("".join(draw(st.sampled_from(_BY_RANK[r])) for r in ranks))
         else:
             groups.append(draw(st.text(alphabet=_SMALL, min_size=1, max_size=3)))
+    if draw(st.booleans()):     # Leiden's dot under some letters (an unclear letter)
+        groups = ["".join(ch + "\u0323" * draw(st.booleans()) for ch in g) for g in groups]
     return " ".join(groups)
 
 
@@ -349,7 +351,7 @@ def test_plain_small_letters_read_as_the_general_reader_reads_them(text, convent
         assert _greek_outcome(text, convention) == (slow, said)
 
 
-@pytest.mark.parametrize("text", ["κθ λα ν η κ", "ρκε", "μ ιϛ", "ϡϙθ νθ"])
+@pytest.mark.parametrize("text", ["κθ λα ν η κ", "ρκε", "μ ιϛ", "ϡϙθ νθ", "ρ\u0323κε", "κθ λ\u0323α\u0323"])
 def test_everyday_greek_numbers_take_the_quick_path(text):
     from numcheck import limits
     from numcheck.notations.greek.quick import plain_letters_reading
@@ -357,7 +359,8 @@ def test_everyday_greek_numbers_take_the_quick_path(text):
     assert plain_letters_reading(text, "greek", limits.MAX_PLACES) is not None
 
 
-@pytest.mark.parametrize("text", ["ο", "κ ο", "ξ ξ", "θκ", "Κθ", "κθ  λα", "ᾱ", "κ[θ]"])
+@pytest.mark.parametrize("text", ["ο", "κ ο", "ξ ξ", "θκ", "Κθ", "κθ  λα", "ᾱ", "κ[θ]",
+                                  "ο\u0323", "\u0323κ", "κ\u0323\u0323"])
 def test_greek_numbers_the_quick_path_leaves_to_the_reader(text):
     from numcheck import limits
     from numcheck.notations.greek.quick import plain_letters_reading

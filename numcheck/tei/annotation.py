@@ -44,7 +44,7 @@ from ..tables.tei import table_to_dataframe
 from .table_context import table_restorations
 from ..notations import NOTATIONS
 from .survey import survey
-from . import outcomes
+from . import outcomes, quick
 from .values import (CERTAINTY_MATCHES, certainty_match, decide, is_unit_fraction,
                      positive_range, unresolved)
 from .words import is_word, looks_like_words, read_words
@@ -226,8 +226,9 @@ def annotate_entry(in_path, *, alternatives: int = 0, fix: bool = False,
     written: the caller writes the bytes.
     """
     data = read_bytes(in_path)
-    out_bytes, result = annotate_bytes(data, in_path, alternatives=alternatives, fix=fix,
-                                       notation=notation)
+    out_bytes, result = _annotate(data, in_path, alternatives, fix, notation)
+    if isinstance(result, quick.Quick):
+        return out_bytes, result.batch_fields()
     return out_bytes, batch_fields(result)
 
 
@@ -248,6 +249,14 @@ def batch_fields(result: AnnotateResult) -> dict:
 def annotate_bytes(data: bytes, name: str | os.PathLike = "<input>", *, alternatives: int = 0,
                    fix: bool = False, notation: str | None = None) -> tuple[bytes, AnnotateResult]:
     """Annotate the TEI document *data*; return the new bytes and the result."""
+    out_bytes, result = _annotate(data, name, alternatives, fix, notation)
+    if isinstance(result, quick.Quick):
+        return out_bytes, AnnotateResult(str(name), None, result.results(), [])
+    return out_bytes, result
+
+
+def _annotate(data, name, alternatives, fix, notation) -> tuple[bytes, AnnotateResult | quick.Quick]:
+    """:func:`annotate_bytes`; a file annotated on its text (:mod:`.quick`) gives its Quick."""
     if isinstance(alternatives, bool) or not isinstance(alternatives, int) or alternatives < 0:
         text = repr(alternatives)
         raise NumcheckError(f"--alternatives must be a whole number, 0 or more, not "
@@ -262,6 +271,15 @@ def annotate_bytes(data: bytes, name: str | os.PathLike = "<input>", *, alternat
     if not isinstance(data, (bytes, bytearray, memoryview)):
         raise NumcheckError(f"Expected the bytes of a TEI document, got {type(data).__name__}.")
     root = parse_tei(name, data)
+    settings = _settings()
+    if not alternatives and outcomes.ENABLED:
+        def one(el, hint, place):
+            return _annotate_num(el, name, notation, fix, 0, None, {}, None, place, hint, settings)
+
+        done = quick.attempt(data, root, (notation, bool(fix), settings), one,
+                             limits.MAX_XML_NUMS)
+        if done is not None:
+            return done.data, done
     found = survey(root)
     elements, index_of, nums = found.elements, found.index_of, found.nums
     if len(nums) > limits.MAX_XML_NUMS:
@@ -277,7 +295,6 @@ def annotate_bytes(data: bytes, name: str | os.PathLike = "<input>", *, alternat
             in_tables = table_restorations(root, damaged, notation=notation, top=alternatives,
                                            notes=notes)
     places, langs = found.places, found.langs
-    settings = _settings()
     # Without restorations a number's outcome is a function of its own markup
     # (and the language in force): the same markup is annotated once (.outcomes).
     remember = restore_fn is None and outcomes.ENABLED

@@ -20,7 +20,8 @@ from __future__ import annotations
 
 from lxml import etree
 
-__all__ = ["ENABLED", "MAX_KEPT", "key", "recall", "keep", "forget"]
+__all__ = ["ENABLED", "MAX_KEPT", "key", "recall", "keep", "forget", "snapshot", "revive",
+           "by_source", "NOTING", "note", "take_new", "adopt"]
 
 #: Whether annotate keeps outcomes (the tests turn it off to compare).
 ENABLED = True
@@ -48,25 +49,20 @@ def key(el, hint: str | None, notation: str | None, fix: bool, settings: tuple):
     return content, read, hint, notation, bool(fix), settings
 
 
-def keep(k, res, edit) -> None:
-    """Keep the outcome *res*, *edit* of the markup *k*."""
+def snapshot(res, edit):
+    """What :func:`revive` needs to give *res* and *edit* again (None: children are edited)."""
     if edit is not None and (edit.add_children or edit.drop_children):
-        return                          # children are found by their index in one file
-    if len(_kept) >= MAX_KEPT:
-        _kept.clear()
-    fields = dict(vars(res))            # the place too, overwritten at each recall
+        return None                     # children are found by their index in one file
+    fields = dict(vars(res))            # the place too, overwritten at each revival
     fields.update(existing=dict(res.existing), alternatives=list(res.alternatives),
                   warnings=list(res.warnings))
     attrs = None if edit is None else (dict(edit.set_attrs), list(edit.drop_attrs))
-    _kept[k] = (type(res), fields, attrs, type(edit))
+    return type(res), fields, attrs, type(edit)
 
 
-def recall(k, line: int | None, place):
-    """A fresh copy of the outcome kept for *k*, at *line* and *place*; None if none is kept."""
-    found = _kept.get(k)
-    if found is None:
-        return None
-    cls, fields, attrs, edit_cls = found
+def revive(kept, line: int | None, place):
+    """A fresh copy of the outcome *kept* (a :func:`snapshot`), at *line* and *place*."""
+    cls, fields, attrs, edit_cls = kept
     state = fields.copy()
     # The mutable fields fresh; the others are immutable (str, Fraction, tuple, bool).
     state["existing"] = fields["existing"].copy()
@@ -83,6 +79,67 @@ def recall(k, line: int | None, place):
     return res, edit
 
 
+def keep(k, res, edit) -> None:
+    """Keep the outcome *res*, *edit* of the markup *k*."""
+    kept = snapshot(res, edit)
+    if kept is None:
+        return
+    if len(_kept) >= MAX_KEPT:
+        _kept.clear()
+    _kept[k] = kept
+
+
+def recall(k, line: int | None, place):
+    """A fresh copy of the outcome kept for *k*, at *line* and *place*; None if none is kept."""
+    found = _kept.get(k)
+    if found is None:
+        return None
+    return revive(found, line, place)
+
+
+def by_source(context: tuple) -> dict[str | None, dict]:
+    """The outcomes kept by their source text (:mod:`.quick`) under *context* (options,
+    limits): a table for each language hint, of source text -> outcome."""
+    tables = _by_source.get(context)
+    if tables is None:
+        if len(_by_source) >= 8:
+            _by_source.clear()
+        tables = _by_source[context] = {}
+    elif sum(map(len, tables.values())) >= MAX_KEPT:
+        tables.clear()
+    return tables
+
+
+_by_source: dict[tuple, dict] = {}
+
+
+#: Whether the outcomes learnt by source text are noted to be given to other processes
+#: (a batch's workers: :mod:`.sharing`); off, nothing is noted.
+NOTING = False
+_new: list[tuple] = []
+
+
+def note(context: tuple, hint: str | None, source: str, outcome) -> None:
+    """Note an outcome learnt by source text, for :func:`take_new` (when :data:`NOTING`)."""
+    if NOTING:
+        _new.append((context, hint, source, outcome))
+
+
+def take_new() -> list[tuple]:
+    """The outcomes noted since the last call, as ``(context, hint, source, outcome)``."""
+    out = _new[:]
+    _new.clear()
+    return out
+
+
+def adopt(records) -> None:
+    """Keep outcomes another process learnt (what its :func:`take_new` gave)."""
+    for context, hint, source, outcome in records:
+        by_source(context).setdefault(hint, {}).setdefault(source, outcome)
+
+
 def forget() -> None:
     """Drop every kept outcome."""
     _kept.clear()
+    _by_source.clear()
+    _new.clear()
