@@ -35,7 +35,9 @@ import html
 import io
 import json
 import os
+import shutil
 import signal
+import tempfile
 import time
 from collections.abc import Callable
 from dataclasses import dataclass, field
@@ -43,8 +45,9 @@ from pathlib import Path
 
 from . import limits
 from .errors import LimitError, NumcheckError
-from .files import (OutputError, check_distinct, display_name, same_file, short,
-                    sweep_stale_temporaries, write_atomic)
+from .files import (OutputError, check_distinct, check_target, commit_pending, discard_pending,
+                    display_name, same_file, short, sweep_stale_temporaries, write_atomic,
+                    write_pending)
 
 __all__ = ["BatchResult", "annotate_folder", "audit_folder", "find_files", "POOL_MIN_FILES",
            "TABLE_SUFFIXES", "write_index", "display_name", "machine_workers",
@@ -157,29 +160,54 @@ def find_files(folder: str | os.PathLike, suffixes: tuple[str, ...],
     root = Path(folder)
     if not root.is_dir():
         raise NumcheckError(f"{short(display_name(str(root)))!r} is not a folder.")
-    real_root = Path(os.path.realpath(root))
-    skip = Path(os.path.realpath(exclude)) if exclude is not None else None
-    found = []
-    for dirpath, dirnames, filenames in os.walk(root, followlinks=False):
-        dirnames[:] = sorted(d for d in dirnames if not d.startswith("."))
-        for name in filenames:
-            if name.startswith(".") or Path(name).suffix.lower() not in suffixes:
+    real_root = os.path.realpath(root)
+    skip = os.path.realpath(exclude) if exclude is not None else None
+    found: list[tuple[str, Path]] = []
+
+    def inside(real: str, outer: str) -> bool:
+        return real.startswith(outer.rstrip(os.sep) + os.sep)
+
+    def walk(path: str, rel: str) -> None:
+        try:
+            entries = sorted(os.scandir(path), key=lambda e: e.name)
+        except OSError:
+            return
+        for entry in entries:
+            name = entry.name
+            if name.startswith("."):
                 continue
-            path = Path(dirpath) / name
-            real = Path(os.path.realpath(path))
-            if real_root not in real.parents:
-                continue            # a link that leads out of the folder
-            if skip is not None and (real == skip or skip in real.parents):
+            try:
+                link = entry.is_symlink()
+                if not link and entry.is_dir():
+                    # A folder reached without a link lies inside the root.
+                    real = os.path.join(real_root, rel, name)
+                    if skip is not None and (real == skip or inside(real, skip)):
+                        continue
+                    walk(entry.path, f"{rel}{name}/")
+                    continue
+                if os.path.splitext(name)[1].lower() not in suffixes:
+                    continue
+                if link:
+                    real = os.path.realpath(entry.path)
+                    if not inside(real, real_root):
+                        continue            # a link that leads out of the folder
+                else:
+                    real = os.path.join(real_root, rel, name)
+                if skip is not None and (real == skip or inside(real, skip)):
+                    continue
+                if not entry.is_file():
+                    continue                # a FIFO, a device, a dangling link, a folder's link
+            except OSError:
                 continue
-            if not path.is_file():
-                continue            # a FIFO, a device, a dangling link
-            found.append(path)
+            found.append((f"{rel}{name}", Path(entry.path)))
             if len(found) > limits.MAX_BATCH_FILES:
                 raise LimitError(f"number of files in {short(display_name(str(root)))!r}",
                                  f"over {limits.MAX_BATCH_FILES}", limits.MAX_BATCH_FILES,
                                  "Set numcheck.limits.MAX_BATCH_FILES higher, or run on a subfolder.")
-    found.sort(key=lambda p: p.relative_to(root).as_posix())
-    return found
+
+    walk(str(root), "")
+    found.sort(key=lambda item: item[0])
+    return [path for _, path in found]
 
 
 def _no_files(root: Path, suffixes: tuple[str, ...]) -> NumcheckError:
@@ -203,7 +231,8 @@ class _Journal:
         self.folder = folder / JOURNAL_DIR if folder is not None else None
         self.key = key
         self.done: dict[str, dict] = {}
-        self._pending: list[dict] = []
+        self._pending: list[str] = []          # journal lines not yet written
+        self._outputs: list[tuple] = []         # outputs written, not yet committed
         self._last = time.monotonic()
         self._part = 0
 
@@ -244,24 +273,37 @@ class _Journal:
         self.folder.mkdir(parents=True, exist_ok=True)
         write_atomic(self.folder / "key.json", json.dumps(self.key, sort_keys=True) + "\n")
 
-    def finished(self, rel: str, stamp: list, entry: dict) -> None:
-        record = {"rel": rel, "stamp": stamp, "entry": entry}
-        self.done[rel] = record
-        if self.folder is None:
-            return
-        self._pending.append(record)
-        if (len(self._pending) >= limits.BATCH_JOURNAL_ENTRIES
+    def finished(self, rel: str, stamp: list, entry: dict, line: str | None = None,
+                 pending: tuple = ()) -> None:
+        """Record a finished file: its *entry*, the journal *line* a worker made of it (made
+        here if None), and the outputs *pending* (``(temporary, target)``) it wrote."""
+        self.done[rel] = {"rel": rel, "stamp": stamp, "entry": entry}
+        self._outputs.extend(pending)
+        if self.folder is not None:
+            self._pending.append(line if line is not None else _journal_line(rel, stamp, entry))
+        if (max(len(self._pending), len(self._outputs)) >= limits.BATCH_JOURNAL_ENTRIES
                 or time.monotonic() - self._last >= limits.BATCH_JOURNAL_SECONDS):
             self.flush()
 
     def flush(self) -> None:
+        """Commit the pending outputs (on the disk, then renamed), then record their entries."""
+        outputs, self._outputs = self._outputs, []
+        commit_pending(outputs)
+        self._last = time.monotonic()
         if self.folder is None or not self._pending:
             return
-        text = "".join(json.dumps(r, ensure_ascii=False) + "\n" for r in self._pending)
-        write_atomic(self.folder / f"part-{self._part:06d}.jsonl", text)
+        write_atomic(self.folder / f"part-{self._part:06d}.jsonl", "".join(self._pending))
         self._part += 1
         self._pending = []
-        self._last = time.monotonic()
+
+    def discard(self) -> None:
+        """Remove the pending outputs without committing them (the run failed)."""
+        outputs, self._outputs = self._outputs, []
+        discard_pending(outputs)
+
+
+def _journal_line(rel: str, stamp: list, entry: dict) -> str:
+    return json.dumps({"rel": rel, "stamp": stamp, "entry": entry}, ensure_ascii=False) + "\n"
 
 
 def _quiet_worker() -> None:
@@ -285,11 +327,14 @@ def _run(jobs: list[tuple], worker, progress: Progress | None, workers: int | No
          journal: _Journal, stamps: list, prepare: Callable[[], None] | None = None) -> list[dict]:
     """Run *worker* over *jobs* (in a bounded pool when there are many); entries in job order.
 
-    ``jobs[i][0]`` is the file's relative name (the key of the journal).
-    Files the journal already holds with the same stamp are not run again.
-    *prepare* runs before a pool is made: what it imports, workers forked
-    from this process need not import each (each importing numcheck at
-    once cost a run of a few files more than the files).
+    ``jobs[i][0]`` is the file's relative name (the key of the journal);
+    ``worker(job)`` gives ``(entry, pending)``: the file's entry and the
+    outputs it wrote pending (:func:`~numcheck.files.write_pending`), which
+    the journal commits before it records their entries.  Files the journal
+    already holds with the same stamp are not run again.  *prepare* runs
+    before a pool is made: what it imports, workers forked from this process
+    need not import each (each importing numcheck at once cost a run of a
+    few files more than the files).
     """
     total = len(jobs)
     results: list[dict | None] = [None] * total
@@ -307,6 +352,7 @@ def _run(jobs: list[tuple], worker, progress: Progress | None, workers: int | No
     # More processes than files or than cores only costs: a pool of 100,000
     # would spend minutes starting processes (and may exhaust the machine).
     n_workers = min(n_workers, len(todo) or 1, machine_workers())
+    finished = False
     try:
         if len(todo) >= POOL_MIN_FILES and n_workers > 1:
             if prepare is not None and _forks():
@@ -315,14 +361,40 @@ def _run(jobs: list[tuple], worker, progress: Progress | None, workers: int | No
                              progress, done, total)
         else:
             for i in todo:
-                results[i] = worker(jobs[i])
-                journal.finished(jobs[i][0], stamps[i], results[i])
+                results[i], pending = worker(jobs[i])
+                journal.finished(jobs[i][0], stamps[i], results[i], pending=pending)
                 done += 1
                 if progress:
                     progress(done, total, results[i]["file"])
+        finished = True
     finally:
-        journal.flush()
+        try:
+            journal.flush()     # stopped by Ctrl-C or SIGTERM too: what finished is kept
+        except BaseException:
+            journal.discard()
+            if finished:
+                raise
     return results  # type: ignore[return-value]
+
+
+def _run_chunk(worker, items: list[tuple]) -> list[tuple]:
+    """In a pool worker: *worker* over the ``(job, stamp)`` of *items*; ``(entry, pending,
+    journal line)`` for each.  Stopped midway, it removes the outputs it left pending."""
+    out: list[tuple] = []
+    try:
+        for job, stamp in items:
+            entry, pending = worker(job)
+            out.append((entry, pending, _journal_line(job[0], stamp, entry)))
+    except BaseException:
+        for _, pending, _ in out:
+            discard_pending(pending)
+        raise
+    return out
+
+
+def _chunk_size(files: int, workers: int) -> int:
+    """Files a pool task holds: few enough that every worker gets many tasks, at most 16."""
+    return max(1, min(16, files // (workers * 8)))
 
 
 def _forks() -> bool:
@@ -342,29 +414,35 @@ def _run_pool(jobs, todo, worker, n_workers, results, journal, stamps, progress,
     from concurrent.futures import FIRST_COMPLETED, ProcessPoolExecutor, wait
 
     pool = ProcessPoolExecutor(max_workers=n_workers, initializer=_quiet_worker)
-    window = n_workers * 4          # files in flight: memory stays flat however many there are
+    size = _chunk_size(len(todo), n_workers)
+    chunks = iter([todo[k:k + size] for k in range(0, len(todo), size)])
+    window = n_workers * 3          # tasks in flight: memory stays flat however many files
     pending: dict = {}
-    queue = iter(todo)
+
+    def submit(chunk) -> None:
+        pending[pool.submit(_run_chunk, worker, [(jobs[i], stamps[i]) for i in chunk])] = chunk
+
     try:
-        for i in queue:
-            pending[pool.submit(worker, jobs[i])] = i
+        for chunk in chunks:
+            submit(chunk)
             if len(pending) >= window:
                 break
         while pending:
             finished, _ = wait(pending, return_when=FIRST_COMPLETED)
             for fut in finished:
-                i = pending.pop(fut)
-                results[i] = fut.result()
-                journal.finished(jobs[i][0], stamps[i], results[i])
-                done += 1
-                if progress:
-                    progress(done, total, results[i]["file"])
-                nxt = next(queue, None)
+                chunk = pending.pop(fut)
+                for i, (entry, outputs, line) in zip(chunk, fut.result()):
+                    results[i] = entry
+                    journal.finished(jobs[i][0], stamps[i], entry, line, outputs)
+                    done += 1
+                    if progress:
+                        progress(done, total, entry["file"])
+                nxt = next(chunks, None)
                 if nxt is not None:
-                    pending[pool.submit(worker, jobs[nxt])] = nxt
+                    submit(nxt)
     except BaseException:
         # Stopped (Ctrl-C, SIGTERM): what finished is in the journal; end the
-        # workers now (their outputs are written atomically, so none is torn).
+        # workers now (each removes the outputs it had pending; none is torn).
         for proc in list(getattr(pool, "_processes", {}).values()):
             try:
                 proc.terminate()
@@ -412,24 +490,67 @@ def _prepare(src_root: Path, out: Path | None, what: str) -> None:
 
 # -- annotate -------------------------------------------------------------
 
-def _annotate_one(job: tuple) -> dict:
-    rel, src, dst, alternatives, fix, notation = job
+def _annotate_one(job: tuple) -> tuple[dict, tuple]:
+    """One file of :func:`annotate_folder`: its entry, and its output written pending."""
+    rel, src, dst, alternatives, fix, notation, refused, share = job
     from .tei.annotation import annotate_entry
 
     entry = {"file": display_name(rel), "output": display_name(str(dst))}
+    shared = _sharing(share)
     try:
-        Path(dst).parent.mkdir(parents=True, exist_ok=True)
-        check_distinct([src], dst)
+        if refused:
+            raise OutputError(refused)
+        check_target(dst)
+        if shared is not None:
+            shared.take()
         out_bytes, fields = annotate_entry(src, alternatives=alternatives, fix=fix,
                                            notation=notation)
+        if shared is not None:
+            shared.give()
         # annotate_folder swept the output folders of stale temporaries once;
-        # a folder made since holds none a killed run left.
-        write_atomic(dst, out_bytes, sweep=False)
+        # the journal commits this one (on the disk, then renamed) with others.
+        pending = ((write_pending(dst, out_bytes), dst),)
     except NumcheckError as err:
         entry["error"] = short(str(err), limits.MAX_ECHO * 4)
-        return entry
+        return entry, ()
     entry.update(fields)
-    return entry
+    return entry, pending
+
+
+#: In a pool worker: its side of the exchange of outcomes (:mod:`.tei.sharing`), by folder.
+_SHARED: dict = {}
+
+
+def _sharing(folder: str | None):
+    if folder is None:
+        return None
+    shared = _SHARED.get(folder)
+    if shared is None:
+        from .tei.sharing import Sharing
+
+        _SHARED.clear()
+        shared = _SHARED[folder] = Sharing(folder)
+    return shared
+
+
+def _output_folders(src_root: Path, jobs_dst: list[str]) -> dict[str, str]:
+    """Make the output folders of *jobs_dst*; the reason each one refused is refused.
+
+    A folder that cannot be made, or that is (through a link) the input
+    folder or inside it, refuses its files (each gets the error, the run goes
+    on).  Outputs are renamed into place, so a target that is itself a link
+    to an input replaces the link, never the input.
+    """
+    refused: dict[str, str] = {}
+    for folder in sorted({os.path.dirname(d) for d in jobs_dst}):
+        try:
+            check_distinct([src_root], folder)      # before it is made: not inside the input
+            os.makedirs(folder, exist_ok=True)
+        except (OSError, NumcheckError) as err:
+            refused[folder] = short(str(err), limits.MAX_ECHO * 4)
+            continue
+        sweep_stale_temporaries(folder)     # once per folder, not once per file (quadratic)
+    return refused
 
 
 def annotate_folder(in_dir: str | os.PathLike, out_dir: str | os.PathLike, *,
@@ -455,11 +576,16 @@ def annotate_folder(in_dir: str | os.PathLike, out_dir: str | os.PathLike, *,
         raise _no_files(src_root, (".xml",))
     dst_root.mkdir(parents=True, exist_ok=True)
     sdir.mkdir(parents=True, exist_ok=True)
-    jobs, stamps = [], []
-    for path in files:
-        rel = path.relative_to(src_root).as_posix()
-        jobs.append((rel, str(path), str(dst_root / rel), alternatives, fix, notation))
-        stamps.append(_stamp(str(path)))
+    rels = [path.relative_to(src_root).as_posix() for path in files]
+    targets = [str(dst_root / rel) for rel in rels]
+    refused = _output_folders(src_root, targets)
+    share = None
+    if len(files) >= POOL_MIN_FILES and workers != 1 and machine_workers() > 1:
+        share = tempfile.mkdtemp(prefix="numcheck-outcomes-")
+    jobs = [(rel, str(path), dst, alternatives, fix, notation,
+             refused.get(os.path.dirname(dst)), share)
+            for rel, path, dst in zip(rels, files, targets)]
+    stamps = [_stamp(str(path)) for path in files]
     key = {"kind": "annotate", "input": display_name(os.path.realpath(src_root)),
            "output": display_name(os.path.realpath(dst_root)), "alternatives": alternatives,
            "fix": bool(fix), "notation": notation}
@@ -473,15 +599,16 @@ def annotate_folder(in_dir: str | os.PathLike, out_dir: str | os.PathLike, *,
     else:
         journal.clear()
     journal.start()
-    for folder in sorted({Path(job[2]).parent for job in jobs}):
-        if folder.is_dir():         # once per folder, not once per file written (quadratic)
-            sweep_stale_temporaries(folder)
     result = BatchResult("annotate", display_name(str(src_root)), display_name(str(dst_root)),
                          summary_dir=display_name(str(sdir)))
     already = sum(1 for i, j in enumerate(jobs)
                   if journal.done.get(j[0], {}).get("stamp") == stamps[i])
-    result.files = _run(jobs, _annotate_one, progress, workers, journal, stamps,
-                        prepare=_import_annotation)
+    try:
+        result.files = _run(jobs, _annotate_one, progress, workers, journal, stamps,
+                            prepare=_import_annotation)
+    finally:
+        if share is not None:
+            shutil.rmtree(share, ignore_errors=True)
     result.resumed = already
     _write_summary(result, sdir)
     return result
@@ -522,6 +649,11 @@ def _audit_one(job: tuple) -> dict:
     if report_dir is not None:
         entry["reports"] = _write_reports(result, Path(report_dir), display_name(rel))
     return entry
+
+
+def _audited(job: tuple) -> tuple[dict, tuple]:
+    """:func:`_audit_one` as :func:`_run` calls it (its reports are written whole: none pending)."""
+    return _audit_one(job), ()
 
 
 def _cell_counts(result) -> tuple[int, int]:
@@ -613,7 +745,7 @@ def audit_folder(in_dir: str | os.PathLike, *, report_dir: str | os.PathLike | N
                          summary_dir=display_name(str(sdir)) if sdir is not None else None)
     already = sum(1 for i, j in enumerate(jobs)
                   if journal.done.get(j[0], {}).get("stamp") == stamps[i])
-    result.files = _run(jobs, _audit_one, progress, workers, journal, stamps)
+    result.files = _run(jobs, _audited, progress, workers, journal, stamps)
     result.resumed = already
     if rdir is not None:
         index = rdir / "index.html"

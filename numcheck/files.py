@@ -16,9 +16,9 @@ its size limit.
 
 from __future__ import annotations
 
+import itertools
 import os
 import stat
-import tempfile
 import time
 from collections.abc import Iterable
 from pathlib import Path
@@ -26,8 +26,10 @@ from pathlib import Path
 from . import limits
 from .errors import LimitError, NumcheckError
 
-__all__ = ["OutputError", "InputFileError", "write_atomic", "check_distinct", "same_file",
-           "check_input_file", "sweep_stale_temporaries", "TEMP_MARK", "display_name", "short"]
+__all__ = ["OutputError", "InputFileError", "write_atomic", "write_pending", "commit_pending",
+           "discard_pending", "check_target", "check_distinct", "same_file", "check_input_file",
+           "read_input_file",
+           "sweep_stale_temporaries", "TEMP_MARK", "display_name", "short"]
 
 #: Every temporary file numcheck writes is named ``.<target>.numcheck-<pid>-<random>.tmp``.
 TEMP_MARK = ".numcheck-"
@@ -97,38 +99,63 @@ def check_input_file(path: str | os.PathLike, *, max_bytes: int | None = None,
                      what: str = "file", limit_name: str | None = None) -> int:
     """Refuse an input that is not a regular, readable, text file within its size limit.
 
-    Looks at the kind of the file first (``os.stat``: no byte is read from a
-    device or a FIFO), then its size against *max_bytes* (the limit named
-    *limit_name*), then its first bytes: a NUL byte in them marks a binary
-    file (UTF-16 text with a byte-order mark is let through).  Returns the size.
+    Looks at the kind of the file first (no byte is read from a device or a
+    FIFO), then its size against *max_bytes* (the limit named *limit_name*),
+    then its first bytes: a NUL byte in them marks a binary file (UTF-16 text
+    with a byte-order mark is let through).  Returns the size.
     """
-    p = Path(path)
+    return read_input_file(path, max_bytes=max_bytes, what=what, limit_name=limit_name,
+                           head_only=True)[0]
+
+
+def read_input_file(path: str | os.PathLike, *, max_bytes: int | None = None,
+                    what: str = "file", limit_name: str | None = None,
+                    head_only: bool = False) -> tuple[int, bytes]:
+    """The size and bytes of an input file, refused as :func:`check_input_file` says.
+
+    The file is opened once, without waiting (a FIFO opened so does not block
+    and is refused by its kind, read from the open file itself); with
+    *head_only* only its first 4096 bytes are read.
+    """
+    p = os.fspath(path)
     a_what = ("an " if what[:1].lower() in "aeiou" or what.startswith("XML") else "a ") + what
     try:
-        st = os.stat(p)
+        fd = os.open(p, os.O_RDONLY | getattr(os, "O_NONBLOCK", 0) | getattr(os, "O_BINARY", 0))
     except FileNotFoundError:
         raise InputFileError(f"No such {what}: {short(str(p))!r}.") from None
+    except IsADirectoryError:
+        raise InputFileError(f"{short(str(p))!r} is a folder, not {a_what}.") from None
     except OSError as err:
+        if os.path.isdir(p):
+            raise InputFileError(f"{short(str(p))!r} is a folder, not {a_what}.") from None
         raise InputFileError(f"Cannot read {short(str(p))!r}: {err.strerror or err}.") from None
-    mode = st.st_mode
-    if stat.S_ISDIR(mode):
-        raise InputFileError(f"{short(str(p))!r} is a folder, not {a_what}.")
-    if not stat.S_ISREG(mode):
-        kind = ("a named pipe (FIFO)" if stat.S_ISFIFO(mode) else
-                "a character device" if stat.S_ISCHR(mode) else
-                "a block device" if stat.S_ISBLK(mode) else
-                "a socket" if stat.S_ISSOCK(mode) else "not a regular file")
-        raise InputFileError(f"{short(str(p))!r} is {kind}, not {a_what}: numcheck reads only "
-                             "regular files (a device or a pipe could be read for ever).")
-    if max_bytes is not None and st.st_size > max_bytes:
-        raise LimitError(f"size in bytes of {short(str(p))!r}", st.st_size, max_bytes,
-                         f"Set numcheck.limits.{limit_name or 'MAX_TABLE_BYTES'} higher to read it.")
-    with open(p, "rb") as handle:
-        head = handle.read(4096)
+    try:
+        st = os.fstat(fd)
+        mode = st.st_mode
+        if stat.S_ISDIR(mode):
+            raise InputFileError(f"{short(str(p))!r} is a folder, not {a_what}.")
+        if not stat.S_ISREG(mode):
+            kind = ("a named pipe (FIFO)" if stat.S_ISFIFO(mode) else
+                    "a character device" if stat.S_ISCHR(mode) else
+                    "a block device" if stat.S_ISBLK(mode) else
+                    "a socket" if stat.S_ISSOCK(mode) else "not a regular file")
+            raise InputFileError(f"{short(str(p))!r} is {kind}, not {a_what}: numcheck reads only "
+                                 "regular files (a device or a pipe could be read for ever).")
+        if max_bytes is not None and st.st_size > max_bytes:
+            raise LimitError(f"size in bytes of {short(str(p))!r}", st.st_size, max_bytes,
+                             f"Set numcheck.limits.{limit_name or 'MAX_TABLE_BYTES'} higher to read it.")
+        try:
+            with open(fd, "rb", closefd=False) as handle:
+                data = handle.read(4096) if head_only else handle.read()
+        except OSError as err:
+            raise InputFileError(f"Cannot read {short(str(p))!r}: {err.strerror or err}.") from None
+    finally:
+        os.close(fd)
+    head = data[:4096]
     if b"\x00" in head and not head.startswith((b"\xff\xfe", b"\xfe\xff")):
         raise InputFileError(f"{short(str(p))!r} looks like a binary file (it holds NUL bytes), "
                              f"not {a_what}; numcheck reads text (TSV, CSV, XML).")
-    return st.st_size
+    return st.st_size, data
 
 
 def display_name(text: str) -> str:
@@ -225,31 +252,163 @@ def write_atomic(path: str | os.PathLike, data: bytes | str, *, encoding: str = 
     folder = target.parent if str(target.parent) else Path(".")
     if not folder.is_dir():
         raise OutputError(f"Cannot write {str(target)!r}: the folder {str(folder)!r} does not exist.")
-    if target.is_dir():
-        raise OutputError(f"Cannot write {str(target)!r}: it is a folder, not a file.")
-    if target.exists() and not target.is_file():
-        raise OutputError(f"Cannot write {str(target)!r}: it is not a regular file (a device or "
-                          "a pipe); give a file path.")
+    check_target(target)
     payload = _encode(data, encoding) if isinstance(data, str) else bytes(data)
     if sweep:
         sweep_stale_temporaries(folder, target.name)
-    fd, tmp = tempfile.mkstemp(prefix=f".{target.name}{TEMP_MARK}{os.getpid()}-", suffix=".tmp",
-                               dir=folder)
+    tmp = _temporary(target, payload, sync=True)
     try:
-        with os.fdopen(fd, "wb") as handle:
-            handle.write(payload)
-            handle.flush()
-            os.fsync(handle.fileno())
-        # A fresh temporary file is private (0600); give the output the usual
-        # permissions of a new file, as the user's umask says.
-        umask = os.umask(0)
-        os.umask(umask)
-        os.chmod(tmp, 0o666 & ~umask)
         os.replace(tmp, target)
     except BaseException:
-        try:
-            os.unlink(tmp)
-        except FileNotFoundError:
-            pass
+        _unlink(tmp)
         raise
     return target
+
+
+def check_target(path: str | os.PathLike) -> None:
+    """Refuse to write *path* where it is a folder or not a regular file (a device, a pipe)."""
+    try:
+        mode = os.stat(path).st_mode
+    except FileNotFoundError:
+        return
+    except OSError:
+        return                  # the write itself will say what is wrong
+    if stat.S_ISDIR(mode):
+        raise OutputError(f"Cannot write {str(path)!r}: it is a folder, not a file.")
+    if not stat.S_ISREG(mode):
+        raise OutputError(f"Cannot write {str(path)!r}: it is not a regular file (a device or "
+                          "a pipe); give a file path.")
+
+
+def _temporary(target: Path, payload: bytes, *, sync: bool) -> str:
+    """A temporary file beside *target* holding *payload* (on the disk when *sync*); its path."""
+    folder = os.fspath(target.parent) if str(target.parent) else "."
+    stem = os.path.join(folder, f".{target.name}{TEMP_MARK}{os.getpid()}-{_token()}")
+    while True:
+        tmp = f"{stem}{next(_SERIAL)}.tmp"
+        try:
+            # Mode 0o666: the output gets the usual permissions of a new file, as
+            # the user's umask says (the system applies it).
+            fd = os.open(tmp, os.O_WRONLY | os.O_CREAT | os.O_EXCL | getattr(os, "O_BINARY", 0),
+                         0o666)
+        except FileExistsError:
+            continue
+        break
+    try:
+        with open(fd, "wb", closefd=True) as handle:
+            handle.write(payload)
+            if sync:
+                handle.flush()
+                os.fsync(fd)
+    except BaseException:
+        _unlink(tmp)
+        raise
+    return tmp
+
+
+_SERIAL = itertools.count()
+_TOKENS: dict[int, str] = {}
+
+
+def _token() -> str:
+    """A random part of this process's temporary names (drawn again in a forked child)."""
+    pid = os.getpid()
+    token = _TOKENS.get(pid)
+    if token is None:
+        _TOKENS.clear()
+        token = _TOKENS[pid] = os.urandom(4).hex() + "-"
+    return token
+
+
+def _unlink(path: str) -> None:
+    try:
+        os.unlink(path)
+    except FileNotFoundError:
+        pass
+
+
+def write_pending(path: str | os.PathLike, data: bytes) -> str:
+    """Write *data* to a temporary file beside *path*, to be renamed later; its path.
+
+    The first half of :func:`write_atomic` for a batch: many outputs are
+    written so, then made durable together by one :func:`commit_pending`
+    (one flush of the file system instead of one per file).  The folder must
+    exist and *path* must not be a folder or a device (:func:`write_atomic`
+    checks it; a batch checks its folders once).  A temporary file that is
+    never committed is removed by :func:`discard_pending`, or swept as stale
+    by the next run once its process is gone.
+    """
+    return _temporary(Path(path), bytes(data), sync=False)
+
+
+def commit_pending(pending: Iterable[tuple[str, str | os.PathLike]]) -> None:
+    """Make the temporary files of :func:`write_pending` durable, then rename each to its target.
+
+    *pending* holds ``(temporary, target)`` pairs.  The data reach the disk
+    before any rename (one ``syncfs`` for each file system, where the system
+    has it, else one ``fsync`` for each file), so that a power cut leaves
+    each target either as it was or whole.  On an error the temporaries not
+    yet renamed are removed and the error is raised.
+    """
+    pending = list(pending)
+    renamed = 0
+    try:
+        if pending:
+            _sync_all([tmp for tmp, _ in pending])
+        for tmp, target in pending:
+            os.replace(tmp, target)
+            renamed += 1
+    except BaseException:
+        discard_pending(pending[renamed:])
+        raise
+
+
+def discard_pending(pending: Iterable[tuple[str, str | os.PathLike]]) -> None:
+    """Remove the temporary files of *pending* (``(temporary, target)`` pairs) that are still there."""
+    for tmp, _ in pending:
+        _unlink(tmp)
+
+
+def _sync_all(paths: list[str]) -> None:
+    """Flush *paths* to the disk: one ``syncfs`` per file system where it exists, else fsync each."""
+    syncfs = _syncfs()
+    if syncfs is None:
+        for path in paths:
+            fd = os.open(path, os.O_RDONLY)
+            try:
+                os.fsync(fd)
+            finally:
+                os.close(fd)
+        return
+    folders: dict[int, str] = {}
+    for folder in sorted({os.path.dirname(path) or "." for path in paths}):
+        folders.setdefault(os.stat(folder).st_dev, folder)
+    for folder in folders.values():
+        fd = os.open(folder, os.O_RDONLY)
+        try:
+            if syncfs(fd) != 0:
+                import ctypes
+
+                err = ctypes.get_errno()
+                raise OSError(err, os.strerror(err), folder)
+        finally:
+            os.close(fd)
+
+
+_SYNCFS: list = []
+
+
+def _syncfs():
+    """libc's ``syncfs`` (Linux), or None where there is none."""
+    if not _SYNCFS:
+        found = None
+        if hasattr(os, "sched_getaffinity"):           # Linux
+            try:
+                import ctypes
+
+                found = ctypes.CDLL(None, use_errno=True).syncfs
+                found.argtypes = [ctypes.c_int]
+            except (OSError, AttributeError):
+                found = None
+        _SYNCFS.append(found)
+    return _SYNCFS[0]

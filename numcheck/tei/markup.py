@@ -24,7 +24,7 @@ from lxml import etree
 
 from .. import limits
 from ..errors import LimitError, NumcheckError
-from ..files import check_input_file
+from ..files import InputFileError, read_input_file
 
 __all__ = [
     "TEI_NS",
@@ -102,12 +102,13 @@ def read_bytes(path: str | os.PathLike) -> bytes:
     """The bytes of *path*, after checking its kind and size limit (the file is only read)."""
     if not isinstance(path, (str, os.PathLike)):
         raise NumcheckError(f"Expected the path of an XML file, got {type(path).__name__}.")
-    p = Path(path)
-    if not p.exists():
-        raise TeiError(p, None, "no such file")
-    check_input_file(p, max_bytes=limits.MAX_XML_BYTES, what="XML file", limit_name="MAX_XML_BYTES")
-    with open(p, "rb") as handle:
-        return handle.read()
+    try:
+        return read_input_file(path, max_bytes=limits.MAX_XML_BYTES, what="XML file",
+                               limit_name="MAX_XML_BYTES")[1]
+    except InputFileError as err:
+        if not os.path.exists(path):
+            raise TeiError(Path(path), None, "no such file") from None
+        raise err from None
 
 
 def parse_tei(path: str | os.PathLike, data: bytes | None = None) -> etree._Element:
