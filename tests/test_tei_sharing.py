@@ -9,6 +9,7 @@ process under another name, its memory emptied between the two roles.
 from __future__ import annotations
 
 import pickle
+import struct
 
 import pytest
 
@@ -40,13 +41,11 @@ def _general(data):
 @pytest.mark.parametrize("name, data", _SMALL, ids=[c[0] for c in _SMALL])
 def test_a_worker_given_the_outcomes_annotates_the_same(name, data, tmp_path, noting, monkeypatch):
     reference = _general(data)
-    first = sharing.Sharing(str(tmp_path))
-    first.mine = "1-"
+    first = sharing.Sharing(str(tmp_path), name="1")
     annotation.annotate_bytes(data, "doc.xml")
     first.give(force=True)
     outcomes.forget()                           # another process, knowing nothing
-    second = sharing.Sharing(str(tmp_path))
-    second.mine = "2-"
+    second = sharing.Sharing(str(tmp_path), name="2")
     second.take()
     out, result = annotation.annotate_bytes(data, "doc.xml")
     assert (out, result.to_dict()) == reference
@@ -59,28 +58,32 @@ def test_what_is_given_is_read_once_and_never_by_its_writer(tmp_path, noting):
                      [(12, "ιβ"), (13, "ιγ"), (14, "ιδ"), (15, "ιε"), (16, "ιϛ"), (17, "ιζ"),
                       (18, "ιη"), (19, "ιθ"), (20, "κ")]).encode()
            + b"</ab></body></text></TEI>")
-    a = sharing.Sharing(str(tmp_path))
-    a.mine = "1-"
+    a = sharing.Sharing(str(tmp_path), name="1")
     annotation.annotate_bytes(doc, "doc.xml")
     a.give()                                    # nine new: more than GIVE_AT, written
-    assert [p.name for p in tmp_path.iterdir()] == ["1-000001.pickle"]
-    assert a.take() == 0                        # its own file is not read back
-    b = sharing.Sharing(str(tmp_path))
-    b.mine = "2-"
+    assert [p.name for p in tmp_path.iterdir()] == ["1" + sharing.LOG_SUFFIX]
+    assert a.take() == 0                        # its own log is not read back
+    b = sharing.Sharing(str(tmp_path), name="2")
     assert b.take() == 9 and b.take() == 0
 
 
-def test_an_unreadable_exchange_file_is_passed_over(tmp_path, noting):
-    (tmp_path / "9-000001.pickle").write_bytes(b"not a pickle")
-    (tmp_path / "9-000002.pickle").write_bytes(pickle.dumps([]))
-    (tmp_path / "9-000003.pickle.part").write_bytes(b"half")
+def test_a_frame_still_being_written_waits_for_the_next_look(tmp_path, noting):
+    a = sharing.Sharing(str(tmp_path), name="1")
+    records = [((None, False, ()), "grc", f"<num>{i}</num>", None) for i in range(3)]
+    frame = pickle.dumps(records)
+    whole = struct.pack("<Q", len(frame)) + frame
+    log = tmp_path / ("2" + sharing.LOG_SUFFIX)
+    log.write_bytes(whole[:11])                 # the writer is midway
+    assert a.take() == 0
+    with open(log, "ab") as handle:
+        handle.write(whole[11:] + whole)
+    assert a.take() == 6 and a.take() == 0
+
+
+def test_an_unreadable_exchange_log_is_passed_over(tmp_path, noting):
+    bad = b"not a pickle"
+    (tmp_path / ("9" + sharing.LOG_SUFFIX)).write_bytes(
+        struct.pack("<Q", len(bad)) + bad + struct.pack("<Q", 5) + pickle.dumps([]))
+    (tmp_path / "8.other").write_bytes(b"half")
     s = sharing.Sharing(str(tmp_path))
     assert s.take() == 0
-
-
-def test_nothing_is_noted_outside_a_batch(monkeypatch):
-    monkeypatch.setattr(outcomes, "NOTING", False)
-    outcomes.forget()
-    annotation.annotate_bytes(b'<TEI xmlns="http://www.tei-c.org/ns/1.0"><text><body><ab>'
-                              b'<num value="12">\xce\xb9\xce\xb2</num></ab></body></text></TEI>')
-    assert outcomes.take_new() == []

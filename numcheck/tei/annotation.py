@@ -491,7 +491,7 @@ def _settings() -> tuple:
     """The limits in force (a document is read under one setting of them)."""
     if not _LIMIT_NAMES:
         _LIMIT_NAMES.extend(sorted(k for k in vars(limits) if k.isupper()))
-    return tuple(getattr(limits, k) for k in _LIMIT_NAMES)
+    return tuple(map(vars(limits).get, _LIMIT_NAMES))
 
 
 _LIMIT_NAMES: list[str] = []

@@ -33,7 +33,9 @@ bytes and the same result through this path as through the general one.
 from __future__ import annotations
 
 import re
+from collections import Counter
 from dataclasses import dataclass
+from operator import attrgetter
 
 from lxml import etree
 
@@ -55,45 +57,50 @@ _END = re.compile(r"</num\s*>")
 _NOWHERE = Place(0, "", None, None)
 
 
-@dataclass(frozen=True)
+@dataclass(frozen=True, eq=False)
 class _Known:
     """What annotate found for one ``<num>`` source text (in one language, options, limits)."""
 
     status: str
     damaged: bool
-    new_tag: str | None         # the edited start tag, or None if it stays as written
+    out: str | None             # the source with its start tag edited, or None if it stays
     kept: tuple                 # for outcomes.revive: the NumResult and its edit
+
+
+_STATUS = attrgetter("status")
+_DAMAGED = attrgetter("damaged")
 
 
 class Quick:
     """A file annotated by :func:`attempt`: its bytes, and its results made when asked for."""
 
-    def __init__(self, data: bytes, root, nums: list, known: list[_Known]):
+    def __init__(self, data: bytes, root, known: list[_Known]):
         self.data = data
-        self._root, self._nums, self._known = root, nums, known
+        self._root, self._known = root, known
 
     def _results(self, which) -> list:
+        nums = list(self._root.iter(_NUM))
         places = survey(self._root).places
-        return [outcomes.revive(self._known[i].kept, self._nums[i].sourceline,
-                                places[id(self._nums[i])])[0] for i in which]
+        return [outcomes.revive(self._known[i].kept, nums[i].sourceline,
+                                places[id(nums[i])])[0] for i in which]
 
     def results(self) -> list:
         """Every number's NumResult, as the general path gives them."""
-        return self._results(range(len(self._nums)))
+        return self._results(range(len(self._known)))
 
     def batch_fields(self) -> dict:
         """:func:`.annotation.batch_fields` of the result, making only the numbers it lists."""
-        counts: dict[str, int] = {}
-        damaged = 0
-        for k in self._known:
-            counts[k.status] = counts.get(k.status, 0) + 1
-            damaged += k.damaged
-        listed = [i for i, k in enumerate(self._known) if k.status in ("contradiction", "fixed")]
-        return {"numbers": len(self._known), "damaged": damaged,
+        counts = Counter(map(_STATUS, self._known))
+        listed = ([i for i, k in enumerate(self._known) if k.status in _LISTED]
+                  if "contradiction" in counts or "fixed" in counts else [])
+        return {"numbers": len(self._known), "damaged": sum(map(_DAMAGED, self._known)),
                 "flagged": counts.get("contradiction", 0) + counts.get("fixed", 0),
-                "restored": 0, "unreadable": 0, "statuses": counts,
+                "restored": 0, "unreadable": 0, "statuses": dict(counts),
                 "contradictions": [r.to_dict() for r in self._results(listed)] if listed else [],
                 "unreadable_nums": []}
+
+
+_LISTED = ("contradiction", "fixed")
 
 
 def _spans(text: str) -> list[tuple[int, int, int]] | None:
@@ -123,15 +130,68 @@ def _spans(text: str) -> list[tuple[int, int, int]] | None:
     return spans
 
 
-_HOLDERS = etree.XPath("//*[@xml:lang]")
+#: A whole ``<num>`` element (start tag, quotes kept whole, to the first ``</num>``), as one group.
+#: A ``<num>`` element whole, to the first ``</num>`` after it.  An empty ``<num/>`` is found
+#: whole only where this is not tried first: where it is, the match runs on into the next
+#: ``<num>``, and the count of ``<num`` in the text then sends the file to the careful split.
+_WHOLE = re.compile(r"(<num[\s>][^<]*(?:<(?!/num\s*>)[^<]*)*</num\s*>|<num(?:\s[^<>]*)?/>)")
+_START = re.compile(r"""<num[^>"']*(?:(?:"[^"]*"|'[^']*')[^>"']*)*>""")
 
 
-def _langs(root, nums: list) -> list[str | None]:
-    """The ``xml:lang`` in force at each of *nums* (None: none)."""
-    langs: list[str | None] = [None] * len(nums)
+def _split_plain(text: str) -> list[str] | None:
+    """*text* split into the text between ``<num>`` and the ``<num>`` (odd items), where that
+    is safe by the text alone: no comment, CDATA, DOCTYPE or processing instruction (after
+    the XML declaration), no namespace but the root's default one.  None otherwise."""
+    start = text.index("?>") + 2 if text.startswith("<?xml") else 0
+    if ("<!" in text or text.find("<?", start) >= 0 or "xmlns:" in text
+            or text.count("xmlns=") > 1):
+        return None
+    parts = _WHOLE.split(text)
+    # Every "<num" is then a TEI <num> start tag, found whole and not inside another.
+    return parts if text.count("<num") == len(parts) // 2 else None
+
+
+def _split_careful(text: str, nums: list) -> list[str] | None:
+    """:func:`_split_plain` of any text, with the checks done on the tree; None to decline."""
+    if any(el.prefix is not None for el in nums):
+        return None
+    spans = _spans(text)
+    if spans is None or len(spans) != len(nums):
+        return None
+    parts: list[str] = []
+    at = 0
+    for start, _, end in spans:
+        parts.append(text[at:start])
+        parts.append(text[start:end])
+        at = end
+    parts.append(text[at:])
+    if "xmlns:" in text and any(":" in src.replace("xml:", "") for src in parts[1::2]):
+        return None             # a prefix in a <num>: its meaning depends on the bindings
+    return parts
+
+
+_LANG_ATTRIBUTES = etree.XPath("//@xml:lang")
+_BEFORE = etree.XPath("count(preceding::t:num)", namespaces={"t": TEI_NS})
+_WITHIN = etree.XPath("count(descendant-or-self::t:num)", namespaces={"t": TEI_NS})
+#: Past this many elements with ``xml:lang`` the languages are found by walking the numbers.
+_FEW_HOLDERS = 8
+
+
+def _langs(root, count: int) -> list[str | None]:
+    """The ``xml:lang`` in force at each of the *count* ``<num>`` of *root* (None: none)."""
+    langs: list[str | None] = [None] * count
+    holders = [a.getparent() for a in _LANG_ATTRIBUTES(root)]      # in document order
+    if len(holders) <= _FEW_HOLDERS:
+        # In document order, so that an inner holder's language comes last; the
+        # numbers inside one element follow each other in document order.
+        for holder in holders:
+            first, n = int(_BEFORE(holder)), int(_WITHIN(holder))
+            if n:
+                langs[first:first + n] = [holder.get(XML_LANG)] * n
+        return langs
+    nums = list(root.iter(_NUM))        # kept: an element's id() holds while it lives
     at = {id(el): i for i, el in enumerate(nums)}
-    # In document order, so that an inner holder's language comes last.
-    for holder in _HOLDERS(root):
+    for holder in holders:
         lang = holder.get(XML_LANG)
         for el in holder.iter(_NUM):
             langs[at[id(el)]] = lang
@@ -147,52 +207,65 @@ def attempt(data: bytes, root, context: tuple, annotate_one, max_nums: int) -> Q
     A file of more than *max_nums* numbers is declined (the general path
     refuses it by the limit).
     """
-    nums = list(root.iter(_NUM))
-    if not nums or len(nums) > max_nums or any(el.prefix is not None for el in nums):
+    count = int(_COUNT(root))
+    if not count or count > max_nums:
         return None
     decoded = decode_source(data, root.getroottree().docinfo.encoding)
     if decoded is None:
         return None
     text, codec = decoded
-    spans = _spans(text)
-    if spans is None or len(spans) != len(nums):
-        return None
-    prefixed = "xmlns:" in text
-    tables = outcomes.by_source(context)
-    known: list[_Known] = []
-    hint_of: dict[str | None, dict] = {}
-    for el, (start, tag_end, end), lang in zip(nums, spans, _langs(root, nums)):
-        source = text[start:end]
-        if prefixed and ":" in source.replace("xml:", ""):
+    parts = _split_plain(text)
+    nums = None
+    if parts is None or len(parts) // 2 != count:
+        nums = list(root.iter(_NUM))
+        parts = _split_careful(text, nums)
+        if parts is None:
             return None
-        table = hint_of.get(lang)
-        if table is None:
-            hint = lang_hint(lang)
-            table = hint_of[lang] = tables.setdefault(hint, {})
-        found = table.get(source)
-        if found is None:
-            hint = lang_hint(lang)
-            found = _learn(el, hint, source[:tag_end - start], annotate_one)
+    sources = parts[1::2]
+    tables = outcomes.by_source(context)
+    langs = _langs(root, count)
+    first = langs[0]
+    if langs.count(first) == count:             # one language for all (the usual case)
+        table = tables.setdefault(lang_hint(first), {})
+        known = list(map(table.get, sources))
+    else:
+        hints = {lang: lang_hint(lang) for lang in set(langs)}
+        known = [tables.setdefault(hints[lang], {}).get(src) for lang, src in zip(langs, sources)]
+    if None in known:
+        if nums is None:
+            nums = list(root.iter(_NUM))
+        for i, found in enumerate(known):
             if found is None:
-                return None
-            table[source] = found
-            outcomes.note(context, hint, source, found)
-        known.append(found)
-    pieces: list[str] = []
-    at = 0
-    for (start, tag_end, _), found in zip(spans, known):
-        if found.new_tag is not None:
-            pieces.append(text[at:start])
-            pieces.append(found.new_tag)
-            at = tag_end
-    out = ("".join(pieces) + text[at:]).encode(codec) if pieces else data
-    return Quick(out, root, nums, known)
+                hint = lang_hint(langs[i])
+                table = tables.setdefault(hint, {})
+                found = table.get(sources[i])     # the same markup earlier in this file
+                if found is None:
+                    found = _learn(nums[i], hint, sources[i], annotate_one)
+                    if found is None:
+                        return None
+                    table[sources[i]] = found
+                    outcomes.note(context, hint, sources[i], found)
+                known[i] = found
+    if any(k.out is not None for k in known):
+        parts[1::2] = [src if k.out is None else k.out for src, k in zip(sources, known)]
+        out = "".join(parts).encode(codec)
+    else:
+        out = data
+    return Quick(out, root, known)
 
 
-def _learn(el, hint, tag: str, annotate_one) -> _Known | None:
+_COUNT = etree.XPath("count(//t:num)", namespaces={"t": TEI_NS})
+
+
+def _learn(el, hint, source: str, annotate_one) -> _Known | None:
     res, edit, own = annotate_one(el, hint, _NOWHERE)
     kept = outcomes.snapshot(res, edit) if own else None
     if kept is None:
         return None
-    new_tag = None if edit is None else _edit_start_tag(tag, edit)
-    return _Known(res.status, bool(res.damaged), None if new_tag == tag else new_tag, kept)
+    out = None
+    if edit is not None:
+        tag = _START.match(source).group()
+        new_tag = _edit_start_tag(tag, edit)
+        if new_tag != tag:
+            out = new_tag + source[len(tag):]
+    return _Known(res.status, bool(res.damaged), out, kept)

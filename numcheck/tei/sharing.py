@@ -2,74 +2,110 @@
 
 Each worker of ``annotate DIR`` meets the corpus's numbers in its own files;
 a number's outcome learnt by one (:mod:`.quick`, :mod:`.outcomes`) is what
-the other would find.  So after a file a worker writes the outcomes it
-learnt to a file of its own in a folder only the batch uses, and before a
-file it reads those the others wrote.  What is read is only ever added
-where the process has learnt nothing for that text (the same outcome either
-way: ``tests/test_tei_sharing.py``), under the same options and limits (part
-of each outcome's key).  Files are renamed into place whole; a worker that
-cannot read or write one simply learns the numbers itself.
+the other would find.  So after a file a worker appends the outcomes it
+learnt to a log of its own in a folder only the batch uses, and before a
+file it reads what the others appended since it last looked.  What is read
+is only ever added where the process has learnt nothing for that text (the
+same outcome either way: ``tests/test_tei_sharing.py``), under the same
+options and limits (part of each outcome's key).
+
+A log is a row of frames, each its length (8 bytes) and a pickle, appended
+in one write: a reader takes only whole frames, and leaves a frame still
+being written for its next look.  A worker that cannot read or write a log
+simply learns the numbers itself.
 """
 
 from __future__ import annotations
 
 import os
 import pickle
+import struct
 
 from . import outcomes
 
-__all__ = ["Sharing", "GIVE_AT"]
+__all__ = ["Sharing", "GIVE_AT", "LOG_SUFFIX"]
 
-#: Outcomes are written once this many are new (or at the end of a job).
+#: Outcomes are written once this many are new (or when *force* is given).
 GIVE_AT = 8
+#: The logs in the folder end so; a worker's is named by its process id.
+LOG_SUFFIX = ".outcomes"
+_HEAD = struct.Struct("<Q")
+
+
+class _Peer:
+    """Another worker's log, read from where the last look stopped."""
+
+    def __init__(self, path: str):
+        self.path = path
+        self.offset = 0
+        self.buffer = b""
+
+    def frames(self) -> list[bytes]:
+        try:
+            with open(self.path, "rb") as handle:
+                handle.seek(self.offset)
+                new = handle.read()
+        except OSError:
+            return []
+        self.offset += len(new)
+        data = self.buffer + new
+        out, at = [], 0
+        while len(data) - at >= _HEAD.size:
+            (size,) = _HEAD.unpack_from(data, at)
+            if len(data) - at - _HEAD.size < size:
+                break                               # still being written
+            out.append(data[at + _HEAD.size: at + _HEAD.size + size])
+            at += _HEAD.size + size
+        self.buffer = data[at:]
+        return out
 
 
 class Sharing:
     """One worker's side of the exchange in *folder* (made private by the batch)."""
 
-    def __init__(self, folder: str):
+    def __init__(self, folder: str, name: str | None = None):
         self.folder = folder
-        self.mine = f"{os.getpid()}-"
-        self.seen: set[str] = set()
-        self.count = 0
+        self.mine = f"{os.getpid() if name is None else name}{LOG_SUFFIX}"
+        self.peers: dict[str, _Peer] = {}
         self.waiting: list[tuple] = []
         outcomes.NOTING = True
 
     def take(self) -> int:
         """Keep what the other workers wrote since the last call; the number of outcomes taken."""
-        taken = 0
         try:
             names = [e.name for e in os.scandir(self.folder)]
         except OSError:
             return 0
         for name in names:
-            if name in self.seen or name.startswith(self.mine) or not name.endswith(".pickle"):
-                continue
-            self.seen.add(name)
-            try:
-                with open(os.path.join(self.folder, name), "rb") as handle:
-                    records = pickle.load(handle)
-            except (OSError, pickle.UnpicklingError, EOFError, AttributeError, ImportError):
-                continue
-            outcomes.adopt(records)
-            taken += len(records)
+            if name not in self.peers and name != self.mine and name.endswith(LOG_SUFFIX):
+                self.peers[name] = _Peer(os.path.join(self.folder, name))
+        taken = 0
+        for peer in self.peers.values():
+            for frame in peer.frames():
+                try:
+                    records = pickle.loads(frame)
+                except (pickle.UnpicklingError, EOFError, AttributeError, ImportError,
+                        ValueError, TypeError):
+                    continue
+                outcomes.adopt(records)
+                taken += len(records)
         return taken
 
     def give(self, force: bool = False) -> None:
-        """Write the outcomes learnt since the last call (once there are :data:`GIVE_AT`, or *force*)."""
+        """Append the outcomes learnt since the last call (once there are :data:`GIVE_AT`, or *force*)."""
         self.waiting += outcomes.take_new()
         if not self.waiting or (len(self.waiting) < GIVE_AT and not force):
             return
-        self.count += 1
-        name = f"{self.mine}{self.count:06d}.pickle"
-        tmp = os.path.join(self.folder, name + ".part")
-        try:
-            with open(tmp, "wb") as handle:
-                pickle.dump(self.waiting, handle, protocol=pickle.HIGHEST_PROTOCOL)
-            os.replace(tmp, os.path.join(self.folder, name))
-        except OSError:
-            try:
-                os.unlink(tmp)
-            except OSError:
-                pass
+        payload = pickle.dumps(self.waiting, protocol=pickle.HIGHEST_PROTOCOL)
         self.waiting = []
+        try:
+            fd = os.open(os.path.join(self.folder, self.mine),
+                         os.O_WRONLY | os.O_APPEND | os.O_CREAT | getattr(os, "O_BINARY", 0), 0o600)
+        except OSError:
+            return
+        try:
+            os.write(fd, _HEAD.pack(len(payload)) + payload)
+        except OSError:
+            pass
+        finally:
+            os.close(fd)
