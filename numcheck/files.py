@@ -16,6 +16,7 @@ its size limit.
 
 from __future__ import annotations
 
+import errno
 import itertools
 import os
 import stat
@@ -29,7 +30,7 @@ from .errors import LimitError, NumcheckError
 __all__ = ["OutputError", "InputFileError", "write_atomic", "write_pending", "commit_pending",
            "discard_pending", "check_target", "check_distinct", "same_file", "check_input_file",
            "read_input_file",
-           "sweep_stale_temporaries", "TEMP_MARK", "display_name", "short"]
+           "sweep_stale_temporaries", "pid_alive", "TEMP_MARK", "display_name", "short"]
 
 #: Every temporary file numcheck writes is named ``.<target>.numcheck-<pid>-<random>.tmp``.
 TEMP_MARK = ".numcheck-"
@@ -183,7 +184,8 @@ def short(text: str, width: int | None = None) -> str:
     return text if len(text) <= width else text[: max(1, width - 1)] + "…"
 
 
-def _pid_alive(pid: int) -> bool:
+def pid_alive(pid: int) -> bool:
+    """Whether a process *pid* is running (one this user may not signal counts as running)."""
     try:
         os.kill(pid, 0)
     except ProcessLookupError:
@@ -218,7 +220,7 @@ def sweep_stale_temporaries(folder: str | os.PathLike, name: str | None = None) 
             if not entry.is_file(follow_symlinks=False):
                 continue
             old = now - entry.stat(follow_symlinks=False).st_mtime > limits.STALE_TEMP_SECONDS
-            dead = pid_text.isdigit() and int(pid_text) != os.getpid() and not _pid_alive(int(pid_text))
+            dead = pid_text.isdigit() and int(pid_text) != os.getpid() and not pid_alive(int(pid_text))
             if old or dead:
                 os.unlink(entry.path)
                 removed.append(n)
@@ -280,9 +282,11 @@ def check_target(path: str | os.PathLike) -> None:
                           "a pipe); give a file path.")
 
 
-def _temporary(target: Path, payload: bytes, *, sync: bool) -> str:
-    """A temporary file beside *target* holding *payload* (on the disk when *sync*); its path."""
-    folder = os.fspath(target.parent) if str(target.parent) else "."
+def _temporary(target: Path, payload: bytes, *, sync: bool, folder: str | None = None) -> str:
+    """A temporary file beside *target* (or in *folder*) holding *payload* (on the disk when
+    *sync*); its path."""
+    if folder is None:
+        folder = os.fspath(target.parent) if str(target.parent) else "."
     stem = os.path.join(folder, f".{target.name}{TEMP_MARK}{os.getpid()}-{_token()}")
     while True:
         tmp = f"{stem}{next(_SERIAL)}.tmp"
@@ -327,18 +331,20 @@ def _unlink(path: str) -> None:
         pass
 
 
-def write_pending(path: str | os.PathLike, data: bytes) -> str:
-    """Write *data* to a temporary file beside *path*, to be renamed later; its path.
+def write_pending(path: str | os.PathLike, data: bytes, folder: str | None = None) -> str:
+    """Write *data* to a temporary file beside *path* (or in *folder*), to be renamed later; its path.
 
     The first half of :func:`write_atomic` for a batch: many outputs are
     written so, then made durable together by one :func:`commit_pending`
-    (one flush of the file system instead of one per file).  The folder must
-    exist and *path* must not be a folder or a device (:func:`write_atomic`
-    checks it; a batch checks its folders once).  A temporary file that is
-    never committed is removed by :func:`discard_pending`, or swept as stale
-    by the next run once its process is gone.
+    (one flush of the file system instead of one per file).  A batch's
+    worker writes into a *folder* of its own (workers creating files in one
+    folder wait on each other).  The folder must exist and *path* must not
+    be a folder or a device (:func:`write_atomic` checks it; a batch checks
+    its folders once).  A temporary file that is never committed is removed
+    by :func:`discard_pending`, or swept as stale by the next run once its
+    process is gone.
     """
-    return _temporary(Path(path), bytes(data), sync=False)
+    return _temporary(Path(path), bytes(data), sync=False, folder=folder)
 
 
 def commit_pending(pending: Iterable[tuple[str, str | os.PathLike]]) -> None:
@@ -347,8 +353,9 @@ def commit_pending(pending: Iterable[tuple[str, str | os.PathLike]]) -> None:
     *pending* holds ``(temporary, target)`` pairs.  The data reach the disk
     before any rename (one ``syncfs`` for each file system, where the system
     has it, else one ``fsync`` for each file), so that a power cut leaves
-    each target either as it was or whole.  On an error the temporaries not
-    yet renamed are removed and the error is raised.
+    each target either as it was or whole.  A target on another file system
+    than its temporary is written by :func:`write_atomic`.  On an error the
+    temporaries not yet renamed are removed and the error is raised.
     """
     pending = list(pending)
     renamed = 0
@@ -356,7 +363,14 @@ def commit_pending(pending: Iterable[tuple[str, str | os.PathLike]]) -> None:
         if pending:
             _sync_all([tmp for tmp, _ in pending])
         for tmp, target in pending:
-            os.replace(tmp, target)
+            try:
+                os.replace(tmp, target)
+            except OSError as err:
+                if err.errno != errno.EXDEV:
+                    raise
+                with open(tmp, "rb") as handle:
+                    write_atomic(target, handle.read(), sweep=False)
+                _unlink(tmp)
             renamed += 1
     except BaseException:
         discard_pending(pending[renamed:])

@@ -3,6 +3,7 @@
 import hashlib
 import io
 import json
+import os
 import shutil
 from pathlib import Path
 
@@ -318,3 +319,81 @@ def test_asking_how_the_pool_starts_leaves_the_choice_to_the_program():
     before = multiprocessing.get_start_method(allow_none=True)
     batch._forks()
     assert multiprocessing.get_start_method(allow_none=True) == before
+
+
+def _accounts(folder, n):
+    folder.mkdir(parents=True, exist_ok=True)
+    for i in range(n):
+        (folder / f"acc{i:03d}.xml").write_text(
+            '<TEI xmlns="http://www.tei-c.org/ns/1.0"><text><body><ab xml:lang="grc">'
+            f'<num value="{i + 1}">{"αβγδεϛζηθ"[i % 9]}</num></ab></body></text></TEI>',
+            encoding="utf-8")
+
+
+def _left_over(folder):
+    return sorted(p.name for p in folder.rglob("*")
+                  if p.name.startswith(batch.STAGING_PREFIX) or p.name.endswith(".tmp"))
+
+
+@pytest.mark.parametrize("workers", [1, 2])
+def test_a_run_leaves_no_staging_folder_nor_temporary(tmp_path, workers):
+    _accounts(tmp_path / "in", batch.POOL_MIN_FILES + 4)
+    result = batch.annotate_folder(tmp_path / "in", tmp_path / "out", workers=workers)
+    assert result.summary["files"] == batch.POOL_MIN_FILES + 4
+    assert _left_over(tmp_path / "out") == []
+    assert 'value="3"' in (tmp_path / "out" / "acc002.xml").read_text(encoding="utf-8")
+
+
+def test_ctrl_c_commits_the_outputs_of_what_finished(tmp_path, monkeypatch):
+    _accounts(tmp_path / "in", 12)
+    real, calls = batch._annotate_one, []
+
+    def stop_at_sixth(job):
+        calls.append(job[0])
+        if len(calls) == 6:
+            raise KeyboardInterrupt
+        return real(job)
+
+    monkeypatch.setattr(batch, "_annotate_one", stop_at_sixth)
+    with pytest.raises(KeyboardInterrupt):
+        batch.annotate_folder(tmp_path / "in", tmp_path / "out", workers=1)
+    written = sorted(p.name for p in (tmp_path / "out").glob("*.xml"))
+    assert written == [f"acc{i:03d}.xml" for i in range(5)]
+    assert _left_over(tmp_path / "out") == []
+    monkeypatch.setattr(batch, "_annotate_one", real)
+    again = batch.annotate_folder(tmp_path / "in", tmp_path / "out", workers=1)
+    assert again.resumed == 5 and again.summary["files"] == 12
+
+
+def test_a_killed_runs_staging_folder_is_swept(tmp_path):
+    _accounts(tmp_path / "in", 2)
+    stale = tmp_path / "out" / f"{batch.STAGING_PREFIX}{2**22 + 3}-abc" / str(2**22 + 4)
+    stale.mkdir(parents=True)
+    (stale / ".acc000.xml.numcheck-1-x.tmp").write_bytes(b"half")
+    live = tmp_path / "out" / f"{batch.STAGING_PREFIX}{os.getppid()}-def"
+    live.mkdir()
+    batch.annotate_folder(tmp_path / "in", tmp_path / "out", workers=1)
+    assert not stale.parent.exists() and live.exists()
+
+
+def test_a_worker_stopped_midway_removes_its_pending_outputs(tmp_path):
+    from numcheck.files import write_pending
+
+    made = []
+
+    def worker(job):
+        if job == ("c",):
+            raise SystemExit(143)                   # SIGTERM from the parent
+        tmp = write_pending(tmp_path / f"{job[0]}.xml", b"x")
+        made.append(tmp)
+        return {"file": job[0]}, ((tmp, str(tmp_path / f"{job[0]}.xml")),)
+
+    with pytest.raises(SystemExit):
+        batch._run_chunk(worker, [(("a",), [1, 2]), (("b",), [1, 2]), (("c",), [1, 2])])
+    assert len(made) == 2 and list(tmp_path.iterdir()) == []
+
+
+def test_chunks_are_small_enough_for_every_worker_to_get_many():
+    assert batch._chunk_size(3, 2) == 1
+    assert batch._chunk_size(1000, 2) == 16
+    assert batch._chunk_size(100, 2) == 6

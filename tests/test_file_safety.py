@@ -61,7 +61,13 @@ def watch(monkeypatch, corpus):
         return real_os_open(path, flags, *args, **kwargs)
 
     def recording_replace(src, dst, *args, **kwargs):
-        assert Path(src).parent.resolve() == Path(dst).parent.resolve(), "temporary file in another folder"
+        # Beside its target, or in a batch worker's staging folder in the output folder
+        # (the same file system: the rename is atomic).
+        folder = Path(src).parent.resolve()
+        staged = folder.parent.name.startswith(".numcheck-staging-") and \
+            folder.parent.parent in Path(dst).resolve().parents
+        assert staged or folder == Path(dst).parent.resolve(), "temporary file in another folder"
+        assert os.stat(folder).st_dev == os.stat(Path(dst).parent).st_dev
         renamed.append(os.path.realpath(dst))
         return real_replace(src, dst, *args, **kwargs)
 

@@ -166,3 +166,66 @@ def test_a_batch_sweeps_each_output_folder_once(tmp_path):
     assert not any(p.exists() for p in dead)
     assert live.exists()
     assert "12" in (out / "sub" / "b.xml").read_text(encoding="utf-8")
+
+
+# -- outputs written pending and committed in groups (a batch: issue 20) ------
+
+def test_pending_outputs_appear_only_when_committed(tmp_path):
+    from numcheck.files import commit_pending, write_pending
+
+    (tmp_path / "b.xml").write_text("old", encoding="utf-8")
+    stage = tmp_path / "stage"
+    stage.mkdir()
+    pending = [(write_pending(tmp_path / "a.xml", b"new a"), tmp_path / "a.xml"),
+               (write_pending(tmp_path / "b.xml", b"new b", str(stage)), tmp_path / "b.xml")]
+    assert not (tmp_path / "a.xml").exists()
+    assert (tmp_path / "b.xml").read_text(encoding="utf-8") == "old"
+    commit_pending(pending)
+    assert (tmp_path / "a.xml").read_bytes() == b"new a"
+    assert (tmp_path / "b.xml").read_bytes() == b"new b"
+    assert sorted(p.name for p in tmp_path.iterdir()) == ["a.xml", "b.xml", "stage"]
+    assert list(stage.iterdir()) == []
+    umask = os.umask(0)
+    os.umask(umask)
+    assert (tmp_path / "a.xml").stat().st_mode & 0o777 == 0o666 & ~umask
+
+
+def test_a_failed_commit_removes_what_it_did_not_rename(tmp_path):
+    from numcheck.files import commit_pending, write_pending
+
+    (tmp_path / "folder.xml").mkdir()               # a target that cannot be replaced
+    pending = [(write_pending(tmp_path / n, b"x"), tmp_path / n)
+               for n in ("a.xml", "folder.xml", "c.xml")]
+    with pytest.raises(OSError):
+        commit_pending(pending)
+    assert (tmp_path / "a.xml").read_bytes() == b"x"
+    assert sorted(p.name for p in tmp_path.iterdir()) == ["a.xml", "folder.xml"]
+
+
+def test_a_target_on_another_file_system_is_still_written_whole(tmp_path, monkeypatch):
+    import errno
+
+    from numcheck.files import commit_pending, write_pending
+
+    real = os.replace
+    calls = []
+
+    def across(src, dst, *args, **kwargs):
+        calls.append(dst)
+        if len(calls) == 1:
+            raise OSError(errno.EXDEV, "Invalid cross-device link")
+        return real(src, dst, *args, **kwargs)
+
+    monkeypatch.setattr(os, "replace", across)
+    commit_pending([(write_pending(tmp_path / "a.xml", b"whole"), tmp_path / "a.xml")])
+    assert (tmp_path / "a.xml").read_bytes() == b"whole"
+    assert [p.name for p in tmp_path.iterdir()] == ["a.xml"]
+
+
+def test_discarded_pending_outputs_leave_nothing(tmp_path):
+    from numcheck.files import discard_pending, write_pending
+
+    pending = [(write_pending(tmp_path / "a.xml", b"x"), tmp_path / "a.xml")]
+    discard_pending(pending)
+    discard_pending(pending)                        # twice: nothing to remove, no error
+    assert list(tmp_path.iterdir()) == []

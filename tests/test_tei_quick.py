@@ -17,6 +17,7 @@ from hypothesis import strategies as st
 from numcheck.errors import NumcheckError
 from numcheck.tei import annotation, outcomes, quick
 from numcheck.tei.markup import parse_tei
+from numcheck.tei.survey import XML_LANG
 
 from test_tei_outcomes import CASES
 
@@ -162,3 +163,40 @@ def test_random_files_annotate_the_same_either_way(parts):
         outcomes.ENABLED = saved
     root = parse_tei("doc.xml", data)
     assert len(quick._spans(data.decode("utf-8"))) == len(list(root.iter(f"{{{TEI}}}num")))
+
+
+_NESTED = st.recursive(
+    st.sampled_from(_SNIPPETS + ["x", "<lb/>", "<!-- c -->", "<?pi x?>", '<numeral n="1"/>']),
+    lambda inner: st.tuples(st.sampled_from([None, "grc", "la"]), st.lists(inner, max_size=4)).map(
+        lambda t: (f'<seg xml:lang="{t[0]}">' if t[0] else "<seg>") + "".join(t[1]) + "</seg>"),
+    max_leaves=14)
+
+
+@settings(max_examples=200, deadline=None)
+@given(st.lists(_NESTED, min_size=1, max_size=6))
+def test_the_plain_split_and_the_languages_agree_with_the_tree(parts):
+    """The split by one expression, where it is taken, is the careful split; the languages
+    from the few xml:lang holders are those found by walking every number."""
+    data = _doc("<ab>" + "".join(parts) + "</ab>")
+    root = parse_tei("doc.xml", data)
+    text = data.decode("utf-8")
+    nums = list(root.iter(f"{{{TEI}}}num"))
+    careful = quick._split_careful(text, nums)
+    plain = quick._split_plain(text)
+    if plain is not None and len(plain) // 2 == len(nums):
+        assert plain == careful
+    if "<!--" not in text and "<?pi" not in text:
+        assert careful is not None and len(careful) // 2 == len(nums)
+    by_xpath = quick._langs(root, len(nums))
+    saved = quick._FEW_HOLDERS
+    try:
+        quick._FEW_HOLDERS = -1
+        by_walk = quick._langs(root, len(nums))
+    finally:
+        quick._FEW_HOLDERS = saved
+    expected = []
+    for el in nums:
+        holder = next((a for a in el.iterancestors() if a.get(XML_LANG) is not None), None)
+        expected.append(el.get(XML_LANG) if el.get(XML_LANG) is not None
+                        else holder.get(XML_LANG) if holder is not None else None)
+    assert by_xpath == by_walk == expected
