@@ -198,8 +198,33 @@ class Reading:
 
     @functools.cached_property
     def _bounds(self) -> tuple[Fraction, Fraction]:
+        if not self.has_gap:
+            lo, hi, _ = self._gapless_sums
+            return (lo, hi) if self.sign > 0 else (-hi, -lo)
         bounds = [r._bounds_gapless() for r in self.expansions()]
         return min(b[0] for b in bounds), max(b[1] for b in bounds)
+
+    @functools.cached_property
+    def _gapless_sums(self) -> tuple[Fraction, Fraction, Fraction]:
+        """The least, greatest and preferred place sums of a gapless reading (before its sign),
+        in one pass over whole slot values (:func:`place_sum` where a value is a fraction)."""
+        slots = self.counted_slots
+        base = self.base
+        low = min((s.place for s in slots), default=0)
+        shift = -low if low < 0 else 0
+        lo = hi = pref = 0
+        for s in slots:
+            a, b, p = s.values[0], s.values[-1], s.preferred
+            if a.denominator != 1 or b.denominator != 1 or p.denominator != 1:
+                return (place_sum(((s.values[0], s.place) for s in slots), base),
+                        place_sum(((s.values[-1], s.place) for s in slots), base),
+                        place_sum(((s.preferred, s.place) for s in slots), base))
+            weight = base ** (s.place + shift)
+            lo += a.numerator * weight
+            hi += b.numerator * weight
+            pref += p.numerator * weight
+        scale = base ** shift
+        return Fraction(lo, scale), Fraction(hi, scale), Fraction(pref, scale)
 
     @property
     def min(self) -> Fraction:
@@ -219,6 +244,8 @@ class Reading:
         restorations where given, lost digits at their lowest, a gap of
         unknown extent at its fewest places.
         """
+        if not self.has_gap:
+            return self.sign * self._gapless_sums[2]
         first = next(self.expansions())
         return self.sign * place_sum(((s.preferred, s.place) for s in first.counted_slots), self.base)
 

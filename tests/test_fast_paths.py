@@ -366,3 +366,38 @@ def test_greek_numbers_the_quick_path_leaves_to_the_reader(text):
     from numcheck.notations.greek.quick import plain_letters_reading
 
     assert plain_letters_reading(text, "greek", limits.MAX_PLACES) is None
+
+
+# -- a gapless Reading's bounds and value in one pass (numcheck.reading) -------
+
+_VALUE = st.one_of(st.integers(0, 70), st.fractions(min_value=0, max_value=5, max_denominator=12))
+
+
+@st.composite
+def _gapless(draw):
+    from fractions import Fraction
+
+    from numcheck.reading import Reading, Slot, Status
+
+    slots = []
+    for _ in range(draw(st.integers(0, 5))):
+        values = tuple(sorted({Fraction(v) for v in draw(st.lists(_VALUE, min_size=1, max_size=3))}))
+        editor = draw(st.sampled_from((None,) + values))
+        slots.append(Slot(values=values, place=draw(st.integers(-3, 3)), editor=editor,
+                          status=draw(st.sampled_from(list(Status)))))
+    return Reading(text="x", notation="sexagesimal", slots=tuple(slots),
+                   base=draw(st.sampled_from([10, 60])), sign=draw(st.sampled_from([1, -1])))
+
+
+@given(_gapless())
+def test_a_gapless_readings_bounds_and_value_are_the_place_sums(reading):
+    from numcheck.reading import place_sum
+
+    slots = reading.counted_slots
+    lo = place_sum(((s.values[0], s.place) for s in slots), reading.base)
+    hi = place_sum(((s.values[-1], s.place) for s in slots), reading.base)
+    pref = place_sum(((s.preferred, s.place) for s in slots), reading.base)
+    assert (reading.min, reading.max) == ((lo, hi) if reading.sign > 0 else (-hi, -lo))
+    assert reading.value == reading.sign * pref
+    values = list(reading.readings())
+    assert min(values) == reading.min and max(values) == reading.max

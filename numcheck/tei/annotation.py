@@ -502,6 +502,15 @@ def _remembered(text: str, notation: str, settings: tuple) -> Reading:
     return read(text, notation=notation)
 
 
+@functools.lru_cache(maxsize=8192)
+def _detected(plain: str) -> str:
+    """The notation :func:`~numcheck.notations.detect.detect_notation` finds for *plain*
+    (a function of the text alone), remembered."""
+    from ..notations.detect import detect_notation
+
+    return detect_notation(plain)[0]
+
+
 def _read_num(name, line, pieces, plain: str, notation: str | None, hint: str | None,
               settings: tuple | None = None):
     """Read a ``<num>``: in the notation given, else the one its letters suggest.
@@ -515,8 +524,7 @@ def _read_num(name, line, pieces, plain: str, notation: str | None, hint: str | 
     else:
         candidates = []
         if plain:
-            from ..notations.detect import detect_notation
-            candidates.append(detect_notation(plain)[0])
+            candidates.append(_detected(plain))
         if hint is not None and hint not in candidates:
             candidates.append(hint)
         if not candidates:
