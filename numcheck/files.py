@@ -388,7 +388,7 @@ def _sync_all(paths: list[str]) -> None:
     syncfs = _syncfs()
     if syncfs is None:
         for path in paths:
-            fd = os.open(path, os.O_RDONLY)
+            fd = os.open(path, os.O_RDWR | getattr(os, "O_BINARY", 0))     # Windows flushes only a writable file
             try:
                 os.fsync(fd)
             finally:

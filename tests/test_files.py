@@ -229,3 +229,28 @@ def test_discarded_pending_outputs_leave_nothing(tmp_path):
     discard_pending(pending)
     discard_pending(pending)                        # twice: nothing to remove, no error
     assert list(tmp_path.iterdir()) == []
+
+
+def test_without_syncfs_each_pending_output_is_flushed(tmp_path, monkeypatch):
+    from numcheck import files
+
+    flushed = []
+    real = os.fsync
+    monkeypatch.setattr(files, "_syncfs", lambda: None)            # a system without syncfs
+    monkeypatch.setattr(os, "fsync", lambda fd: (flushed.append(fd), real(fd)))
+    pending = [(files.write_pending(tmp_path / n, b"x"), tmp_path / n) for n in ("a.xml", "b.xml")]
+    files.commit_pending(pending)
+    assert len(flushed) == 2
+    assert sorted(p.name for p in tmp_path.iterdir()) == ["a.xml", "b.xml"]
+
+
+def test_a_failed_flush_renames_nothing_and_leaves_no_temporary(tmp_path, monkeypatch):
+    from numcheck import files
+
+    (tmp_path / "a.xml").write_text("old", encoding="utf-8")
+    monkeypatch.setattr(files, "_syncfs", lambda: (lambda fd: -1))    # the disk refused
+    pending = [(files.write_pending(tmp_path / "a.xml", b"new"), tmp_path / "a.xml")]
+    with pytest.raises(OSError):
+        files.commit_pending(pending)
+    assert (tmp_path / "a.xml").read_text(encoding="utf-8") == "old"
+    assert [p.name for p in tmp_path.iterdir()] == ["a.xml"]
