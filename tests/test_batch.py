@@ -397,3 +397,47 @@ def test_chunks_are_small_enough_for_every_worker_to_get_many():
     assert batch._chunk_size(3, 2) == 1
     assert batch._chunk_size(1000, 2) == 16
     assert batch._chunk_size(100, 2) == 6
+
+
+def test_an_annotate_pool_killed_midway_resumes_to_the_same_outputs(tmp_path):
+    """kill -9 of a run on 2 workers: every output the journal records is whole, what the
+    killed run left pending is swept, and the resumed run's outputs and summary are those
+    of an uninterrupted run."""
+    import signal
+    import subprocess
+    import sys
+    import time
+
+    _accounts(tmp_path / "in", 120)
+    whole = batch.annotate_folder(tmp_path / "in", tmp_path / "whole", workers=1)
+    env = dict(os.environ, PYTHONPATH=str(Path(batch.__file__).resolve().parents[1]))
+    args = ["annotate", str(tmp_path / "in"), "-o", str(tmp_path / "out"), "--workers", "2",
+            "--json"]
+    # Each file slowed a little, and a record every 10 files, so that the kill falls midway.
+    argv = [sys.executable, "-c",
+            "import time, numcheck.limits as L, numcheck.batch as b; L.BATCH_JOURNAL_ENTRIES = 10\n"
+            "real = b._annotate_one\n"
+            "def slow(job):\n    time.sleep(0.02)\n    return real(job)\n"
+            "b._annotate_one = slow\n"
+            f"from numcheck.cli import main; raise SystemExit(main({args!r}))"]
+    proc = subprocess.Popen(argv, stdout=subprocess.DEVNULL, stderr=subprocess.DEVNULL, env=env)
+    journal = tmp_path / "out" / batch.JOURNAL_DIR
+    deadline = time.monotonic() + 120
+    while time.monotonic() < deadline and len(list(journal.glob("part-*.jsonl"))) < 2:
+        time.sleep(0.02)
+    proc.send_signal(signal.SIGKILL)
+    proc.wait()
+    time.sleep(0.5)                               # the workers die with their parent
+    recorded = [json.loads(line)["rel"] for p in journal.glob("part-*.jsonl")
+                for line in p.read_text(encoding="utf-8").splitlines()]
+    assert 0 < len(recorded) < 120, len(recorded)
+    for rel in recorded:                          # recorded: written whole, as a full run writes it
+        assert (tmp_path / "out" / rel).read_bytes() == (tmp_path / "whole" / rel).read_bytes()
+    resumed = batch.annotate_folder(tmp_path / "in", tmp_path / "out", workers=2)
+    assert resumed.resumed == len(recorded)
+    assert resumed.summary == whole.summary
+    assert _left_over(tmp_path / "out") == []
+    for path in sorted((tmp_path / "whole").glob("*.xml")):
+        assert (tmp_path / "out" / path.name).read_bytes() == path.read_bytes()
+    assert (tmp_path / "out" / "numcheck-files.csv").read_bytes() == \
+        (tmp_path / "whole" / "numcheck-files.csv").read_bytes()
