@@ -109,18 +109,34 @@ def check_input_file(path: str | os.PathLike, *, max_bytes: int | None = None,
                            head_only=True)[0]
 
 
+def _refuse_kind(p: str, mode: int, a_what: str) -> None:
+    if stat.S_ISDIR(mode):
+        raise InputFileError(f"{short(str(p))!r} is a folder, not {a_what}.")
+    if not stat.S_ISREG(mode):
+        kind = ("a named pipe (FIFO)" if stat.S_ISFIFO(mode) else
+                "a character device" if stat.S_ISCHR(mode) else
+                "a block device" if stat.S_ISBLK(mode) else
+                "a socket" if stat.S_ISSOCK(mode) else "not a regular file")
+        raise InputFileError(f"{short(str(p))!r} is {kind}, not {a_what}: numcheck reads only "
+                             "regular files (a device or a pipe could be read for ever).")
+
+
 def read_input_file(path: str | os.PathLike, *, max_bytes: int | None = None,
                     what: str = "file", limit_name: str | None = None,
                     head_only: bool = False) -> tuple[int, bytes]:
     """The size and bytes of an input file, refused as :func:`check_input_file` says.
 
-    The file is opened once, without waiting (a FIFO opened so does not block
-    and is refused by its kind, read from the open file itself); with
-    *head_only* only its first 4096 bytes are read.
+    The kind is looked at before the file is opened and again on the open
+    file, which is opened once and without waiting (a FIFO that takes the
+    place of the file in between does not block); with *head_only* only its
+    first 4096 bytes are read.
     """
     p = os.fspath(path)
     a_what = ("an " if what[:1].lower() in "aeiou" or what.startswith("XML") else "a ") + what
     try:
+        # Its kind before it is opened (opening a device can do something), and again
+        # from the open file (the path may have changed in between).
+        _refuse_kind(p, os.stat(p).st_mode, a_what)
         fd = os.open(p, os.O_RDONLY | getattr(os, "O_NONBLOCK", 0) | getattr(os, "O_BINARY", 0))
     except FileNotFoundError:
         raise InputFileError(f"No such {what}: {short(str(p))!r}.") from None
@@ -132,16 +148,7 @@ def read_input_file(path: str | os.PathLike, *, max_bytes: int | None = None,
         raise InputFileError(f"Cannot read {short(str(p))!r}: {err.strerror or err}.") from None
     try:
         st = os.fstat(fd)
-        mode = st.st_mode
-        if stat.S_ISDIR(mode):
-            raise InputFileError(f"{short(str(p))!r} is a folder, not {a_what}.")
-        if not stat.S_ISREG(mode):
-            kind = ("a named pipe (FIFO)" if stat.S_ISFIFO(mode) else
-                    "a character device" if stat.S_ISCHR(mode) else
-                    "a block device" if stat.S_ISBLK(mode) else
-                    "a socket" if stat.S_ISSOCK(mode) else "not a regular file")
-            raise InputFileError(f"{short(str(p))!r} is {kind}, not {a_what}: numcheck reads only "
-                                 "regular files (a device or a pipe could be read for ever).")
+        _refuse_kind(p, st.st_mode, a_what)
         if max_bytes is not None and st.st_size > max_bytes:
             raise LimitError(f"size in bytes of {short(str(p))!r}", st.st_size, max_bytes,
                              f"Set numcheck.limits.{limit_name or 'MAX_TABLE_BYTES'} higher to read it.")
