@@ -411,10 +411,11 @@ def may_name_a_unit(text: str) -> bool:
     """False when no word of *text* can be a unit, a mark or a zodiacal sign (a quick test).
 
     A unit word needs at least one of the characters the unit and sign names
-    are spelled with (after folding case and accents); Greek, Arabic or
-    cuneiform numerals alone have none, so they are not searched for units.
+    are spelled with (after folding case and accents), besides a full stop or
+    a hyphen; Greek, Arabic or cuneiform numerals alone have none, nor have
+    Leiden's brackets and dots, so they are not searched for units.
     """
-    return not _NAME_CHARS.isdisjoint(_fold(text))
+    return not _NAME_KEYS.isdisjoint(_fold(text))
 
 
 def zodiac_index(name_or_symbol: str) -> int:
@@ -447,3 +448,7 @@ def sign_longitude(degrees, sign: str) -> Fraction:
 
 #: Every character a unit or sign name is spelled with, folded (see may_name_a_unit).
 _NAME_CHARS = frozenset(c for key in (*_LOOKUP, *_ZODIAC_LOOKUP) for c in _fold(key) if not c.isspace())
+#: The characters of :data:`_NAME_CHARS` but the full stop and the hyphen: every name holds
+#: one of these (tests/test_units.py), so a text of numerals and Leiden marks (``ρκ[.]``)
+#: is not searched for a unit.
+_NAME_KEYS = _NAME_CHARS - frozenset(".-")

@@ -132,3 +132,14 @@ def test_doctests():
     import numcheck.units
 
     assert doctest.testmod(numcheck.units).failed == 0
+
+
+def test_every_unit_and_sign_name_holds_a_character_the_quick_test_looks_for():
+    """units.may_name_a_unit passes over a text without one of these (ρκ[.] has none): no
+    name may be spelled with full stops and hyphens alone."""
+    from numcheck import units
+
+    for key in (*units._LOOKUP, *units._ZODIAC_LOOKUP):
+        assert not units._NAME_KEYS.isdisjoint(units._fold(key)), key
+    assert not units.may_name_a_unit("ρκ[.]") and not units.may_name_a_unit("[..]-ιβ")
+    assert units.may_name_a_unit("12 d.") and units.may_name_a_unit("κ° λʹ")

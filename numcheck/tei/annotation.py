@@ -478,7 +478,8 @@ DOCUMENTARY_GREEK = "greek-documentary"
 
 
 def _read_once(text: str, notation: str, settings: tuple | None = None) -> Reading:
-    """``read(text, notation=notation)``, remembered: a corpus writes the same numbers again and again.
+    """``read(text, notation=notation)`` with no warning raised, remembered: a corpus writes
+    the same numbers again and again.
 
     A Reading is immutable and read() a function of its text, its notation
     and the limits in force (*settings*, part of the key), so a remembered
@@ -499,7 +500,11 @@ _LIMIT_NAMES: list[str] = []
 
 @functools.lru_cache(maxsize=8192)
 def _remembered(text: str, notation: str, settings: tuple) -> Reading:
-    return read(text, notation=notation)
+    with warnings.catch_warnings():
+        # How odd letters were read is kept in reading.warnings, one per
+        # number, not raised once per <num> of a long file.
+        warnings.simplefilter("ignore", NumcheckWarning)
+        return read(text, notation=notation)
 
 
 @functools.lru_cache(maxsize=8192)
@@ -540,11 +545,7 @@ def _read_num(name, line, pieces, plain: str, notation: str | None, hint: str | 
     for chosen in candidates:
         text = leiden_text(pieces, chosen)
         try:
-            with warnings.catch_warnings():
-                # How odd letters were read is kept in reading.warnings, one
-                # per number, not raised once per <num> of a long file.
-                warnings.simplefilter("ignore", NumcheckWarning)
-                return _read_once(text, chosen, settings), text
+            return _read_once(text, chosen, settings), text
         except NumcheckError as err:
             if first_error is None:
                 first_error = (chosen, text, err)

@@ -44,8 +44,11 @@ def is_unit_fraction(el, reading: Reading, existing: dict) -> bool:
     if (el.get("type") or "").strip().lower() == "fraction":
         return True
     if "value" in existing:
+        text = existing["value"].strip()
+        if text.isascii() and text.isdigit():
+            return False                # a whole number: no unit fraction
         try:
-            written = Fraction(existing["value"].strip())
+            written = Fraction(text)
         except (ValueError, ZeroDivisionError):
             return False
         return 0 < written < 1 and (1 / written).denominator == 1 and \
