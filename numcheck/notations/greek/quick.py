@@ -32,6 +32,12 @@ _PLAIN = re.compile(f"{_GROUP}(?: {_GROUP})*")
 #: One letter and its dot, if any.
 _SIGN = re.compile("." + _DOT + "?")
 
+#: The slots made so far, by (letter with its dot, place, start, group): a slot is a value
+#: (immutable), so numbers with the same letter at the same place share one.  The group
+#: fixes its kind (the first is the whole number, the others places).
+_SLOTS: dict[tuple, Slot] = {}
+_SLOTS_KEPT = 20_000
+
 #: The most a sexagesimal place holds.
 _PLACE_MAX = 59
 
@@ -60,11 +66,18 @@ def plain_letters_reading(text: str, notation: str, max_signs: int) -> Reading |
                 return None        # an error, or the zero typed as omicron
             gkind, place = "place", -index
         for sign, v in zip(group, values):
-            slots.append(Slot(values=(Fraction(v),), place=place,
-                              status=Status.DOUBTFUL if len(sign) > 1 else Status.READ,
-                              text=sign, span=(start, start + len(sign)),
-                              form=(Form(group=index, gkind=gkind, role="letter",
-                                         pieces=((CANONICAL[v] + sign[1:], None),)),)))
+            key = (sign, place, start, index)
+            slot = _SLOTS.get(key)
+            if slot is None:
+                if len(_SLOTS) >= _SLOTS_KEPT:
+                    _SLOTS.clear()
+                slot = _SLOTS[key] = Slot(
+                    values=(Fraction(v),), place=place,
+                    status=Status.DOUBTFUL if len(sign) > 1 else Status.READ,
+                    text=sign, span=(start, start + len(sign)),
+                    form=(Form(group=index, gkind=gkind, role="letter",
+                               pieces=((CANONICAL[v] + sign[1:], None),)),))
+            slots.append(slot)
             start += len(sign)
         start += 1
     return Reading(text=text, notation=notation, slots=tuple(slots), base=60, warnings=())
