@@ -87,3 +87,13 @@ def test_an_unreadable_exchange_log_is_passed_over(tmp_path, noting):
     (tmp_path / "8.other").write_bytes(b"half")
     s = sharing.Sharing(str(tmp_path))
     assert s.take() == 0
+
+
+def test_a_worker_that_starts_late_is_heard_from_within_a_few_looks(tmp_path, noting):
+    a = sharing.Sharing(str(tmp_path), name="1")
+    assert a.take() == 0                        # no other log yet
+    frame = pickle.dumps([((None, False, ()), "grc", "<num>1</num>", None)])
+    (tmp_path / ("2" + sharing.LOG_SUFFIX)).write_bytes(struct.pack("<Q", len(frame)) + frame)
+    taken = [a.take() for _ in range(sharing.LOOK_EVERY)]
+    assert sum(taken) == 1
+    a.close()

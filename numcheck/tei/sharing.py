@@ -23,32 +23,38 @@ import struct
 
 from . import outcomes
 
-__all__ = ["Sharing", "GIVE_AT", "LOG_SUFFIX"]
+__all__ = ["Sharing", "GIVE_AT", "LOG_SUFFIX", "LOOK_EVERY"]
 
 #: Outcomes are written once this many are new (or when *force* is given).
 GIVE_AT = 8
+#: The folder is looked at for new logs at every this many calls of Sharing.take.
+LOOK_EVERY = 8
 #: The logs in the folder end so; a worker's is named by its process id.
 LOG_SUFFIX = ".outcomes"
 _HEAD = struct.Struct("<Q")
 
 
 class _Peer:
-    """Another worker's log, read from where the last look stopped."""
+    """Another worker's log, read on from where the last look stopped (kept open)."""
 
     def __init__(self, path: str):
         self.path = path
-        self.offset = 0
+        self.fd: int | None = None
         self.buffer = b""
 
     def frames(self) -> list[bytes]:
         try:
-            with open(self.path, "rb") as handle:
-                handle.seek(self.offset)
-                new = handle.read()
+            if self.fd is None:
+                self.fd = os.open(self.path, os.O_RDONLY | getattr(os, "O_BINARY", 0))
+            chunks = []
+            while True:
+                chunk = os.read(self.fd, 1 << 20)
+                if not chunk:
+                    break
+                chunks.append(chunk)
         except OSError:
             return []
-        self.offset += len(new)
-        data = self.buffer + new
+        data = self.buffer + b"".join(chunks) if chunks else self.buffer
         out, at = [], 0
         while len(data) - at >= _HEAD.size:
             (size,) = _HEAD.unpack_from(data, at)
@@ -59,6 +65,11 @@ class _Peer:
         self.buffer = data[at:]
         return out
 
+    def close(self) -> None:
+        if self.fd is not None:
+            os.close(self.fd)
+            self.fd = None
+
 
 class Sharing:
     """One worker's side of the exchange in *folder* (made private by the batch)."""
@@ -67,18 +78,24 @@ class Sharing:
         self.folder = folder
         self.mine = f"{os.getpid() if name is None else name}{LOG_SUFFIX}"
         self.peers: dict[str, _Peer] = {}
+        self.calls = 0
         self.waiting: list[tuple] = []
         outcomes.NOTING = True
 
     def take(self) -> int:
-        """Keep what the other workers wrote since the last call; the number of outcomes taken."""
-        try:
-            names = [e.name for e in os.scandir(self.folder)]
-        except OSError:
-            return 0
-        for name in names:
-            if name not in self.peers and name != self.mine and name.endswith(LOG_SUFFIX):
-                self.peers[name] = _Peer(os.path.join(self.folder, name))
+        """Keep what the other workers wrote since the last call; the number of outcomes taken.
+
+        The folder is looked at for new logs at every :data:`LOOK_EVERY` th call only
+        (the first included): a worker that starts late is heard from a little later."""
+        if self.calls % LOOK_EVERY == 0:
+            try:
+                names = [e.name for e in os.scandir(self.folder)]
+            except OSError:
+                names = []
+            for name in names:
+                if name not in self.peers and name != self.mine and name.endswith(LOG_SUFFIX):
+                    self.peers[name] = _Peer(os.path.join(self.folder, name))
+        self.calls += 1
         taken = 0
         for peer in self.peers.values():
             for frame in peer.frames():
@@ -109,3 +126,8 @@ class Sharing:
             pass
         finally:
             os.close(fd)
+
+    def close(self) -> None:
+        """Close the other workers' logs (a worker's process ending closes them too)."""
+        for peer in self.peers.values():
+            peer.close()
