@@ -51,6 +51,7 @@ from .files import (OutputError, check_distinct, check_target, commit_pending, d
                     write_pending)
 
 __all__ = ["BatchResult", "annotate_folder", "audit_folder", "find_files", "POOL_MIN_FILES",
+           "ANNOTATE_SUFFIXES",
            "TABLE_SUFFIXES", "write_index", "display_name", "machine_workers",
            "SUMMARY_FILES"]
 
@@ -58,6 +59,9 @@ __all__ = ["BatchResult", "annotate_folder", "audit_folder", "find_files", "POOL
 POOL_MIN_FILES = 8
 #: Workers of the pool when none are asked for: the cores the machine gives this process.
 DEFAULT_WORKERS = None
+#: The files ``annotate_folder`` reads: TEI files, and ATF transliterations (listed as TSV).
+ATF_SUFFIX = ".atf"
+ANNOTATE_SUFFIXES = (".xml", ATF_SUFFIX)
 #: The files ``audit_folder`` treats as tables.
 TABLE_SUFFIXES = (".tsv", ".csv", ".xml")   # .xml: the first TEI <table> (numcheck.tables)
 #: The summary files of a batch run (in the summary folder).
@@ -518,8 +522,11 @@ def _annotate_one(job: tuple) -> tuple[dict, tuple]:
         check_target(dst)
         if shared is not None:
             shared.take()
-        out_bytes, fields = annotate_entry(src, alternatives=alternatives, fix=fix,
-                                           notation=notation)
+        if src.lower().endswith(ATF_SUFFIX):
+            out_bytes, fields = _atf_entry(src, notation)
+        else:
+            out_bytes, fields = annotate_entry(src, alternatives=alternatives, fix=fix,
+                                               notation=notation)
         if shared is not None:
             shared.give()
         # annotate_folder swept the output folders of stale temporaries once;
@@ -530,6 +537,21 @@ def _annotate_one(job: tuple) -> tuple[dict, tuple]:
         return entry, ()
     entry.update(fields)
     return entry, pending
+
+
+def _atf_entry(src: str, notation: str | None) -> tuple[bytes, dict]:
+    """The TSV listing of the ATF file *src* (what ``annotate FILE.atf -o`` writes) and its
+    batch fields: every number word read, the input never changed."""
+    from .atf.annotate import atf_listing, read_atf_file
+
+    if notation not in (None, "atf", "atf-math"):
+        raise NumcheckError(f"An ATF file is read in the notation atf (or atf-math for "
+                            f"mathematical texts), not {notation!r}; this one was left out.")
+    result = read_atf_file(src, math=notation == "atf-math")
+    d = result.to_dict()
+    fields = {"format": "atf", "numbers": d["numbers"], "damaged": d["damaged"], "flagged": 0,
+              "restored": 0, "unreadable": d["unread"]}
+    return atf_listing(result).encode("utf-8"), fields
 
 
 #: In a pool worker: its side of the exchange of outcomes (:mod:`.tei.sharing`), by folder.
@@ -604,6 +626,10 @@ def annotate_folder(in_dir: str | os.PathLike, out_dir: str | os.PathLike, *,
                     fresh: bool = False) -> BatchResult:
     """Annotate every ``.xml`` file under *in_dir* into the same place under *out_dir*.
 
+    An ATF transliteration (``.atf``) gets the listing of its number words
+    (what ``annotate FILE.atf -o`` writes) as ``<name>.atf.tsv`` there; the
+    notation, if given, must then be ``atf`` or ``atf-math``.
+
     *out_dir* must be apart from *in_dir*: not the same folder, not inside
     it, not holding it (inputs are never written over); this is checked
     before any work.  A folder without a single ``.xml`` file is an error.  A
@@ -615,13 +641,15 @@ def annotate_folder(in_dir: str | os.PathLike, out_dir: str | os.PathLike, *,
     _prepare(src_root, dst_root, "output folder")
     sdir = Path(summary_dir) if summary_dir is not None else dst_root
     _prepare(src_root, sdir, "summary folder")
-    files = find_files(src_root, (".xml",))
+    files = find_files(src_root, ANNOTATE_SUFFIXES)
     if not files:
-        raise _no_files(src_root, (".xml",))
+        raise _no_files(src_root, ANNOTATE_SUFFIXES)
     dst_root.mkdir(parents=True, exist_ok=True)
     sdir.mkdir(parents=True, exist_ok=True)
     rels = [path.relative_to(src_root).as_posix() for path in files]
-    targets = [str(dst_root / rel) for rel in rels]
+    # An ATF file gets its listing beside it, named after it (tablet.atf -> tablet.atf.tsv).
+    targets = [str(dst_root / (rel + ".tsv" if rel.lower().endswith(ATF_SUFFIX) else rel))
+               for rel in rels]
     refused = _output_folders(src_root, targets)
     _sweep_staging(dst_root)
     staging = tempfile.mkdtemp(prefix=f"{STAGING_PREFIX}{os.getpid()}-", dir=dst_root)

@@ -441,3 +441,46 @@ def test_an_annotate_pool_killed_midway_resumes_to_the_same_outputs(tmp_path):
         assert (tmp_path / "out" / path.name).read_bytes() == path.read_bytes()
     assert (tmp_path / "out" / "numcheck-files.csv").read_bytes() == \
         (tmp_path / "whole" / "numcheck-files.csv").read_bytes()
+
+
+_REAL_ATF = Path(__file__).resolve().parents[1].parent / "shared" / "realdata" / "atf"
+
+
+@pytest.mark.skipif(not _REAL_ATF.is_dir(), reason="../shared/realdata/atf is not here")
+@pytest.mark.parametrize("workers", [1, 2])
+def test_a_folder_of_published_atf_files_is_listed_file_by_file(tmp_path, workers):
+    """annotate DIR on the ATF transliterations as CDLI and ePSD2 publish them (read in
+    place): each gets the very listing annotate FILE.atf -o writes, and its counts."""
+    from numcheck.atf import annotate_atf
+
+    result = batch.annotate_folder(_REAL_ATF, tmp_path / "out", workers=workers)
+    names = sorted(p.name for p in _REAL_ATF.glob("*.atf"))
+    assert [f["file"] for f in result.files] == names
+    for entry, name in zip(result.files, names):
+        single = annotate_atf(_REAL_ATF / name, tmp_path / f"{name}.single.tsv")
+        listing = tmp_path / "out" / f"{name}.tsv"
+        assert listing.read_bytes() == (tmp_path / f"{name}.single.tsv").read_bytes()
+        d = single.to_dict()
+        assert (entry["numbers"], entry["damaged"], entry["unreadable"]) == \
+            (d["numbers"], d["damaged"], d["unread"])
+        assert entry["format"] == "atf" and "error" not in entry
+    assert result.summary["numbers"] == sum(f["numbers"] for f in result.files) > 0
+
+
+def test_a_folder_of_tei_and_atf_files_does_both(tmp_path):
+    src = tmp_path / "in"
+    _accounts(src, 2)
+    # An invented tablet (common practice of CDLI transliteration: 1(u) 2(disz) is 12).
+    (src / "tablet.atf").write_text("&P000001 = Invented tablet\n#atf: lang sux\n@obverse\n"
+                                    "1. 1(u) 2(disz) sze gur\n", encoding="utf-8")
+    result = batch.annotate_folder(src, tmp_path / "out", workers=1)
+    by_file = {f["file"]: f for f in result.files}
+    assert set(by_file) == {"acc000.xml", "acc001.xml", "tablet.atf"}
+    listing = (tmp_path / "out" / "tablet.atf.tsv").read_text(encoding="utf-8").splitlines()
+    assert listing[1].split("\t")[2:4] == ["1(u) 2(disz)", "12"]
+    assert by_file["tablet.atf"]["numbers"] == 1
+    assert 'value="1"' in (tmp_path / "out" / "acc000.xml").read_text(encoding="utf-8")
+    # A Greek notation is no notation of ATF: that file is reported, the others done.
+    greek = batch.annotate_folder(src, tmp_path / "out2", workers=1, notation="greek")
+    by_file = {f["file"]: f for f in greek.files}
+    assert "atf" in by_file["tablet.atf"]["error"] and "error" not in by_file["acc000.xml"]

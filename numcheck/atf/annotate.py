@@ -18,7 +18,8 @@ from ..reading import Status, exact_text
 from .lines import text_lines
 from .words import number_words
 
-__all__ = ["AtfAnnotation", "annotate_atf", "read_atf_text"]
+__all__ = ["AtfAnnotation", "annotate_atf", "read_atf_file", "read_atf_text", "atf_listing",
+           "LISTING_COLUMNS"]
 
 _MARK_NAMES = (("#", "damaged"), ("?", "uncertain"), ("!", "corrected"), ("*", "collated"))
 
@@ -121,6 +122,16 @@ def annotate_atf(path, output=None, *, math: bool = False) -> AtfAnnotation:
     ``#atf: use math`` does for the texts that declare it.
     """
     from ..files import check_distinct, write_atomic
+
+    result = read_atf_file(path, math=math)
+    if output:
+        check_distinct(Path(path), output)
+        result.output = str(write_atomic(output, atf_listing(result)))
+    return result
+
+
+def read_atf_file(path, *, math: bool = False) -> AtfAnnotation:
+    """:func:`read_atf_text` of the file *path* (checked as an input: kind, size, encoding)."""
     from ..tables.text import read_text_file
 
     src = Path(path)
@@ -128,13 +139,18 @@ def annotate_atf(path, output=None, *, math: bool = False) -> AtfAnnotation:
         source = read_text_file(src)
     except NumcheckError as err:
         raise NumcheckError(str(err).replace("table", "ATF file")) from None
-    result = read_atf_text(source, str(src), math=math)
-    if output:
-        check_distinct(src, output)
-        rows = ["text_id\tlabel\tword\tvalue\tmin\tmax\tstatus\tunit\tnote"]
-        for n in result.numbers:
-            rows.append("\t".join(str(x) for x in (
-                n["text_id"], n["label"], n["word"], n.get("value", ""), n.get("min", ""),
-                n.get("max", ""), n["status"], n.get("unit", ""), n.get("error", ""))))
-        result.output = str(write_atomic(output, "\n".join(rows) + "\n"))
-    return result
+    return read_atf_text(source, str(src), math=math)
+
+
+#: The columns of the TSV listing of an ATF file.
+LISTING_COLUMNS = ("text_id", "label", "word", "value", "min", "max", "status", "unit", "note")
+
+
+def atf_listing(result: AtfAnnotation) -> str:
+    """The TSV listing of *result*: one row per number word (:data:`LISTING_COLUMNS`)."""
+    rows = ["\t".join(LISTING_COLUMNS)]
+    for n in result.numbers:
+        rows.append("\t".join(str(x) for x in (
+            n["text_id"], n["label"], n["word"], n.get("value", ""), n.get("min", ""),
+            n.get("max", ""), n["status"], n.get("unit", ""), n.get("error", ""))))
+    return "\n".join(rows) + "\n"

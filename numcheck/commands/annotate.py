@@ -7,7 +7,8 @@ from pathlib import Path
 
 NAME = "annotate"
 HELP = ("give every <num> of a TEI/EpiDoc file (or of every .xml file in a folder) its exact "
-        "@value, or @atLeast/@atMost where damage leaves a range; report values the letters contradict")
+        "@value, or @atLeast/@atMost where damage leaves a range; report values the letters "
+        "contradict; list the number words of an ATF file (or of every .atf file in a folder)")
 ORDER = 70
 
 #: List every <num> of a file up to this many; beyond, only the damaged and contradicted.
@@ -16,7 +17,8 @@ _LIST_ALL = 40
 
 def add_arguments(parser) -> None:
     parser.add_argument("input", metavar="IN", help="a TEI/EpiDoc .xml file, or a folder of them; "
-                        "or an ATF transliteration (.atf): every number word is listed")
+                        "or an ATF transliteration (.atf): every number word is listed (in a "
+                        "folder, as NAME.atf.tsv in the output folder)")
     parser.add_argument("-o", "--output", metavar="OUT",
                         help="the annotated copy (a file; a folder when IN is a folder). "
                              "Without it nothing is written: the numbers are only checked")
