@@ -222,8 +222,11 @@ def show_batch(out: dict, console, kind: str) -> None:
     s = out["summary"]
     table.section()
     files = f"{s['files']} file{'s' if s['files'] != 1 else ''}"
+    # Failures and skips only when there are some: "0 failed, 0 skipped" wrapped on 80 columns.
+    trouble = ", ".join(f"{n} {what}" for n, what in ((s["failed"], "failed"),
+                                                      (s.get("skipped", 0), "skipped")) if n)
     table.row(files, str(s["numbers"]), str(s["damaged"]), str(s["flagged"]), str(s.get("unreadable", 0)),
-              str(s["restored"]), f"{s['failed']} failed, {s.get('skipped', 0)} skipped", style="bold")
+              str(s["restored"]), trouble, style="bold")
     table.print()
     for f in out["files"]:
         if "error" in f:
