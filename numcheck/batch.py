@@ -47,7 +47,7 @@ from pathlib import Path
 from . import limits
 from .errors import LimitError, NumcheckError
 from .files import (OutputError, check_distinct, check_target, commit_pending, discard_pending,
-                    display_name, pid_alive, same_file, short, sweep_stale_temporaries, write_atomic,
+                    display_name, left_by_a_dead_process, same_file, short, sweep_stale_temporaries, write_atomic,
                     write_pending)
 
 __all__ = ["BatchResult", "annotate_folder", "audit_folder", "find_files", "POOL_MIN_FILES",
@@ -594,13 +594,12 @@ def _sweep_staging(root: Path) -> None:
         return
     for entry in entries:
         pid = entry.name[len(STAGING_PREFIX):].split("-", 1)[0]
-        if pid.isdigit() and int(pid) != os.getpid() and not pid_alive(int(pid)) \
-                and entry.is_dir(follow_symlinks=False):
+        if left_by_a_dead_process(pid) and entry.is_dir(follow_symlinks=False):
             shutil.rmtree(entry.path, ignore_errors=True)
 
 
 def _output_folders(src_root: Path, jobs_dst: list[str]) -> dict[str, str]:
-    """Make the output folders of *jobs_dst*; the reason each one refused is refused.
+    """Make the output folders of *jobs_dst*; returns why each folder refused is refused.
 
     A folder that cannot be made, or that is (through a link) the input
     folder or inside it, refuses its files (each gets the error, the run goes
@@ -632,7 +631,7 @@ def annotate_folder(in_dir: str | os.PathLike, out_dir: str | os.PathLike, *,
 
     *out_dir* must be apart from *in_dir*: not the same folder, not inside
     it, not holding it (inputs are never written over); this is checked
-    before any work.  A folder without a single ``.xml`` file is an error.  A
+    before any work.  A folder without a single ``.xml`` or ``.atf`` file is an error.  A
     file that fails is reported in its entry (``error``) and the run goes on.
     The summary files and the journal go to *summary_dir* (default:
     *out_dir*); a run stopped midway resumes where it stopped unless *fresh*.

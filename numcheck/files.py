@@ -30,7 +30,7 @@ from .errors import LimitError, NumcheckError
 __all__ = ["OutputError", "InputFileError", "write_atomic", "write_pending", "commit_pending",
            "discard_pending", "check_target", "check_distinct", "same_file", "check_input_file",
            "read_input_file",
-           "sweep_stale_temporaries", "pid_alive", "TEMP_MARK", "display_name", "short"]
+           "sweep_stale_temporaries", "pid_alive", "left_by_a_dead_process", "TEMP_MARK", "display_name", "short"]
 
 #: Every temporary file numcheck writes is named ``.<target>.numcheck-<pid>-<random>.tmp``.
 TEMP_MARK = ".numcheck-"
@@ -140,11 +140,7 @@ def read_input_file(path: str | os.PathLike, *, max_bytes: int | None = None,
         fd = os.open(p, os.O_RDONLY | getattr(os, "O_NONBLOCK", 0) | getattr(os, "O_BINARY", 0))
     except FileNotFoundError:
         raise InputFileError(f"No such {what}: {short(str(p))!r}.") from None
-    except IsADirectoryError:
-        raise InputFileError(f"{short(str(p))!r} is a folder, not {a_what}.") from None
     except OSError as err:
-        if os.path.isdir(p):
-            raise InputFileError(f"{short(str(p))!r} is a folder, not {a_what}.") from None
         raise InputFileError(f"Cannot read {short(str(p))!r}: {err.strerror or err}.") from None
     try:
         st = os.fstat(fd)
@@ -191,6 +187,12 @@ def short(text: str, width: int | None = None) -> str:
     return text if len(text) <= width else text[: max(1, width - 1)] + "…"
 
 
+def left_by_a_dead_process(pid_text: str) -> bool:
+    """Whether *pid_text*, the process id in one of numcheck's temporary names, names
+    another process that is gone (so what it left may be removed)."""
+    return pid_text.isdigit() and int(pid_text) != os.getpid() and not pid_alive(int(pid_text))
+
+
 def pid_alive(pid: int) -> bool:
     """Whether a process *pid* is running (one this user may not signal counts as running)."""
     try:
@@ -227,7 +229,7 @@ def sweep_stale_temporaries(folder: str | os.PathLike, name: str | None = None) 
             if not entry.is_file(follow_symlinks=False):
                 continue
             old = now - entry.stat(follow_symlinks=False).st_mtime > limits.STALE_TEMP_SECONDS
-            dead = pid_text.isdigit() and int(pid_text) != os.getpid() and not pid_alive(int(pid_text))
+            dead = left_by_a_dead_process(pid_text)
             if old or dead:
                 os.unlink(entry.path)
                 removed.append(n)

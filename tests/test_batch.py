@@ -238,18 +238,23 @@ def test_a_run_killed_midway_resumes_to_the_same_summary(tmp_path):
     assert "resumed" not in fresh
 
 
-def test_ctrl_c_records_what_finished(tmp_path, monkeypatch):
-    _tables(tmp_path / "in", 12)
+def _interrupted_at(real, at: int):
+    """*real* (a batch's one-file function), with Ctrl-C pressed at its *at*-th call."""
     calls = []
-    real = batch._audit_one
 
-    def stop_at_fifth(job):
+    def stop(job):
         calls.append(job[0])
-        if len(calls) == 5:
+        if len(calls) == at:
             raise KeyboardInterrupt
         return real(job)
 
-    monkeypatch.setattr(batch, "_audit_one", stop_at_fifth)
+    return stop
+
+
+def test_ctrl_c_records_what_finished(tmp_path, monkeypatch):
+    _tables(tmp_path / "in", 12)
+    real = batch._audit_one
+    monkeypatch.setattr(batch, "_audit_one", _interrupted_at(real, 5))
     with pytest.raises(KeyboardInterrupt):
         batch.audit_folder(tmp_path / "in", summary_dir=tmp_path / "s", workers=1)
     monkeypatch.setattr(batch, "_audit_one", real)
@@ -346,15 +351,8 @@ def test_a_run_leaves_no_staging_folder_nor_temporary(tmp_path, workers):
 
 def test_ctrl_c_commits_the_outputs_of_what_finished(tmp_path, monkeypatch):
     _accounts(tmp_path / "in", 12)
-    real, calls = batch._annotate_one, []
-
-    def stop_at_sixth(job):
-        calls.append(job[0])
-        if len(calls) == 6:
-            raise KeyboardInterrupt
-        return real(job)
-
-    monkeypatch.setattr(batch, "_annotate_one", stop_at_sixth)
+    real = batch._annotate_one
+    monkeypatch.setattr(batch, "_annotate_one", _interrupted_at(real, 6))
     with pytest.raises(KeyboardInterrupt):
         batch.annotate_folder(tmp_path / "in", tmp_path / "out", workers=1)
     written = sorted(p.name for p in (tmp_path / "out").glob("*.xml"))
