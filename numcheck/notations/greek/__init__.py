@@ -161,7 +161,7 @@ def parse(text: str, *, ascending: bool = False, notation: str = NAME, conventio
         raise ValueError(f"unknown Greek convention {convention!r}; expected one of {sorted(CONVENTIONS)}")
     text, cleaned = clean(text)
     if not cleaned and not ascending:
-        quick = plain_letters_reading(text, notation, limits.MAX_PLACES)
+        quick = plain_letters_reading(text, notation, limits.MAX_PLACES, convention)
         if quick is not None:
             return quick
     notes: list = []
