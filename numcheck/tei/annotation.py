@@ -270,12 +270,17 @@ def _annotate(data, name, alternatives, fix, notation) -> tuple[bytes, AnnotateR
         data = data.encode("utf-8")
     if not isinstance(data, (bytes, bytearray, memoryview)):
         raise NumcheckError(f"Expected the bytes of a TEI document, got {type(data).__name__}.")
-    root = parse_tei(name, data)
     settings = _settings()
     if not alternatives and outcomes.ENABLED:
         def one(el, hint, place):
             return _annotate_num(el, name, notation, fix, 0, None, {}, None, place, hint, settings)
 
+        done = quick.attempt_text(data, (notation, bool(fix), settings), one,
+                                  limits.MAX_XML_NUMS)
+        if done is not None:
+            return done.data, done
+    root = parse_tei(name, data)
+    if not alternatives and outcomes.ENABLED:
         done = quick.attempt(data, root, (notation, bool(fix), settings), one,
                              limits.MAX_XML_NUMS)
         if done is not None:

@@ -39,13 +39,15 @@ from operator import attrgetter
 
 from lxml import etree
 
-from . import outcomes
-from .markup import TEI_NS, lang_hint
+from .. import limits
+from ..errors import NumcheckError
+from . import outcomes, plaintext
+from .markup import TEI_NS, lang_hint, parse_tei
 from .places import Place
 from .survey import XML_LANG, survey
 from .write import _edit_start_tag, decode_source
 
-__all__ = ["Quick", "attempt"]
+__all__ = ["Quick", "attempt", "attempt_text"]
 
 _NUM = f"{{{TEI_NS}}}num"
 
@@ -63,7 +65,7 @@ class _Known:
 
     status: str
     damaged: bool
-    out: str | None             # the source with its start tag edited, or None if it stays
+    out: bytes | None           # the source with its start tag edited (UTF-8), or None if it stays
     kept: tuple                 # for outcomes.revive: the NumResult and its edit
 
 
@@ -72,13 +74,16 @@ _DAMAGED = attrgetter("damaged")
 
 
 class Quick:
-    """A file annotated by :func:`attempt`: its bytes, and its results made when asked for."""
+    """A file annotated by :func:`attempt` or :func:`attempt_text`: its bytes, and its results
+    made when asked for (from the tree of *source*, parsed then, when no *root* is given)."""
 
-    def __init__(self, data: bytes, root, known: list[_Known]):
+    def __init__(self, data: bytes, root, known: list[_Known], source: bytes | None = None):
         self.data = data
-        self._root, self._known = root, known
+        self._root, self._known, self._source = root, known, source
 
     def _results(self, which) -> list:
+        if self._root is None:
+            self._root = parse_tei("<input>", self._source)
         nums = list(self._root.iter(_NUM))
         places = survey(self._root).places
         return [outcomes.revive(self._known[i].kept, nums[i].sourceline,
@@ -198,6 +203,111 @@ def _langs(root, count: int) -> list[str | None]:
     return langs
 
 
+def attempt_text(data: bytes, context: tuple, annotate_one, max_nums: int) -> Quick | None:
+    """*data* annotated from its text alone, with no tree, or None where this path declines.
+
+    It is taken when the file is plain (:mod:`.plaintext`): libxml2 checks
+    the file without building a tree, and a number not met before (in the
+    same language, under the same *context*) is learnt from its element
+    parsed alone (:func:`_learn_alone`), at most :data:`LEARN_ALONE` of
+    them.  Else :func:`attempt` (with the tree) or the general path
+    annotates the file, and reports what is wrong with it.
+    """
+    if type(data) is not bytes or len(data) > limits.MAX_XML_BYTES:
+        return None
+    at = plaintext.plain_body(data)
+    if at is None:
+        return None
+    split = plaintext.split_nums(data, at)
+    if split is None or not 0 < len(split[1]) <= max_nums:
+        return None
+    pieces, keys = split
+    langs = plaintext.langs(data, at, pieces)
+    if langs is None:
+        return None
+    tables = outcomes.by_source(context)
+    known = _look_up(tables, langs, keys)
+    if (known.count(None) > LEARN_ALONE
+            or not plaintext.nesting_within(data, at, limits.MAX_XML_DEPTH)
+            or not plaintext.well_formed(data)):
+        return None
+    if None in known and not _fill(known, keys, langs, tables, context,
+                                   lambda i: _learn_alone(keys[i], langs[i], annotate_one)):
+        return None
+    if any(map(_EDITED, known)):
+        pieces = pieces[:]
+        for i, k in enumerate(known, 1):
+            if k.out is not None:       # the edited source, then what followed the source
+                pieces[i] = k.out[4:] + pieces[i][_source_length(keys[i - 1]):]
+        out = data[:at] + b"<num".join(pieces)
+    else:
+        out = data
+    return Quick(out, None, known, source=data)
+
+
+_EDITED = attrgetter("out")
+
+
+def _source_length(key: bytes) -> int:
+    """The length of the source of *key* after its ``<num`` (:func:`.plaintext.source_key`)."""
+    return len(key) - 4 if key.startswith(b"<") else len(key) + 6
+
+
+#: At most this many numbers of a file are learnt each from its element alone; past it the
+#: file's tree is built (:func:`attempt`).
+LEARN_ALONE = 32
+_ALONE_PARSER = etree.XMLParser(resolve_entities=False, no_network=True, huge_tree=False,
+                                load_dtd=False)
+
+
+def _learn_alone(key: bytes, lang: str | None, annotate_one) -> _Known | None:
+    """What annotate finds for the ``<num>`` of *key* in a plain file, from that element
+    parsed alone (None where it must be learnt in its file).
+
+    What is kept depends on the element's markup alone (:func:`.outcomes.snapshot`:
+    a number read from the words before it, or not read, is not kept), and in a
+    plain file the element's text means the same alone as in its place.  Any
+    error (a limit, which names the line) is left for the file's own tree to say.
+    """
+    source = plaintext.source_of(key)
+    try:
+        wrapper = etree.fromstring(b'<ab xmlns="' + _TEI_NS_BYTES + b'">' + source + b"</ab>",
+                                   _ALONE_PARSER)
+        return _learn(wrapper[0], lang_hint(lang), source.decode("utf-8"), annotate_one)
+    except (etree.XMLSyntaxError, UnicodeDecodeError, NumcheckError):
+        return None
+
+
+_TEI_NS_BYTES = TEI_NS.encode("ascii")
+
+
+def _look_up(tables: dict, langs: list, keys: list) -> list:
+    """What was found for each source's key in its language (None: not met before)."""
+    first = langs[0]
+    if langs.count(first) == len(langs):             # one language for all (the usual case)
+        return list(map(tables.setdefault(lang_hint(first), {}).get, keys))
+    hints = {lang: lang_hint(lang) for lang in set(langs)}
+    return [tables.setdefault(hints[lang], {}).get(key) for lang, key in zip(langs, keys)]
+
+
+def _fill(known: list, keys: list, langs: list, tables: dict, context: tuple, learn) -> bool:
+    """Put in *known* what ``learn(i)`` finds for each number not met before, keeping it for
+    the next files; False where one cannot be learnt (the file is declined)."""
+    for i, found in enumerate(known):
+        if found is None:
+            hint = lang_hint(langs[i])
+            table = tables.setdefault(hint, {})
+            found = table.get(keys[i])      # the same markup earlier in this file
+            if found is None:
+                found = learn(i)
+                if found is None:
+                    return False
+                table[keys[i]] = found
+                outcomes.note(context, hint, keys[i], found)
+            known[i] = found
+    return True
+
+
 def attempt(data: bytes, root, context: tuple, annotate_one, max_nums: int) -> Quick | None:
     """*data* (parsed as *root*) annotated on its text, or None where this path declines.
 
@@ -222,32 +332,19 @@ def attempt(data: bytes, root, context: tuple, annotate_one, max_nums: int) -> Q
         if parts is None:
             return None
     sources = parts[1::2]
+    keys = [plaintext.source_key(src.encode("utf-8")) for src in sources]
     tables = outcomes.by_source(context)
     langs = _langs(root, count)
-    first = langs[0]
-    if langs.count(first) == count:             # one language for all (the usual case)
-        table = tables.setdefault(lang_hint(first), {})
-        known = list(map(table.get, sources))
-    else:
-        hints = {lang: lang_hint(lang) for lang in set(langs)}
-        known = [tables.setdefault(hints[lang], {}).get(src) for lang, src in zip(langs, sources)]
+    known = _look_up(tables, langs, keys)
     if None in known:
         if nums is None:
             nums = list(root.iter(_NUM))
-        for i, found in enumerate(known):
-            if found is None:
-                hint = lang_hint(langs[i])
-                table = tables.setdefault(hint, {})
-                found = table.get(sources[i])     # the same markup earlier in this file
-                if found is None:
-                    found = _learn(nums[i], hint, sources[i], annotate_one)
-                    if found is None:
-                        return None
-                    table[sources[i]] = found
-                    outcomes.note(context, hint, sources[i], found)
-                known[i] = found
-    if any(k.out is not None for k in known):
-        parts[1::2] = [src if k.out is None else k.out for src, k in zip(sources, known)]
+        learn = lambda i: _learn(nums[i], lang_hint(langs[i]), sources[i], annotate_one)  # noqa: E731
+        if not _fill(known, keys, langs, tables, context, learn):
+            return None
+    if any(map(_EDITED, known)):
+        parts[1::2] = [src if k.out is None else k.out.decode("utf-8")
+                       for src, k in zip(sources, known)]
         out = "".join(parts).encode(codec)
     else:
         out = data
@@ -267,5 +364,5 @@ def _learn(el, hint, source: str, annotate_one) -> _Known | None:
         tag = _START.match(source).group()
         new_tag = _edit_start_tag(tag, edit)
         if new_tag != tag:
-            out = new_tag + source[len(tag):]
+            out = (new_tag + source[len(tag):]).encode("utf-8")
     return _Known(res.status, bool(res.damaged), out, kept)
