@@ -60,7 +60,7 @@ def test_what_is_given_is_read_once_and_never_by_its_writer(tmp_path, noting):
            + b"</ab></body></text></TEI>")
     a = sharing.Sharing(str(tmp_path), name="1")
     annotation.annotate_bytes(doc, "doc.xml")
-    a.give()                                    # nine new: more than GIVE_AT, written
+    a.give()                                    # nine new: written
     assert [p.name for p in tmp_path.iterdir()] == ["1" + sharing.LOG_SUFFIX]
     assert a.take() == 0                        # its own log is not read back
     b = sharing.Sharing(str(tmp_path), name="2")

@@ -25,9 +25,11 @@ from . import outcomes
 
 __all__ = ["Sharing", "GIVE_AT", "LOG_SUFFIX", "LOOK_EVERY"]
 
-#: Outcomes are written once this many are new (or when *force* is given).
-GIVE_AT = 8
-#: The folder is looked at for new logs at every this many calls of Sharing.take.
+#: Outcomes are written once this many are new (or when *force* is given): the other
+#: workers learn least twice when each file's are given at once.
+GIVE_AT = 1
+#: Once another worker's log is found, the folder is looked at for more only at every this
+#: many calls of Sharing.take (before, at every call: the first files teach the most).
 LOOK_EVERY = 8
 #: The logs in the folder end so; a worker's is named by its process id.
 LOG_SUFFIX = ".outcomes"
@@ -80,14 +82,16 @@ class Sharing:
         self.peers: dict[str, _Peer] = {}
         self.calls = 0
         self.waiting: list[tuple] = []
+        self.fd: int | None = None          # this worker's own log, once written
         outcomes.NOTING = True
 
     def take(self) -> int:
         """Keep what the other workers wrote since the last call; the number of outcomes taken.
 
-        The folder is looked at for new logs at every :data:`LOOK_EVERY` th call only
-        (the first included): a worker that starts late is heard from a little later."""
-        if self.calls % LOOK_EVERY == 0:
+        The folder is looked at for new logs at every call until one is found, then at
+        every :data:`LOOK_EVERY` th call only: a third worker that starts late is heard
+        from a little later."""
+        if not self.peers or self.calls % LOOK_EVERY == 0:
             try:
                 names = [e.name for e in os.scandir(self.folder)]
             except OSError:
@@ -116,18 +120,18 @@ class Sharing:
         payload = pickle.dumps(self.waiting, protocol=pickle.HIGHEST_PROTOCOL)
         self.waiting = []
         try:
-            fd = os.open(os.path.join(self.folder, self.mine),
-                         os.O_WRONLY | os.O_APPEND | os.O_CREAT | getattr(os, "O_BINARY", 0), 0o600)
-        except OSError:
-            return
-        try:
-            os.write(fd, _HEAD.pack(len(payload)) + payload)
+            if self.fd is None:         # kept open: a worker gives after most of its files
+                self.fd = os.open(os.path.join(self.folder, self.mine),
+                                  os.O_WRONLY | os.O_APPEND | os.O_CREAT | getattr(os, "O_BINARY", 0),
+                                  0o600)
+            os.write(self.fd, _HEAD.pack(len(payload)) + payload)
         except OSError:
             pass
-        finally:
-            os.close(fd)
 
     def close(self) -> None:
         """Close the other workers' logs (a worker's process ending closes them too)."""
         for peer in self.peers.values():
             peer.close()
+        if self.fd is not None:
+            os.close(self.fd)
+            self.fd = None
