@@ -48,7 +48,7 @@ from . import limits
 from .errors import LimitError, NumcheckError
 from .files import (OutputError, check_distinct, check_target, commit_pending, discard_pending,
                     display_name, left_by_a_dead_process, same_file, short, sweep_stale_temporaries, write_atomic,
-                    write_pending)
+                    write_atomic_together, write_pending)
 
 __all__ = ["BatchResult", "annotate_folder", "audit_folder", "find_files", "POOL_MIN_FILES",
            "ANNOTATE_SUFFIXES",
@@ -162,12 +162,17 @@ def find_files(folder: str | os.PathLike, suffixes: tuple[str, ...],
     *exclude* are left out.  Symbolic links are followed only when they stay
     inside *folder*: a batch never reads a file outside the folder it was given.
     """
+    return [Path(path) for _, path in _found_files(folder, suffixes, exclude)]
+
+
+def _found_files(folder, suffixes: tuple[str, ...], exclude=None) -> list[tuple[str, str]]:
+    """:func:`find_files` as ``(name relative to the folder, with "/"; path)`` pairs."""
     root = Path(folder)
     if not root.is_dir():
         raise NumcheckError(f"{short(display_name(str(root)))!r} is not a folder.")
     real_root = os.path.realpath(root)
     skip = os.path.realpath(exclude) if exclude is not None else None
-    found: list[tuple[str, Path]] = []
+    found: list[tuple[str, str]] = []
 
     def inside(real: str, outer: str) -> bool:
         return real.startswith(outer.rstrip(os.sep) + os.sep)
@@ -204,7 +209,7 @@ def find_files(folder: str | os.PathLike, suffixes: tuple[str, ...],
                     continue                # a FIFO, a device, a dangling link, a folder's link
             except OSError:
                 continue
-            found.append((f"{rel}{name}", Path(entry.path)))
+            found.append((f"{rel}{name}", entry.path))
             if len(found) > limits.MAX_BATCH_FILES:
                 raise LimitError(f"number of files in {short(display_name(str(root)))!r}",
                                  f"over {limits.MAX_BATCH_FILES}", limits.MAX_BATCH_FILES,
@@ -212,7 +217,7 @@ def find_files(folder: str | os.PathLike, suffixes: tuple[str, ...],
 
     walk(str(root), "")
     found.sort(key=lambda item: item[0])
-    return [path for _, path in found]
+    return found
 
 
 def _no_files(root: Path, suffixes: tuple[str, ...]) -> NumcheckError:
@@ -470,15 +475,16 @@ def _write_summary(result: BatchResult, folder: Path) -> None:
                     "damaged": f.get("damaged", ""), "flagged": f.get("flagged", ""),
                     "restored": f.get("restored", ""),
                     "message": short(f.get("error") or f.get("skipped") or "")})
-    write_atomic(folder / SUMMARY_FILES[0], buf.getvalue())
+    files = buf.getvalue()
     data = result.to_dict()
     findings = data["findings"] = result.findings()
-    write_atomic(folder / SUMMARY_FILES[1], _summary_json(data))
     buf = io.StringIO()
     w = csv.DictWriter(buf, fieldnames=FINDING_COLUMNS, lineterminator="\n")
     w.writeheader()
     w.writerows(findings)
-    write_atomic(folder / SUMMARY_FILES[2], buf.getvalue())
+    write_atomic_together([(folder / SUMMARY_FILES[0], files),
+                           (folder / SUMMARY_FILES[1], _summary_json(data)),
+                           (folder / SUMMARY_FILES[2], buf.getvalue())])
 
 
 def _summary_json(data: dict) -> str:
@@ -640,25 +646,27 @@ def annotate_folder(in_dir: str | os.PathLike, out_dir: str | os.PathLike, *,
     _prepare(src_root, dst_root, "output folder")
     sdir = Path(summary_dir) if summary_dir is not None else dst_root
     _prepare(src_root, sdir, "summary folder")
-    files = find_files(src_root, ANNOTATE_SUFFIXES)
-    if not files:
+    found = _found_files(src_root, ANNOTATE_SUFFIXES)
+    if not found:
         raise _no_files(src_root, ANNOTATE_SUFFIXES)
     dst_root.mkdir(parents=True, exist_ok=True)
     sdir.mkdir(parents=True, exist_ok=True)
-    rels = [path.relative_to(src_root).as_posix() for path in files]
+    rels = [rel for rel, _ in found]
+    files = [path for _, path in found]
     # An ATF file gets its listing beside it, named after it (tablet.atf -> tablet.atf.tsv).
-    targets = [str(dst_root / (rel + ".tsv" if rel.lower().endswith(ATF_SUFFIX) else rel))
-               for rel in rels]
+    out_root = str(dst_root)
+    targets = [os.path.join(out_root, *(rel + ".tsv" if rel.lower().endswith(ATF_SUFFIX)
+                                        else rel).split("/")) for rel in rels]
     refused = _output_folders(src_root, targets)
     _sweep_staging(dst_root)
     staging = tempfile.mkdtemp(prefix=f"{STAGING_PREFIX}{os.getpid()}-", dir=dst_root)
     share = None
     if len(files) >= POOL_MIN_FILES and workers != 1 and machine_workers() > 1:
         share = tempfile.mkdtemp(prefix="numcheck-outcomes-")
-    jobs = [(rel, str(path), dst, alternatives, fix, notation,
+    jobs = [(rel, path, dst, alternatives, fix, notation,
              refused.get(os.path.dirname(dst)), share, staging)
             for rel, path, dst in zip(rels, files, targets)]
-    stamps = [_stamp(str(path)) for path in files]
+    stamps = [_stamp(path) for path in files]
     key = {"kind": "annotate", "input": display_name(os.path.realpath(src_root)),
            "output": display_name(os.path.realpath(dst_root)), "alternatives": alternatives,
            "fix": bool(fix), "notation": notation}

@@ -27,7 +27,8 @@ from pathlib import Path
 from . import limits
 from .errors import LimitError, NumcheckError
 
-__all__ = ["OutputError", "InputFileError", "write_atomic", "write_pending", "commit_pending",
+__all__ = ["OutputError", "InputFileError", "write_atomic", "write_atomic_together",
+           "write_pending", "commit_pending",
            "discard_pending", "check_target", "check_distinct", "same_file", "check_input_file",
            "read_input_file",
            "sweep_stale_temporaries", "pid_alive", "left_by_a_dead_process", "TEMP_MARK", "display_name", "short"]
@@ -274,6 +275,25 @@ def write_atomic(path: str | os.PathLike, data: bytes | str, *, encoding: str = 
         _unlink(tmp)
         raise
     return target
+
+
+def write_atomic_together(files: list[tuple[str | os.PathLike, bytes | str]]) -> None:
+    """:func:`write_atomic` of each ``(path, data)`` of *files*, with one flush of the disk
+    for all of them (their folders are swept of stale temporaries once each)."""
+    pending = []
+    try:
+        for folder in {os.fspath(Path(path).parent) for path, _ in files}:
+            if not os.path.isdir(folder or "."):
+                raise OutputError(f"Cannot write into {folder!r}: the folder does not exist.")
+            sweep_stale_temporaries(Path(folder or "."))
+        for path, data in files:
+            check_target(path)
+            payload = _encode(data, "utf-8") if isinstance(data, str) else bytes(data)
+            pending.append((write_pending(path, payload), path))
+    except BaseException:
+        discard_pending(pending)
+        raise
+    commit_pending(pending)
 
 
 def check_target(path: str | os.PathLike) -> None:

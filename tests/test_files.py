@@ -254,3 +254,26 @@ def test_a_failed_flush_renames_nothing_and_leaves_no_temporary(tmp_path, monkey
         files.commit_pending(pending)
     assert (tmp_path / "a.xml").read_text(encoding="utf-8") == "old"
     assert [p.name for p in tmp_path.iterdir()] == ["a.xml"]
+
+
+def test_files_written_together_replace_their_targets_with_one_flush(tmp_path, monkeypatch):
+    from numcheck import files
+
+    (tmp_path / "a.csv").write_text("old")
+    flushes = []
+    real = files._sync_all
+    monkeypatch.setattr(files, "_sync_all", lambda paths: (flushes.append(len(paths)), real(paths)))
+    files.write_atomic_together([(tmp_path / "a.csv", "ä,1\n"), (tmp_path / "b.json", b"{}\n")])
+    assert (tmp_path / "a.csv").read_bytes() == "ä,1\n".encode("utf-8")
+    assert (tmp_path / "b.json").read_bytes() == b"{}\n"
+    assert flushes == [2]
+    assert sorted(p.name for p in tmp_path.iterdir()) == ["a.csv", "b.json"]
+
+
+def test_files_written_together_are_all_refused_for_one_bad_target(tmp_path):
+    from numcheck import files
+
+    (tmp_path / "b.json").mkdir()
+    with pytest.raises(files.OutputError, match="is a folder"):
+        files.write_atomic_together([(tmp_path / "a.csv", "x"), (tmp_path / "b.json", "y")])
+    assert sorted(p.name for p in tmp_path.iterdir()) == ["b.json"]       # no a.csv, no temporary
