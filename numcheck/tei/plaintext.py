@@ -53,7 +53,7 @@ _WHITESPACE = b" \t\r\n"
 def plain_body(data: bytes) -> int | None:
     """Where the root's start tag of *data* begins, when the file is plain (module
     docstring); None otherwise."""
-    if data.startswith(_BOMS) or b"\0" in data or b"<!" in data:
+    if data.startswith(_BOMS) or b"\0" in data or _after_lt(data, b"!", 0):
         return None
     at = 0
     if data.startswith(b"<?xml"):
@@ -72,18 +72,35 @@ def plain_body(data: bytes) -> int | None:
         if at < 0:
             return None
         at += 2
-    if at < 0 or data.find(b"<?", at) >= 0 or data.count(b"<", at) != data.count(b">", at):
+    if at < 0 or _after_lt(data, b"?", at) or data.count(b"<", at) != data.count(b">", at):
         return None
     root_tag = data[at:data.find(b">", at)]
     declared = max(root_tag.find(d) for d in _TEI_DEFAULT)
-    if (data.count(b"xmlns") != 1 or declared < 1 or root_tag[declared - 1] not in _WHITESPACE
-            or not _outside_values(root_tag[:declared])):
+    first = data.find(b"xmlns")
+    if (data.find(b"xmlns", first + 1) >= 0 or declared < 1
+            or root_tag[declared - 1] not in _WHITESPACE or not _outside_values(root_tag[:declared])):
         return None
     # No colon but those of xml: attributes and of the namespace: then no prefix; else look.
-    if (data.count(b":", at) != data.count(b" xml:", at) + TEI_NS.count(":")
-            and _PREFIXED.search(data, at) is not None):
-        return None
+    namespace = at + declared + len(_TEI_DEFAULT[0]) - 1      # past TEI's URI
+    colon = data.find(b":", at)
+    while colon >= 0:
+        if not (data[colon - 4:colon] == b" xml" or at + declared < colon < namespace):
+            if _PREFIXED.search(data, at) is not None:
+                return None
+            break
+        colon = data.find(b":", colon + 1)
     return at
+
+
+def _after_lt(data: bytes, mark: bytes, at: int) -> bool:
+    """Whether ``<`` followed by the byte *mark* (``<!``, ``<?``) occurs in *data* from *at*
+    (the rare byte is looked for, then what stands before it)."""
+    pos = data.find(mark, at)
+    while pos >= 0:
+        if pos > at and data[pos - 1] == 0x3C:          # "<"
+            return True
+        pos = data.find(mark, pos + 1)
+    return False
 
 
 _END = b"</num>"
@@ -228,11 +245,10 @@ def nesting_within(data: bytes, at: int, limit: int) -> bool:
     depth at its start and every start tag in it.  False means not sure.
     """
     end = len(data)
-    closes = data.count(b"</", at)
-    starts = data.count(b"<", at) - closes
-    if starts <= limit:
+    tags = data.count(b"<", at)
+    if tags <= limit:
         return True
-    pieces = min(256, starts // _TAGS_A_PIECE + 1)
+    pieces = min(256, tags // _TAGS_A_PIECE + 1)
     depth, base = 0, at
     for k in range(1, pieces + 1):
         cut = end if k == pieces else data.find(b">", base + (end - base) * k // pieces) + 1
