@@ -219,3 +219,35 @@ def test_the_nesting_bound_is_never_below_the_depth(per_piece, empties, monkeypa
     assert _depth(etree.fromstring(data)) == 9
     assert not plaintext.nesting_within(data, at, 8)
     assert plaintext.nesting_within(data, at, 200)
+
+
+def _account(pairs) -> bytes:
+    """An account of ``(value, letters)`` numbers, one to a line."""
+    body = "".join(f'<ab><lb n="{i}"/><num value="{v}">{t}</num></ab>' for i, (v, t) in enumerate(pairs, 1))
+    return f'<TEI xmlns="{TEI}"><text><body><div xml:lang="grc">{body}</div></body></text></TEI>'.encode()
+
+
+_TEENS = list(zip(range(11, 20), "ια ιβ ιγ ιδ ιε ιϛ ιζ ιη ιθ".split()))
+
+
+def test_a_file_of_many_new_numbers_is_learnt_from_its_tree(monkeypatch):
+    monkeypatch.setattr(quick, "LEARN_ALONE", 3)
+    outcomes.forget()
+    first = _account(_TEENS)                        # 9 numbers not met before: more than 3
+    done = annotation._annotate(first, "a.xml", 0, False, None)[1]
+    assert isinstance(done, quick.Quick) and done._root is not None
+    second = _account(_TEENS[:2] + [(21, "ιβ"), (22, "ιγ")])    # 2 new: contradicted values
+    done = annotation._annotate(second, "b.xml", 0, False, None)[1]
+    assert isinstance(done, quick.Quick) and done._root is None
+    assert [n["status"] for n in annotation.annotate_bytes(second)[1].to_dict()["nums"]] == [
+        "agrees", "agrees", "contradiction", "contradiction"]
+
+
+def test_a_plain_file_with_bad_utf8_is_refused_by_the_general_path():
+    outcomes.forget()
+    good = _account(_TEENS[:2])
+    annotation.annotate_bytes(good)
+    bad = good.replace("ια".encode(), "ι".encode() + b"\xce")
+    assert plaintext.plain_body(bad) is not None and not plaintext.well_formed(bad)
+    with pytest.raises(NumcheckError, match="malformed XML"):
+        annotation.annotate_bytes(bad)
