@@ -15,7 +15,6 @@ gives one gapless Reading per possible count.
 
 from __future__ import annotations
 
-import functools
 import itertools
 import math
 from collections.abc import Iterator
@@ -40,6 +39,25 @@ class Status(str, Enum):
     @property
     def damaged(self) -> bool:
         return self in (Status.DOUBTFUL, Status.UNREAD, Status.LOST, Status.RESTORED)
+
+
+class _computed_once:
+    """:func:`functools.cached_property` without its lock: Python 3.11 takes one at the first
+    access of each value, a good part of reading a plain number.  A Reading is immutable,
+    so two threads that compute the same value at once only do the work twice."""
+
+    def __init__(self, fn):
+        self.fn = fn
+        self.__doc__ = fn.__doc__
+
+    def __set_name__(self, owner, name: str) -> None:
+        self.name = name
+
+    def __get__(self, obj, owner=None):
+        if obj is None:
+            return self
+        value = obj.__dict__[self.name] = self.fn(obj)
+        return value
 
 
 def place_sum(terms, base: int = 60) -> Fraction:
@@ -196,7 +214,7 @@ class Reading:
         hi = place_sum(((s.values[-1], s.place) for s in slots), self.base)
         return (lo, hi) if self.sign > 0 else (-hi, -lo)
 
-    @functools.cached_property
+    @_computed_once
     def _bounds(self) -> tuple[Fraction, Fraction]:
         if not self.has_gap:
             lo, hi, _ = self._gapless_sums
@@ -204,7 +222,7 @@ class Reading:
         bounds = [r._bounds_gapless() for r in self.expansions()]
         return min(b[0] for b in bounds), max(b[1] for b in bounds)
 
-    @functools.cached_property
+    @_computed_once
     def _gapless_sums(self) -> tuple[Fraction, Fraction, Fraction]:
         """The least, greatest and preferred place sums of a gapless reading (before its sign),
         in one pass over whole slot values (:func:`place_sum` where a value is a fraction)."""
@@ -236,7 +254,7 @@ class Reading:
         """The largest value the traces allow."""
         return self._bounds[1]
 
-    @functools.cached_property
+    @_computed_once
     def value(self) -> Fraction:
         """The value as the edition gives it.
 
