@@ -20,6 +20,8 @@ from __future__ import annotations
 
 from lxml import etree
 
+from . import analogy
+
 __all__ = ["ENABLED", "MAX_KEPT", "key", "recall", "keep", "forget", "snapshot", "revive",
            "by_source", "NOTING", "note", "take_new", "adopt"]
 
@@ -136,6 +138,7 @@ def adopt(records) -> None:
     """Keep outcomes another process learnt (what its :func:`take_new` gave)."""
     for context, hint, source, outcome in records:
         by_source(context).setdefault(hint, {}).setdefault(source, outcome)
+        analogy.offer(source, hint, context, outcome)
 
 
 def forget() -> None:
@@ -143,3 +146,4 @@ def forget() -> None:
     _kept.clear()
     _by_source.clear()
     _new.clear()
+    analogy.forget()

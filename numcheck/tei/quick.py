@@ -41,7 +41,7 @@ from lxml import etree
 
 from .. import limits
 from ..errors import NumcheckError
-from . import outcomes, plaintext
+from . import analogy, outcomes, plaintext
 from .markup import TEI_NS, lang_hint, parse_tei
 from .places import Place
 from .survey import XML_LANG, survey
@@ -210,7 +210,7 @@ def attempt_text(data: bytes, context: tuple, annotate_one, max_nums: int) -> Qu
     the file without building a tree, and a number not met before (in the
     same language, under the same *context*) is learnt from its element
     parsed alone (:func:`_learn_alone`), at most :data:`LEARN_ALONE` of
-    them.  Else :func:`attempt` (with the tree) or the general path
+    them, unless it is made by analogy with another (:mod:`.analogy`).  Else :func:`attempt` (with the tree) or the general path
     annotates the file, and reports what is wrong with it.
     """
     if type(data) is not bytes or len(data) > limits.MAX_XML_BYTES:
@@ -227,6 +227,8 @@ def attempt_text(data: bytes, context: tuple, annotate_one, max_nums: int) -> Qu
         return None
     tables = outcomes.by_source(context)
     known = _look_up(tables, langs, keys)
+    if None in known:
+        _by_analogy(known, keys, langs, tables, context)
     if (known.count(None) > LEARN_ALONE
             or not plaintext.nesting_within(data, at, limits.MAX_XML_DEPTH)
             or not plaintext.well_formed(data)):
@@ -290,6 +292,17 @@ def _look_up(tables: dict, langs: list, keys: list) -> list:
     return [tables.setdefault(hints[lang], {}).get(key) for lang, key in zip(langs, keys)]
 
 
+def _by_analogy(known: list, keys: list, langs: list, tables: dict, context: tuple) -> None:
+    """Put in *known* each outcome not met before that its shape's model makes
+    (:mod:`.analogy`), keeping it for the next files."""
+    for i, found in enumerate(known):
+        if found is None:
+            hint = lang_hint(langs[i])
+            found = analogy.made(keys[i], hint, context)
+            if found is not None:
+                tables.setdefault(hint, {})[keys[i]] = known[i] = found
+
+
 def _fill(known: list, keys: list, langs: list, tables: dict, context: tuple, learn) -> bool:
     """Put in *known* what ``learn(i)`` finds for each number not met before, keeping it for
     the next files; False where one cannot be learnt (the file is declined)."""
@@ -299,11 +312,14 @@ def _fill(known: list, keys: list, langs: list, tables: dict, context: tuple, le
             table = tables.setdefault(hint, {})
             found = table.get(keys[i])      # the same markup earlier in this file
             if found is None:
-                found = learn(i)
+                found = analogy.made(keys[i], hint, context)
                 if found is None:
-                    return False
+                    found = learn(i)
+                    if found is None:
+                        return False
+                    analogy.offer(keys[i], hint, context, found)
+                    outcomes.note(context, hint, keys[i], found)
                 table[keys[i]] = found
-                outcomes.note(context, hint, keys[i], found)
             known[i] = found
     return True
 
