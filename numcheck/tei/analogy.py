@@ -45,8 +45,9 @@ _models: dict[tuple, object] = {}
 
 
 def _shape(key: bytes):
-    """``(unclear, ranks, letters, value text)`` of *key*, or None where it is not of a shape
-    this module takes."""
+    """``(unclear, ranks, text read, @value)`` of *key* (whether its first letter is
+    unclear, the rank of each letter, the text as annotate writes it read), or None where
+    it is not of a shape this module takes."""
     try:
         m = _KEY.match(key.decode("utf-8"))
     except UnicodeDecodeError:

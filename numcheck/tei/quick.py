@@ -210,8 +210,9 @@ def attempt_text(data: bytes, context: tuple, annotate_one, max_nums: int) -> Qu
     the file without building a tree, and a number not met before (in the
     same language, under the same *context*) is learnt from its element
     parsed alone (:func:`_learn_alone`), at most :data:`LEARN_ALONE` of
-    them, unless it is made by analogy with another (:mod:`.analogy`).  Else :func:`attempt` (with the tree) or the general path
-    annotates the file, and reports what is wrong with it.
+    them, unless it is made by analogy with another (:mod:`.analogy`).
+    Else :func:`attempt` (with the tree) or the general path annotates the
+    file, and reports what is wrong with it.
     """
     if type(data) is not bytes or len(data) > limits.MAX_XML_BYTES:
         return None
