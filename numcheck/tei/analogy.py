@@ -12,7 +12,7 @@ and when its outcome is that plain agreement it becomes the *model* of its
 shape, under the same options, limits and language; every later number of
 that shape is made from the model with those three fields put in.
 
-Only the letters of :data:`_RANKS` are taken, one at most of each rank,
+Only the letters of :data:`_TAKEN` are taken, one at most of each rank,
 hundreds before tens before units, and only where ``@value`` is written
 as the letters' value in plain digits.  ``tests/test_tei_analogy.py``
 compares the outcome made so with the general path's for every such
@@ -24,16 +24,14 @@ from __future__ import annotations
 import re
 from fractions import Fraction
 
+from ..notations.greek.letters import letter_value
+
 __all__ = ["made", "offer", "forget"]
 
-#: The letters taken, by rank (units, tens, hundreds), with their values.
-_RANKS = (
-    dict(zip("αβγδεϛζηθ", range(1, 10))),
-    dict(zip("ικλμνξοπϙϟ", (10, 20, 30, 40, 50, 60, 70, 80, 90, 90))),
-    dict(zip("ρστυφχψωϡ", range(100, 1000, 100))),
-)
-_RANK_OF = {ch: rank for rank, letters in enumerate(_RANKS) for ch in letters}
-_VALUE_OF = {ch: v for letters in _RANKS for ch, v in letters.items()}
+#: The letters taken: the usual letter of each value, and the archaic koppa ϙ beside ϟ.
+_TAKEN = "αβγδεϛζηθικλμνξοπϙϟρστυφχψωϡ"
+_VALUE_OF = {ch: letter_value(ch) for ch in _TAKEN}
+_RANK_OF = {ch: len(str(v)) - 1 for ch, v in _VALUE_OF.items()}      # units 0, tens 1, hundreds 2
 #: The key of a ``<num>`` (:func:`.plaintext.source_key`) of either shape, decoded.
 _KEY = re.compile(r' value="([1-9][0-9]{0,2})">(?:<unclear>(.)</unclear>)?(.{0,3})\Z', re.S)
 _DOT_BELOW = "\u0323"
